@@ -1,0 +1,10 @@
+//! The analysis core: DOF numbering, assembly, factorization and the
+//! per-case results. It does no I/O and, on a validated model, fails only
+//! for a mechanism, which it names by node and direction.
+
+pub mod assemble;
+pub mod dofs;
+pub mod results;
+pub mod solve;
+
+pub use results::{analyse, Analysis, CaseResult};

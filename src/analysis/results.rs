@@ -1,0 +1,301 @@
+//! Solving load cases on one factorization and recovering member forces,
+//! reactions, displacements and an equilibrium check for each.
+
+use super::assemble::{b_row, stiffness, BRow, Csc};
+use super::dofs::Dofs;
+use super::solve::{Factor, FactorError, Symbolic};
+use crate::model::{LoadCase, Model};
+
+/// Relative equilibrium residual above which a solution is refused.
+pub const RESIDUAL_LIMIT: f64 = 1e-6;
+/// Pivot ratio below which results are flagged as possibly inaccurate.
+pub const CONDITION_WARNING_RATIO: f64 = 1e-8;
+
+#[derive(Debug, Clone, PartialEq, thiserror::Error)]
+pub enum AnalysisError {
+    #[error("the truss is a mechanism: node \"{node}\" is free to move in {direction} (pivot ratio {pivot_ratio:.1e}); add a member or a support there")]
+    Mechanism {
+        node: String,
+        direction: String,
+        pivot_ratio: f64,
+    },
+    #[error("load case \"{case}\": equilibrium residual {relative:.1e} of the largest force exceeds {limit:.0e}; the model is too ill-conditioned to trust")]
+    Residual {
+        case: String,
+        relative: f64,
+        limit: f64,
+    },
+    #[error("the sparse factorization failed for want of memory or a malformed matrix")]
+    Internal,
+}
+
+/// The results of one load case, all in SI.
+#[derive(Clone, Debug, PartialEq)]
+pub struct CaseResult {
+    pub id: String,
+    /// Global displacement of every node, m (zero for nodes no member meets).
+    pub displacements: Vec<[f64; 2]>,
+    /// Axial force of every member, N, tension positive.
+    pub forces: Vec<f64>,
+    /// Reaction of every support (order of `model.supports`), N, global.
+    pub reactions: Vec<[f64; 2]>,
+    /// Largest |K·u − f| over the free DOFs, N.
+    pub residual: f64,
+    /// `residual` divided by the largest applied or member force.
+    pub relative_residual: f64,
+    /// Sum of applied loads and of reactions, N (they should cancel).
+    pub load_sum: [f64; 2],
+    pub reaction_sum: [f64; 2],
+}
+
+/// A model made ready to solve: DOFs, stiffness, factorization.
+pub struct Prepared {
+    pub dofs: Dofs,
+    pub k: Csc,
+    pub factor: Factor,
+    rows: Vec<BRow>,
+    stiff: Vec<f64>,
+}
+
+/// Everything `solve` reports.
+pub struct Analysis {
+    pub prepared: Prepared,
+    pub cases: Vec<CaseResult>,
+    /// Warnings about accuracy (ill-conditioning), for the report.
+    pub warnings: Vec<String>,
+}
+
+fn mechanism(model: &Model, dofs: &Dofs, e: FactorError) -> AnalysisError {
+    match e {
+        FactorError::Singular { dof, pivot_ratio } => AnalysisError::Mechanism {
+            node: model.nodes[dofs.node[dof] as usize].id.clone(),
+            direction: dofs.direction_name(dof),
+            pivot_ratio,
+        },
+        FactorError::Internal => AnalysisError::Internal,
+    }
+}
+
+impl Prepared {
+    pub fn new(model: &Model) -> Result<Prepared, AnalysisError> {
+        let dofs = Dofs::new(model);
+        let k = stiffness(model, &dofs);
+        let symbolic = Symbolic::new(&k).map_err(|e| mechanism(model, &dofs, e))?;
+        Self::with_symbolic(model, dofs, k, &symbolic)
+    }
+
+    /// Numeric factorization reusing a symbolic analysis of the same pattern.
+    pub fn with_symbolic(
+        model: &Model,
+        dofs: Dofs,
+        k: Csc,
+        symbolic: &Symbolic,
+    ) -> Result<Prepared, AnalysisError> {
+        let factor = symbolic
+            .factor(&k)
+            .map_err(|e| mechanism(model, &dofs, e))?;
+        let rows = (0..model.members.len())
+            .map(|m| b_row(model, &dofs, m))
+            .collect();
+        let stiff = (0..model.members.len())
+            .map(|m| model.axial_stiffness(m))
+            .collect();
+        Ok(Prepared {
+            dofs,
+            k,
+            factor,
+            rows,
+            stiff,
+        })
+    }
+
+    pub fn n(&self) -> usize {
+        self.dofs.len()
+    }
+
+    /// Prescribed displacement of each node along its restrained directions.
+    fn settlement(&self, model: &Model, case: &LoadCase) -> Vec<[f64; 2]> {
+        let mut delta = vec![[0.0; 2]; model.nodes.len()];
+        for s in &case.settlements {
+            let mut d = [s.dx, s.dy];
+            for q in self.dofs.of_node(s.node) {
+                let dir = self.dofs.direction[q];
+                let along = d[0] * dir[0] + d[1] * dir[1];
+                d[0] -= along * dir[0];
+                d[1] -= along * dir[1];
+            }
+            delta[s.node] = d;
+        }
+        delta
+    }
+
+    /// Elongation each member is forced to have apart from the free DOFs:
+    /// settlement of its ends less its stress-free elongation.
+    fn imposed(&self, model: &Model, case: &LoadCase, delta: &[[f64; 2]]) -> Vec<f64> {
+        let mut e = vec![0.0; model.members.len()];
+        if !case.settlements.is_empty() {
+            for (m, mem) in model.members.iter().enumerate() {
+                let c = model.direction(m);
+                let (a, b) = (delta[mem.start], delta[mem.end]);
+                e[m] = c[0] * (b[0] - a[0]) + c[1] * (b[1] - a[1]);
+            }
+        }
+        for ie in &case.elongations {
+            e[ie.member] -= ie.elongation;
+        }
+        e
+    }
+
+    /// The load vector of a case on the free DOFs.
+    pub fn load_vector(&self, model: &Model, case: &LoadCase, out: &mut [f64]) {
+        out.iter_mut().for_each(|v| *v = 0.0);
+        for l in &case.nodal {
+            for q in self.dofs.of_node(l.node) {
+                let d = self.dofs.direction[q];
+                out[q] += l.fx * d[0] + l.fy * d[1];
+            }
+        }
+        if !case.settlements.is_empty() || !case.elongations.is_empty() {
+            let delta = self.settlement(model, case);
+            let imposed = self.imposed(model, case, &delta);
+            for (m, &e) in imposed.iter().enumerate() {
+                if e != 0.0 {
+                    for (q, b) in self.rows[m].iter() {
+                        out[q] -= self.stiff[m] * e * b;
+                    }
+                }
+            }
+        }
+    }
+
+    /// Solve every case on the one factorization, all right-hand sides as one block.
+    pub fn solve_cases(
+        &self,
+        model: &Model,
+        cases: &[LoadCase],
+    ) -> Result<Vec<CaseResult>, AnalysisError> {
+        let n = self.n();
+        let mut rhs = vec![0.0; n * cases.len()];
+        for (c, case) in cases.iter().enumerate() {
+            self.load_vector(model, case, &mut rhs[c * n..(c + 1) * n]);
+        }
+        self.factor.solve_in_place(&mut rhs, cases.len());
+        cases
+            .iter()
+            .enumerate()
+            .map(|(c, case)| self.recover(model, case, &rhs[c * n..(c + 1) * n]))
+            .collect()
+    }
+
+    /// Member forces, reactions, displacements and the equilibrium check
+    /// from the free-DOF solution `q` of `case`.
+    pub fn recover(
+        &self,
+        model: &Model,
+        case: &LoadCase,
+        q: &[f64],
+    ) -> Result<CaseResult, AnalysisError> {
+        let nn = model.nodes.len();
+        let delta = self.settlement(model, case);
+        let imposed = self.imposed(model, case, &delta);
+        let mut displacements = delta;
+        for (d, &v) in q.iter().enumerate() {
+            let node = self.dofs.node[d] as usize;
+            let dir = self.dofs.direction[d];
+            displacements[node][0] += v * dir[0];
+            displacements[node][1] += v * dir[1];
+        }
+        let mut forces = Vec::with_capacity(model.members.len());
+        // Net force on each node from members and loads; zero at free nodes.
+        let mut net = vec![[0.0f64; 2]; nn];
+        let mut largest: f64 = 0.0;
+        for (m, mem) in model.members.iter().enumerate() {
+            let e: f64 = self.rows[m].iter().map(|(d, b)| b * q[d]).sum::<f64>() + imposed[m];
+            let force = self.stiff[m] * e;
+            forces.push(force);
+            largest = largest.max(force.abs());
+            let c = model.direction(m);
+            net[mem.start][0] += force * c[0];
+            net[mem.start][1] += force * c[1];
+            net[mem.end][0] -= force * c[0];
+            net[mem.end][1] -= force * c[1];
+        }
+        let mut load_sum = [0.0; 2];
+        for l in &case.nodal {
+            net[l.node][0] += l.fx;
+            net[l.node][1] += l.fy;
+            load_sum[0] += l.fx;
+            load_sum[1] += l.fy;
+            largest = largest.max(l.fx.hypot(l.fy));
+        }
+        // Residual along the free directions.
+        let mut residual: f64 = 0.0;
+        for d in 0..q.len() {
+            let node = self.dofs.node[d] as usize;
+            let dir = self.dofs.direction[d];
+            residual = residual.max((net[node][0] * dir[0] + net[node][1] * dir[1]).abs());
+        }
+        let mut reaction_sum = [0.0; 2];
+        let reactions: Vec<[f64; 2]> = model
+            .supports
+            .iter()
+            .map(|s| {
+                // Only the restrained directions carry a reaction: remove the
+                // free part, which is round-off already counted in `residual`.
+                let mut r = [-net[s.node][0], -net[s.node][1]];
+                for d in s.restraint.free_directions() {
+                    let along = r[0] * d[0] + r[1] * d[1];
+                    r[0] -= along * d[0];
+                    r[1] -= along * d[1];
+                }
+                reaction_sum[0] += r[0];
+                reaction_sum[1] += r[1];
+                r
+            })
+            .collect();
+        let relative = if largest > 0.0 {
+            residual / largest
+        } else {
+            0.0
+        };
+        if relative.is_nan() || relative > RESIDUAL_LIMIT {
+            return Err(AnalysisError::Residual {
+                case: case.id.clone(),
+                relative,
+                limit: RESIDUAL_LIMIT,
+            });
+        }
+        Ok(CaseResult {
+            id: case.id.clone(),
+            displacements,
+            forces,
+            reactions,
+            residual,
+            relative_residual: relative,
+            load_sum,
+            reaction_sum,
+        })
+    }
+}
+
+/// Analyse every load case of a validated model.
+pub fn analyse(model: &Model) -> Result<Analysis, AnalysisError> {
+    let prepared = Prepared::new(model)?;
+    let cases = prepared.solve_cases(model, &model.cases)?;
+    let mut warnings = Vec::new();
+    let ratio = prepared.factor.min_pivot_ratio;
+    if ratio < CONDITION_WARNING_RATIO {
+        let dof = prepared.factor.min_pivot_dof;
+        warnings.push(format!(
+            "ill-conditioned stiffness: smallest pivot ratio {ratio:.1e} at node \"{}\" ({}); about {:.0} of 16 digits may be lost",
+            model.nodes[prepared.dofs.node[dof] as usize].id,
+            prepared.dofs.direction_name(dof),
+            (1.0 / ratio).log10()
+        ));
+    }
+    Ok(Analysis {
+        prepared,
+        cases,
+        warnings,
+    })
+}

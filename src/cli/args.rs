@@ -1,0 +1,43 @@
+//! Command-line arguments, close to what the user typed.
+
+use clap::{Parser, Subcommand, ValueEnum};
+use std::path::PathBuf;
+
+#[derive(Parser, Debug)]
+#[command(
+    name = "panelpoint",
+    version,
+    about = "Rating and alteration checks for existing pin-jointed trusses",
+    long_about = "Rating and alteration checks for existing pin-jointed trusses.\n\n\
+Results are screening calculations for review by a qualified engineer; local codes, \
+the owner's rating rules and licensed practice govern."
+)]
+pub struct Cli {
+    #[command(subcommand)]
+    pub command: Command,
+}
+
+#[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
+pub enum FormatArg {
+    Text,
+    Json,
+    Csv,
+}
+
+#[derive(Subcommand, Debug)]
+pub enum Command {
+    /// Check a model file and list every problem found, without analysing it.
+    Validate {
+        /// The model file (RON).
+        model: PathBuf,
+    },
+    /// Analyse every load case: member forces, reactions, displacements.
+    Solve {
+        model: PathBuf,
+        #[arg(long, value_enum, default_value_t = FormatArg::Text)]
+        format: FormatArg,
+        /// Write to this file (atomically) instead of standard output.
+        #[arg(long)]
+        out: Option<PathBuf>,
+    },
+}

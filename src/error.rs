@@ -1,0 +1,58 @@
+//! The library's top-level error: every failure a command can meet, each
+//! knowing whether it is the user's input (exit 2) or ours (exit 1).
+
+use crate::analysis::results::AnalysisError;
+use crate::input::Diagnostics;
+use std::path::PathBuf;
+
+#[derive(Debug, thiserror::Error)]
+pub enum Error {
+    #[error("{path}: {diagnostics}")]
+    Model {
+        path: PathBuf,
+        diagnostics: Diagnostics,
+    },
+    #[error("{path}: {source}")]
+    Analysis {
+        path: PathBuf,
+        source: AnalysisError,
+    },
+    #[error("cannot read {path}: {source}")]
+    Read {
+        path: PathBuf,
+        source: std::io::Error,
+    },
+    #[error("cannot write {what}: {source}")]
+    Write {
+        what: String,
+        source: std::io::Error,
+    },
+    #[error("{0}")]
+    Usage(String),
+}
+
+impl Error {
+    /// 2 for anything wrong with what the user gave; 1 for our own failures.
+    pub fn exit_code(&self) -> u8 {
+        match self {
+            Error::Model { .. } | Error::Read { .. } | Error::Usage(_) => 2,
+            Error::Analysis { source, .. } => match source {
+                AnalysisError::Internal => 1,
+                _ => 2,
+            },
+            Error::Write { .. } => 1,
+        }
+    }
+
+    /// One line per problem, for the terminal.
+    pub fn lines(&self) -> Vec<String> {
+        match self {
+            Error::Model { path, diagnostics } => diagnostics
+                .errors
+                .iter()
+                .map(|d| format!("{}: {d}", path.display()))
+                .collect(),
+            other => vec![other.to_string()],
+        }
+    }
+}

@@ -1,0 +1,471 @@
+//! Turns the parsed file into a validated [`Model`]: resolves units,
+//! interns ids, checks every reference and value. It collects every
+//! problem it finds before giving up, so one run lists them all.
+
+use super::diagnostics::{Diagnostic, Diagnostics, Locator, Severity};
+use super::quantity::Quantity;
+use super::schema::*;
+use crate::geometry;
+use crate::model::*;
+use crate::units::{self, Dimension, DisplayUnits, Unit};
+use std::collections::HashMap;
+
+/// A converted model and the warnings found on the way.
+pub struct Converted {
+    pub model: Model,
+    pub warnings: Vec<Diagnostic>,
+}
+
+pub(super) struct Ctx<'a> {
+    pub loc: Locator<'a>,
+    pub errors: Vec<Diagnostic>,
+    pub warnings: Vec<Diagnostic>,
+}
+
+impl<'a> Ctx<'a> {
+    pub fn error(&mut self, message: String, location: Option<(usize, usize)>) {
+        // Bound the list: a file with a million bad rows needs the first few.
+        if self.errors.len() < 200 {
+            self.errors.push(Diagnostic {
+                severity: Severity::Error,
+                message,
+                location,
+            });
+        }
+    }
+
+    pub fn warn(&mut self, message: String, location: Option<(usize, usize)>) {
+        self.warnings.push(Diagnostic {
+            severity: Severity::Warning,
+            message,
+            location,
+        });
+    }
+}
+
+/// Reads a quantity that must be a finite number, reporting `what` on failure.
+pub(super) fn value(
+    ctx: &mut Ctx,
+    q: &Quantity,
+    dim: Dimension,
+    units: &DisplayUnits,
+    what: &str,
+    at: Option<(usize, usize)>,
+) -> Option<f64> {
+    match q.to_si(dim, units.factor_for(dim)) {
+        Ok(v) => Some(v),
+        Err(e) => {
+            ctx.error(format!("{what}: {e}"), at);
+            None
+        }
+    }
+}
+
+/// As [`value`], and the value must be strictly positive.
+pub(super) fn positive(
+    ctx: &mut Ctx,
+    q: &Quantity,
+    dim: Dimension,
+    units: &DisplayUnits,
+    what: &str,
+    at: Option<(usize, usize)>,
+) -> Option<f64> {
+    let v = value(ctx, q, dim, units, what, at)?;
+    if v <= 0.0 {
+        ctx.error(format!("{what} must be positive, not {}", q.show()), at);
+        return None;
+    }
+    Some(v)
+}
+
+fn unit_of(ctx: &mut Ctx, name: &str, want: Dimension, field: &str) -> Unit {
+    let at = ctx.loc.field(field, name, 0);
+    match units::lookup(name) {
+        Some(u) if u.dimension == want => u,
+        Some(u) => {
+            ctx.error(
+                format!(
+                    "units.{field}: \"{name}\" is a {} unit, not a {want} unit",
+                    u.dimension
+                ),
+                at,
+            );
+            units::lookup("m").unwrap()
+        }
+        None => {
+            ctx.error(
+                format!(
+                    "units.{field}: unknown unit \"{name}\" (use one of {})",
+                    units::names_of(want).join(", ")
+                ),
+                at,
+            );
+            units::lookup("m").unwrap()
+        }
+    }
+}
+
+/// Interns ids of one kind, reporting duplicates and empty ids.
+pub(super) fn intern<'f, T>(
+    ctx: &mut Ctx,
+    kind: &str,
+    items: &'f [T],
+    id: impl Fn(&'f T) -> &'f str,
+) -> HashMap<&'f str, usize> {
+    let mut map = HashMap::with_capacity(items.len());
+    let mut seen: HashMap<&str, usize> = HashMap::new();
+    for (i, item) in items.iter().enumerate() {
+        let name = id(item);
+        if name.trim().is_empty() {
+            ctx.error(format!("{kind} number {} has an empty id", i + 1), None);
+            continue;
+        }
+        if map.insert(name, i).is_some() {
+            let n = seen.entry(name).or_insert(0);
+            *n += 1;
+            let at = ctx.loc.field("id", name, *n);
+            ctx.error(format!("duplicate {kind} id \"{name}\""), at);
+        }
+    }
+    map
+}
+
+fn reference(
+    ctx: &mut Ctx,
+    map: &HashMap<&str, usize>,
+    kind: &str,
+    name: &str,
+    field: &str,
+    owner: &str,
+) -> Option<usize> {
+    match map.get(name) {
+        Some(&i) => Some(i),
+        None => {
+            let at = ctx.loc.field(field, name, 0);
+            ctx.error(
+                format!("{owner} refers to {kind} \"{name}\", which is not defined"),
+                at,
+            );
+            None
+        }
+    }
+}
+
+pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
+    let mut ctx = Ctx {
+        loc: Locator::new(text),
+        errors: Vec::new(),
+        warnings: Vec::new(),
+    };
+    let units = DisplayUnits {
+        length: unit_of(&mut ctx, &file.units.length, Dimension::Length, "length"),
+        force: unit_of(&mut ctx, &file.units.force, Dimension::Force, "force"),
+        section: unit_of(&mut ctx, &file.units.section, Dimension::Length, "section"),
+        stress: unit_of(&mut ctx, &file.units.stress, Dimension::Stress, "stress"),
+    };
+    if !ctx.errors.is_empty() {
+        return Err(Diagnostics { errors: ctx.errors });
+    }
+    let u = &units;
+
+    // Materials.
+    let material_ids = intern(&mut ctx, "material", &file.materials, |m| &m.id);
+    let mut materials = Vec::with_capacity(file.materials.len());
+    for m in &file.materials {
+        let at = ctx.loc.field("id", &m.id, 0);
+        let what = |f: &str| format!("material \"{}\" {f}", m.id);
+        let e = positive(&mut ctx, &m.e, Dimension::Stress, u, &what("e"), at);
+        let opt = |ctx: &mut Ctx, q: &Option<Quantity>, dim, f: &str| {
+            q.as_ref()
+                .and_then(|q| positive(ctx, q, dim, u, &what(f), at))
+        };
+        let fy = opt(&mut ctx, &m.fy, Dimension::Stress, "fy");
+        let fu = opt(&mut ctx, &m.fu, Dimension::Stress, "fu");
+        let density = opt(&mut ctx, &m.density, Dimension::Density, "density");
+        let alpha = m.alpha.as_ref().and_then(|q| {
+            value(
+                &mut ctx,
+                q,
+                Dimension::PerTemperature,
+                u,
+                &what("alpha"),
+                at,
+            )
+        });
+        if let (Some(fy), Some(fu)) = (fy, fu) {
+            if fu < fy {
+                ctx.warn(
+                    format!("material \"{}\": fu is below fy; check the values", m.id),
+                    at,
+                );
+            }
+        }
+        materials.push(Material {
+            id: m.id.clone(),
+            e: e.unwrap_or(1.0),
+            fy,
+            fu,
+            density,
+            alpha,
+        });
+    }
+
+    // Sections.
+    let section_ids = intern(&mut ctx, "section", &file.sections, |s| &s.id);
+    let mut sections = Vec::with_capacity(file.sections.len());
+    for s in &file.sections {
+        sections.push(super::sections::convert_section(&mut ctx, s, u));
+    }
+
+    // Nodes.
+    let node_ids = intern(&mut ctx, "node", &file.nodes, |n| &n.id);
+    let mut nodes = Vec::with_capacity(file.nodes.len());
+    for n in &file.nodes {
+        let at = || None;
+        let x = value(
+            &mut ctx,
+            &n.x,
+            Dimension::Length,
+            u,
+            &format!("node \"{}\" x", n.id),
+            at(),
+        );
+        let y = value(
+            &mut ctx,
+            &n.y,
+            Dimension::Length,
+            u,
+            &format!("node \"{}\" y", n.id),
+            at(),
+        );
+        nodes.push(Node {
+            id: n.id.clone(),
+            x: x.unwrap_or(0.0),
+            y: y.unwrap_or(0.0),
+        });
+    }
+    if file.nodes.is_empty() {
+        ctx.error("the model has no nodes".into(), None);
+    }
+    let values_ok = ctx.errors.is_empty();
+    let tol = geometry::tolerance(&nodes);
+    if values_ok {
+        for (a, b) in geometry::coincident_nodes(&nodes, tol) {
+            let at = ctx.loc.field("id", &nodes[b].id, 0);
+            ctx.error(
+                format!(
+                    "nodes \"{}\" and \"{}\" are at the same place; join them into one node",
+                    nodes[a].id, nodes[b].id
+                ),
+                at,
+            );
+        }
+    }
+
+    // Members.
+    let member_ids = intern(&mut ctx, "member", &file.members, |m| &m.id);
+    let mut members = Vec::with_capacity(file.members.len());
+    for m in &file.members {
+        let owner = format!("member \"{}\"", m.id);
+        let start = reference(&mut ctx, &node_ids, "node", &m.start, "start", &owner);
+        let end = reference(&mut ctx, &node_ids, "node", &m.end, "end", &owner);
+        let section = reference(
+            &mut ctx,
+            &section_ids,
+            "section",
+            &m.section,
+            "section",
+            &owner,
+        );
+        let material = reference(
+            &mut ctx,
+            &material_ids,
+            "material",
+            &m.material,
+            "material",
+            &owner,
+        );
+        if let (Some(s), Some(e), Some(sec), Some(mat)) = (start, end, section, material) {
+            let at = ctx.loc.field("id", &m.id, 0);
+            if s == e {
+                ctx.error(
+                    format!("{owner} starts and ends at the same node \"{}\"", m.start),
+                    at,
+                );
+                continue;
+            }
+            let l = (nodes[e].x - nodes[s].x).hypot(nodes[e].y - nodes[s].y);
+            if values_ok && l <= tol {
+                ctx.error(format!("{owner} has zero length"), at);
+                continue;
+            }
+            members.push(Member {
+                id: m.id.clone(),
+                start: s,
+                end: e,
+                section: sec,
+                material: mat,
+            });
+        }
+    }
+    if file.members.is_empty() {
+        ctx.error("the model has no members".into(), None);
+    }
+
+    // Supports.
+    let mut supports = Vec::with_capacity(file.supports.len());
+    let mut supported = vec![false; nodes.len()];
+    for s in &file.supports {
+        let Some(node) = reference(&mut ctx, &node_ids, "node", &s.node, "node", "a support")
+        else {
+            continue;
+        };
+        if supported[node] {
+            let at = ctx.loc.field("node", &s.node, 1);
+            ctx.error(format!("node \"{}\" has more than one support", s.node), at);
+            continue;
+        }
+        supported[node] = true;
+        let restraint = match &s.kind {
+            SupportKindFile::Pin => Restraint::Pin,
+            SupportKindFile::Roller => Restraint::Roller,
+            SupportKindFile::InclinedRoller { angle } => {
+                let what = format!("inclined roller at node \"{}\" angle", s.node);
+                match value(&mut ctx, angle, Dimension::Angle, u, &what, None) {
+                    Some(a) => Restraint::InclinedRoller { angle: a },
+                    None => continue,
+                }
+            }
+        };
+        supports.push(Support { node, restraint });
+    }
+    if file.supports.is_empty() {
+        ctx.error(
+            "the model has no supports; add at least a Pin and a Roller".into(),
+            None,
+        );
+    }
+
+    // Members meeting at each node, for warnings and load checks.
+    let mut degree = vec![0usize; nodes.len()];
+    for m in &members {
+        degree[m.start] += 1;
+        degree[m.end] += 1;
+    }
+
+    // Load cases.
+    let _case_ids = intern(&mut ctx, "load case", &file.load_cases, |c| &c.id);
+    let mut cases = Vec::with_capacity(file.load_cases.len());
+    for c in &file.load_cases {
+        let mut case = LoadCase {
+            id: c.id.clone(),
+            ..Default::default()
+        };
+        let owner = format!("a load in case \"{}\"", c.id);
+        for l in &c.loads {
+            let Some(node) = reference(&mut ctx, &node_ids, "node", &l.node, "node", &owner) else {
+                continue;
+            };
+            let what = |f: &str| format!("load on node \"{}\" in case \"{}\" {f}", l.node, c.id);
+            let fx = l.fx.as_ref().map_or(Some(0.0), |q| {
+                value(&mut ctx, q, Dimension::Force, u, &what("fx"), None)
+            });
+            let fy = l.fy.as_ref().map_or(Some(0.0), |q| {
+                value(&mut ctx, q, Dimension::Force, u, &what("fy"), None)
+            });
+            if degree[node] == 0 && !supported[node] {
+                let at = ctx.loc.field("node", &l.node, 0);
+                ctx.error(
+                    format!(
+                        "case \"{}\" loads node \"{}\", which no member meets",
+                        c.id, l.node
+                    ),
+                    at,
+                );
+            }
+            if let (Some(fx), Some(fy)) = (fx, fy) {
+                case.nodal.push(NodalLoad { node, fx, fy });
+            }
+        }
+        let owner = format!("a settlement in case \"{}\"", c.id);
+        for s in &c.settlements {
+            let Some(node) = reference(&mut ctx, &node_ids, "node", &s.node, "node", &owner) else {
+                continue;
+            };
+            if !supported[node] {
+                let at = ctx.loc.field("node", &s.node, 0);
+                ctx.error(
+                    format!(
+                        "case \"{}\" settles node \"{}\", which has no support",
+                        c.id, s.node
+                    ),
+                    at,
+                );
+                continue;
+            }
+            let what =
+                |f: &str| format!("settlement of node \"{}\" in case \"{}\" {f}", s.node, c.id);
+            let f = u.section.to_si;
+            let read = |ctx: &mut Ctx, q: &Option<Quantity>, name: &str| {
+                q.as_ref().map_or(Some(0.0), |q| {
+                    q.to_si(Dimension::Length, f)
+                        .map_err(|e| ctx.error(format!("{}: {e}", what(name)), None))
+                        .ok()
+                })
+            };
+            let dx = read(&mut ctx, &s.dx, "dx");
+            let dy = read(&mut ctx, &s.dy, "dy");
+            if let (Some(dx), Some(dy)) = (dx, dy) {
+                case.settlements.push(Settlement { node, dx, dy });
+            }
+        }
+        cases.push(case);
+    }
+    let _ = member_ids;
+
+    if !ctx.errors.is_empty() {
+        return Err(Diagnostics { errors: ctx.errors });
+    }
+
+    // Warnings: isolated nodes and members crossing without a joint.
+    for (i, n) in nodes.iter().enumerate() {
+        if degree[i] == 0 {
+            let at = ctx.loc.field("id", &n.id, 0);
+            ctx.warn(format!("node \"{}\" has no member", n.id), at);
+        }
+    }
+    let model = Model {
+        title: file.title.unwrap_or_default(),
+        units,
+        materials,
+        sections,
+        nodes,
+        members,
+        supports,
+        cases,
+    };
+    let crossings = geometry::crossing_members(&model, tol);
+    let shown = 5;
+    for &(a, b) in crossings.iter().take(shown) {
+        ctx.warn(
+            format!(
+                "members \"{}\" and \"{}\" cross without a shared node",
+                model.members[a].id, model.members[b].id
+            ),
+            None,
+        );
+    }
+    if crossings.len() > shown {
+        ctx.warn(
+            format!(
+                "{} more pairs of members cross without a shared node",
+                crossings.len() - shown
+            ),
+            None,
+        );
+    }
+    Ok(Converted {
+        model,
+        warnings: ctx.warnings,
+    })
+}

@@ -1,0 +1,51 @@
+//! The input layer: the only part of panelpoint that knows RON. It parses
+//! a model file, converts units and checks everything, and hands back a
+//! validated [`Model`](crate::model::Model) or every problem it found.
+
+pub mod convert;
+pub mod diagnostics;
+pub mod quantity;
+pub mod schema;
+mod sections;
+
+pub use convert::Converted;
+pub use diagnostics::{Diagnostic, Diagnostics, Severity};
+
+use diagnostics::Locator;
+
+/// Largest model file accepted, bytes; a guard against feeding the loader
+/// something that is not a model at all.
+pub const MAX_FILE_BYTES: usize = 1 << 31;
+
+/// Parse and validate model text.
+pub fn load_str(text: &str) -> Result<Converted, Diagnostics> {
+    if text.trim().is_empty() {
+        return Err(single("the model file is empty", None));
+    }
+    if text.len() > MAX_FILE_BYTES {
+        return Err(single("the model file is larger than 2 GiB", None));
+    }
+    let options = ron::Options::default()
+        .with_default_extension(ron::extensions::Extensions::IMPLICIT_SOME)
+        .with_recursion_limit(64);
+    let file: schema::ModelFile = match options.from_str(text) {
+        Ok(f) => f,
+        Err(e) => {
+            let pos = e.span.start;
+            let at = (pos.line, pos.col);
+            return Err(single(&format!("syntax: {}", e.code), Some(at)));
+        }
+    };
+    let _ = Locator::new(text);
+    convert::convert(file, text)
+}
+
+fn single(message: &str, location: Option<(usize, usize)>) -> Diagnostics {
+    Diagnostics {
+        errors: vec![Diagnostic {
+            severity: Severity::Error,
+            message: message.to_string(),
+            location,
+        }],
+    }
+}

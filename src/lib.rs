@@ -1,0 +1,17 @@
+//! panelpoint: rating and alteration checks for existing pin-jointed trusses.
+//!
+//! Data flow: [`input`] (RON, units, validation) → [`model::Model`] →
+//! [`analysis`] (DOFs, sparse assembly, faer Cholesky, member forces) →
+//! [`report`] (text, JSON, CSV), written atomically.
+//!
+//! Results are screening calculations for review by a qualified engineer;
+//! local codes, the owner's rating rules and licensed practice govern.
+
+pub mod analysis;
+pub mod cli;
+pub mod error;
+pub mod geometry;
+pub mod input;
+pub mod model;
+pub mod report;
+pub mod units;

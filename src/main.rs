@@ -1,0 +1,18 @@
+//! The `panelpoint` binary: parse arguments, run, print one clear line per
+//! error and exit 0 (success), 1 (internal failure) or 2 (bad input).
+
+use clap::Parser;
+use std::process::ExitCode;
+
+fn main() -> ExitCode {
+    let cli = panelpoint::cli::Cli::parse();
+    match panelpoint::cli::run(cli) {
+        Ok(code) => ExitCode::from(code),
+        Err(e) => {
+            for line in e.lines() {
+                eprintln!("panelpoint: error: {line}");
+            }
+            ExitCode::from(e.exit_code())
+        }
+    }
+}

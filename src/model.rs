@@ -1,0 +1,214 @@
+//! The validated model: every id interned to an index, every number in SI
+//! (m, N, Pa), every reference known to exist. Nothing here knows RON.
+
+use crate::units::DisplayUnits;
+
+#[derive(Clone, Debug, PartialEq)]
+pub struct Material {
+    pub id: String,
+    /// Young's modulus, Pa.
+    pub e: f64,
+    /// Yield stress, Pa.
+    pub fy: Option<f64>,
+    /// Tensile strength, Pa.
+    pub fu: Option<f64>,
+    /// Weight density, N/m³.
+    pub density: Option<f64>,
+    /// Thermal expansion, per degree.
+    pub alpha: Option<f64>,
+}
+
+#[derive(Clone, Debug, PartialEq)]
+pub struct Section {
+    pub id: String,
+    /// Gross area, m².
+    pub area: f64,
+    /// Second moment for buckling in the truss plane, m⁴.
+    pub i_in: f64,
+    /// Second moment for buckling out of the truss plane, m⁴.
+    pub i_out: f64,
+    /// Net area for tension fracture, m²; the gross area when not given.
+    pub net_area: f64,
+}
+
+impl Section {
+    pub fn r_in(&self) -> f64 {
+        (self.i_in / self.area).sqrt()
+    }
+    pub fn r_out(&self) -> f64 {
+        (self.i_out / self.area).sqrt()
+    }
+}
+
+#[derive(Clone, Debug, PartialEq)]
+pub struct Node {
+    pub id: String,
+    /// Coordinates, m.
+    pub x: f64,
+    pub y: f64,
+}
+
+#[derive(Clone, Debug, PartialEq)]
+pub struct Member {
+    pub id: String,
+    pub start: usize,
+    pub end: usize,
+    pub section: usize,
+    pub material: usize,
+}
+
+/// How a support holds its node.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub enum Restraint {
+    /// Both directions held.
+    Pin,
+    /// Vertical direction held; free to roll horizontally.
+    Roller,
+    /// Free to roll along a surface at `angle` radians from the x axis;
+    /// held normal to it.
+    InclinedRoller { angle: f64 },
+}
+
+impl Restraint {
+    /// Number of restrained directions.
+    pub fn count(self) -> usize {
+        match self {
+            Restraint::Pin => 2,
+            Restraint::Roller | Restraint::InclinedRoller { .. } => 1,
+        }
+    }
+
+    /// Unit vectors of the directions left free.
+    pub fn free_directions(self) -> Vec<[f64; 2]> {
+        match self {
+            Restraint::Pin => vec![],
+            Restraint::Roller => vec![[1.0, 0.0]],
+            Restraint::InclinedRoller { angle } => vec![[angle.cos(), angle.sin()]],
+        }
+    }
+
+    pub fn name(self) -> &'static str {
+        match self {
+            Restraint::Pin => "pin",
+            Restraint::Roller => "roller",
+            Restraint::InclinedRoller { .. } => "inclined roller",
+        }
+    }
+}
+
+#[derive(Clone, Debug, PartialEq)]
+pub struct Support {
+    pub node: usize,
+    pub restraint: Restraint,
+}
+
+#[derive(Clone, Debug, PartialEq)]
+pub struct NodalLoad {
+    pub node: usize,
+    /// Global force components, N.
+    pub fx: f64,
+    pub fy: f64,
+}
+
+/// A prescribed displacement of a supported node, m (global components;
+/// only the part along the restrained directions has an effect).
+#[derive(Clone, Debug, PartialEq)]
+pub struct Settlement {
+    pub node: usize,
+    pub dx: f64,
+    pub dy: f64,
+}
+
+/// A member's stress-free length differs from the distance between its
+/// nodes by `elongation` (m): thermal strain, lack of fit.
+#[derive(Clone, Debug, PartialEq)]
+pub struct InitialElongation {
+    pub member: usize,
+    pub elongation: f64,
+}
+
+#[derive(Clone, Debug, PartialEq, Default)]
+pub struct LoadCase {
+    pub id: String,
+    pub nodal: Vec<NodalLoad>,
+    pub settlements: Vec<Settlement>,
+    pub elongations: Vec<InitialElongation>,
+}
+
+#[derive(Clone, Debug, PartialEq)]
+pub struct Model {
+    pub title: String,
+    pub units: DisplayUnits,
+    pub materials: Vec<Material>,
+    pub sections: Vec<Section>,
+    pub nodes: Vec<Node>,
+    pub members: Vec<Member>,
+    pub supports: Vec<Support>,
+    pub cases: Vec<LoadCase>,
+}
+
+impl Model {
+    /// Length of member `m`, m.
+    pub fn length(&self, m: usize) -> f64 {
+        let mem = &self.members[m];
+        let (a, b) = (&self.nodes[mem.start], &self.nodes[mem.end]);
+        (b.x - a.x).hypot(b.y - a.y)
+    }
+
+    /// Unit vector from start to end of member `m`.
+    pub fn direction(&self, m: usize) -> [f64; 2] {
+        let mem = &self.members[m];
+        let (a, b) = (&self.nodes[mem.start], &self.nodes[mem.end]);
+        let l = self.length(m);
+        [(b.x - a.x) / l, (b.y - a.y) / l]
+    }
+
+    /// Axial stiffness EA/L of member `m`, N/m.
+    pub fn axial_stiffness(&self, m: usize) -> f64 {
+        let mem = &self.members[m];
+        self.materials[mem.material].e * self.sections[mem.section].area / self.length(m)
+    }
+
+    /// Restrained directions, supports and joints: (members + reactions, 2 × joints).
+    pub fn determinacy(&self) -> Determinacy {
+        let reactions = self.supports.iter().map(|s| s.restraint.count()).sum();
+        Determinacy {
+            members: self.members.len(),
+            reactions,
+            joints: self.nodes.len(),
+        }
+    }
+}
+
+/// The classic count m + r against 2j for a plane pin-jointed truss.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub struct Determinacy {
+    pub members: usize,
+    pub reactions: usize,
+    pub joints: usize,
+}
+
+impl Determinacy {
+    /// m + r − 2j: negative means a mechanism for certain, zero statically
+    /// determinate if stable, positive that degree of indeterminacy if stable.
+    pub fn degree(&self) -> i64 {
+        (self.members + self.reactions) as i64 - 2 * self.joints as i64
+    }
+
+    pub fn describe(&self) -> String {
+        let d = self.degree();
+        let verdict = match d {
+            0 => "statically determinate (if stable)".to_string(),
+            d if d > 0 => format!("statically indeterminate to degree {d} (if stable)"),
+            _ => format!("a mechanism: {} too few members or reactions", -d),
+        };
+        format!(
+            "members m = {}, reactions r = {}, joints j = {}: m + r = {} against 2j = {}; {verdict}",
+            self.members,
+            self.reactions,
+            self.joints,
+            self.members + self.reactions,
+            2 * self.joints
+        )
+    }
+}

@@ -1,0 +1,53 @@
+//! The report layer: the only part of panelpoint that knows output
+//! formats. Each format lives in its own file; `atomic` makes sure a
+//! failed run never leaves a half-written or spoiled file.
+
+pub mod atomic;
+pub mod csv;
+pub mod json;
+pub mod table;
+pub mod text;
+
+use crate::model::Model;
+
+/// The caution every report carries.
+pub const CAUTION: &str = "Screening calculation for review by a qualified engineer. \
+Local codes, the owner's rating rules and licensed practice govern.";
+
+/// Output formats of the tabular commands.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum Format {
+    Text,
+    Json,
+    Csv,
+}
+
+/// SI → display-unit divisors of one model, and the unit names.
+pub struct Scale {
+    pub length: f64,
+    pub force: f64,
+    pub disp: f64,
+    pub stress: f64,
+    pub area: f64,
+    pub length_name: &'static str,
+    pub force_name: &'static str,
+    pub disp_name: &'static str,
+    pub stress_name: &'static str,
+}
+
+impl Scale {
+    pub fn of(model: &Model) -> Scale {
+        let u = &model.units;
+        Scale {
+            length: u.length.to_si,
+            force: u.force.to_si,
+            disp: u.section.to_si,
+            stress: u.stress.to_si,
+            area: u.area_to_si(),
+            length_name: u.length.name,
+            force_name: u.force.name,
+            disp_name: u.section.name,
+            stress_name: u.stress.name,
+        }
+    }
+}
