@@ -8,10 +8,13 @@
 //! local codes, the owner's rating rules and licensed practice govern.
 
 pub mod analysis;
+pub mod capacity;
 pub mod cli;
 pub mod error;
+pub mod generate;
 pub mod geometry;
 pub mod input;
 pub mod model;
 pub mod report;
+pub mod section;
 pub mod units;

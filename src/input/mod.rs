@@ -5,6 +5,7 @@
 pub mod convert;
 pub mod diagnostics;
 pub mod quantity;
+pub mod ron_writer;
 pub mod schema;
 mod sections;
 

@@ -5,6 +5,7 @@
 pub mod atomic;
 pub mod csv;
 pub mod json;
+pub mod section_svg;
 pub mod table;
 pub mod text;
 

@@ -107,7 +107,8 @@ mod tests {
         t.row(vec!["A".into(), "1.5".into()]);
         t.row(vec!["BB".into(), "-10.25".into()]);
         let s = t.render();
-        assert!(s.contains("A      1.5\n"), "{s}");
-        assert!(s.contains("BB  -10.25\n"), "{s}");
+        // Numbers right-aligned under a wider header, text left-aligned.
+        assert!(s.contains("\nA         1.5\n"), "{s}");
+        assert!(s.contains("\nBB     -10.25\n"), "{s}");
     }
 }
