@@ -13,7 +13,7 @@ pub const CONDITION_WARNING_RATIO: f64 = 1e-8;
 
 #[derive(Debug, Clone, PartialEq, thiserror::Error)]
 pub enum AnalysisError {
-    #[error("the truss is a mechanism: node \"{node}\" is free to move in {direction} (pivot ratio {pivot_ratio:.1e}); add a member or a support there")]
+    #[error("the truss is a mechanism: node \"{node}\" is free to move in {direction}; add a member or a support there")]
     Mechanism {
         node: String,
         direction: String,

@@ -21,6 +21,12 @@ use std::sync::Arc;
 /// no stiffness once the DOFs eliminated before it are free: a mechanism.
 pub const MECHANISM_PIVOT_RATIO: f64 = 1e-10;
 
+/// The value a regularized pivot is given: 2⁻¹⁰, whose square root 2⁻⁵ is
+/// exact, so a marked pivot is recognised by equality; no genuine pivot of
+/// a unit-diagonal matrix is expected to hit it to the last bit.
+const MARKER_PIVOT: f64 = 0.0009765625;
+const MARKER_ROOT: f64 = 0.03125;
+
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub enum FactorError {
     /// The matrix is singular or nearly so at this (original) DOF index.
@@ -39,6 +45,8 @@ pub struct Symbolic {
 pub struct Factor {
     symbolic: Symbolic,
     values: Vec<f64>,
+    /// Jacobi scaling D^-½ applied before factoring.
+    scale: Vec<f64>,
     /// Smallest pivot L_ii² / K_ii over all DOFs (1 for a diagonal K).
     pub min_pivot_ratio: f64,
     /// The original DOF with that smallest ratio.
@@ -77,63 +85,77 @@ impl Symbolic {
     }
 
     /// Numeric factorization of `k`, which must have the pattern this was built from.
+    ///
+    /// K is first scaled symmetrically to unit diagonal, K̃ = D^-½·K·D^-½
+    /// (Jacobi scaling), so every pivot of K̃ is directly the ratio
+    /// L_ii²/K_ii and stiffness ratios between members do not distort it.
+    /// Pivots below [`MECHANISM_PIVOT_RATIO`] are replaced by a marker value
+    /// (faer's dynamic regularization) so the factorization completes and
+    /// the first marked pivot names the DOF that is free to move.
     pub fn factor(&self, k: &Csc) -> Result<Factor, FactorError> {
         let n = self.n();
+        let mut scale = vec![0.0; n];
+        for (j, sc) in scale.iter_mut().enumerate() {
+            let d = k.get(j, j);
+            if d.is_nan() || d <= 0.0 || !d.is_finite() {
+                return Err(FactorError::Singular {
+                    dof: j,
+                    pivot_ratio: 0.0,
+                });
+            }
+            *sc = 1.0 / d.sqrt();
+        }
+        let mut scaled = k.values.clone();
+        for j in 0..n {
+            for p in k.col_ptr[j]..k.col_ptr[j + 1] {
+                scaled[p] *= scale[k.row_idx[p]] * scale[j];
+            }
+        }
         let mut values = vec![0.0; self.inner.len_val()];
         let par = if n > 20_000 { Par::rayon(0) } else { Par::Seq };
         let req = self
             .inner
             .factorize_numeric_llt_scratch::<f64>(par, Default::default());
         let mut buf = MemBuffer::try_new(req).map_err(|_| FactorError::Internal)?;
-        let a = SparseColMatRef::new(pattern(k), &k.values);
+        let a = SparseColMatRef::new(pattern(k), &scaled);
         let result = self.inner.factorize_numeric_llt(
             &mut values,
             a,
             Side::Upper,
-            LltRegularization::default(),
+            LltRegularization {
+                dynamic_regularization_delta: MARKER_PIVOT,
+                dynamic_regularization_epsilon: MECHANISM_PIVOT_RATIO,
+            },
             par,
             MemStack::new(&mut buf),
             Default::default(),
         );
         drop(buf);
-        // Original diagonal, in elimination order.
-        let mut diag = vec![0.0; n];
-        for (j, d) in diag.iter_mut().enumerate() {
-            *d = k.get(j, j);
-        }
-        match result {
-            Err(faer::linalg::cholesky::llt::factor::LltError::NonPositivePivot { index }) => {
-                return Err(FactorError::Singular {
-                    dof: self.original(index),
-                    pivot_ratio: 0.0,
-                })
-            }
-            Ok(_) => {}
+        drop(scaled);
+        if result.is_err() {
+            // Only a NaN can get past the regularization.
+            return Err(FactorError::Internal);
         }
         let pivots = self.pivots(&values);
-        let mut min_ratio = f64::INFINITY;
+        let mut min_ratio = 1.0f64;
         let mut min_dof = 0;
         for (i, l) in pivots.iter().enumerate() {
-            let dof = self.original(i);
-            let d = diag[dof];
-            let ratio = if d > 0.0 { l * l / d } else { 0.0 };
+            let ratio = l * l;
+            if *l == MARKER_ROOT {
+                return Err(FactorError::Singular {
+                    dof: self.original(i),
+                    pivot_ratio: 0.0,
+                });
+            }
             if ratio < min_ratio {
                 min_ratio = ratio;
-                min_dof = dof;
+                min_dof = self.original(i);
             }
-        }
-        if n == 0 {
-            min_ratio = 1.0;
-        }
-        if min_ratio.is_nan() || min_ratio < MECHANISM_PIVOT_RATIO {
-            return Err(FactorError::Singular {
-                dof: min_dof,
-                pivot_ratio: min_ratio.max(0.0),
-            });
         }
         Ok(Factor {
             symbolic: self.clone(),
             values,
+            scale,
             min_pivot_ratio: min_ratio,
             min_pivot_dof: min_dof,
         })
@@ -197,7 +219,14 @@ impl Factor {
         let sym = &*self.symbolic.inner;
         let mut buf = MemBuffer::new(sym.solve_in_place_scratch::<f64>(ncols, par));
         let llt = LltRef::new(sym, &self.values);
+        // K⁻¹ = D^-½ K̃⁻¹ D^-½.
+        for col in rhs.chunks_mut(n) {
+            col.iter_mut().zip(&self.scale).for_each(|(v, s)| *v *= s);
+        }
         let mat = MatMut::from_column_major_slice_mut(rhs, n, ncols);
         llt.solve_in_place_with_conj(Conj::No, mat, par, MemStack::new(&mut buf));
+        for col in rhs.chunks_mut(n) {
+            col.iter_mut().zip(&self.scale).for_each(|(v, s)| *v *= s);
+        }
     }
 }

@@ -1,0 +1,124 @@
+//! Helpers shared by the integration tests: run the binary, load a model
+//! from text, and build small models without repeating boilerplate.
+#![allow(dead_code)]
+
+use panelpoint::analysis::{self, Analysis};
+use panelpoint::model::Model;
+use std::process::Command;
+
+pub const FOUR_PANEL: &str = include_str!("../data/four_panel.ron");
+
+/// Run the `panelpoint` binary; returns (exit code, stdout, stderr).
+pub fn run(args: &[&str]) -> (i32, String, String) {
+    let out = Command::new(env!("CARGO_BIN_EXE_panelpoint"))
+        .args(args)
+        .output()
+        .expect("run panelpoint");
+    (
+        out.status.code().unwrap_or(-1),
+        String::from_utf8_lossy(&out.stdout).into_owned(),
+        String::from_utf8_lossy(&out.stderr).into_owned(),
+    )
+}
+
+/// Write `text` to a fresh temporary file and return its path.
+pub fn temp_model(name: &str, text: &str) -> std::path::PathBuf {
+    let dir = std::env::temp_dir().join(format!("panelpoint-tests-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let path = dir.join(name);
+    std::fs::write(&path, text).unwrap();
+    path
+}
+
+pub fn load(text: &str) -> Model {
+    match panelpoint::input::load_str(text) {
+        Ok(c) => c.model,
+        Err(d) => panic!("model did not load:\n{d}"),
+    }
+}
+
+pub fn solve(text: &str) -> (Model, Analysis) {
+    let m = load(text);
+    let a = analysis::analyse(&m).expect("analysis");
+    (m, a)
+}
+
+pub fn member(m: &Model, id: &str) -> usize {
+    m.members
+        .iter()
+        .position(|x| x.id == id)
+        .unwrap_or_else(|| panic!("no member {id}"))
+}
+
+pub fn node(m: &Model, id: &str) -> usize {
+    m.nodes
+        .iter()
+        .position(|x| x.id == id)
+        .unwrap_or_else(|| panic!("no node {id}"))
+}
+
+/// kip → N and ft → m, to compare SI results with hand values in US units.
+pub const KIP: f64 = 4448.2216152605;
+pub const FT: f64 = 0.3048;
+pub const INCH: f64 = 0.0254;
+
+/// Relative closeness with an absolute floor.
+pub fn close(a: f64, b: f64, rel: f64, floor: f64) -> bool {
+    (a - b).abs() <= rel * a.abs().max(b.abs()) + floor
+}
+
+#[macro_export]
+macro_rules! assert_close {
+    ($a:expr, $b:expr, $rel:expr) => {{
+        let (a, b): (f64, f64) = ($a, $b);
+        assert!(
+            $crate::common::close(a, b, $rel, 1e-12),
+            "{} = {a} but expected {b} (rel {})",
+            stringify!($a),
+            $rel
+        );
+    }};
+    ($a:expr, $b:expr, $rel:expr, $floor:expr) => {{
+        let (a, b): (f64, f64) = ($a, $b);
+        assert!(
+            $crate::common::close(a, b, $rel, $floor),
+            "{} = {a} but expected {b} (rel {}, floor {})",
+            stringify!($a),
+            $rel,
+            $floor
+        );
+    }};
+}
+
+/// A small model in US units from node, member and support lists.
+pub fn model_text(
+    nodes: &[(&str, f64, f64)],
+    members: &[(&str, &str, &str)],
+    supports: &[(&str, &str)],
+    loads: &[(&str, f64, f64)],
+) -> String {
+    let mut s = String::from(
+        "(title: \"test\", units: (length: \"ft\", force: \"kip\", section: \"in\", stress: \"ksi\"),\n\
+         materials: [(id: \"steel\", e: 29000.0, fy: 36.0, fu: 58.0)],\n\
+         sections: [(id: \"s\", area: 10.0, i_in: 100.0, i_out: 100.0)],\nnodes: [\n",
+    );
+    for (id, x, y) in nodes {
+        s += &format!("  (id: \"{id}\", x: {x:?}, y: {y:?}),\n");
+    }
+    s += "],\nmembers: [\n";
+    for (id, a, b) in members {
+        s += &format!(
+            "  (id: \"{id}\", start: \"{a}\", end: \"{b}\", section: \"s\", material: \"steel\"),\n"
+        );
+    }
+    s += "],\nsupports: [\n";
+    for (n, k) in supports {
+        s += &format!("  (node: \"{n}\", kind: {k}),\n");
+    }
+    s += "],\nload_cases: [(id: \"a\", loads: [\n";
+    for (n, fx, fy) in loads {
+        s += &format!("  (node: \"{n}\", fx: {fx:?}, fy: {fy:?}),\n");
+    }
+    s += "])])\n";
+    s
+}
