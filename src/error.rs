@@ -17,6 +17,11 @@ pub enum Error {
         path: PathBuf,
         source: AnalysisError,
     },
+    #[error("{path}: {source}")]
+    Rate {
+        path: PathBuf,
+        source: crate::rate::RateError,
+    },
     #[error("cannot read {path}: {source}")]
     Read {
         path: PathBuf,
@@ -35,7 +40,7 @@ impl Error {
     /// 2 for anything wrong with what the user gave; 1 for our own failures.
     pub fn exit_code(&self) -> u8 {
         match self {
-            Error::Model { .. } | Error::Read { .. } | Error::Usage(_) => 2,
+            Error::Model { .. } | Error::Read { .. } | Error::Usage(_) | Error::Rate { .. } => 2,
             Error::Analysis { source, .. } => match source {
                 AnalysisError::Internal => 1,
                 _ => 2,

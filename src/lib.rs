@@ -15,6 +15,7 @@ pub mod generate;
 pub mod geometry;
 pub mod input;
 pub mod model;
+pub mod rate;
 pub mod report;
 pub mod section;
 pub mod units;

@@ -55,6 +55,12 @@ pub struct Member {
     pub end: usize,
     pub section: usize,
     pub material: usize,
+    /// Effective-length factors in and out of the truss plane.
+    pub k_in: f64,
+    pub k_out: f64,
+    /// Unbraced lengths in and out of plane, m (None: the member length).
+    pub unbraced_in: Option<f64>,
+    pub unbraced_out: Option<f64>,
 }
 
 /// How a support holds its node.
@@ -127,9 +133,21 @@ pub struct InitialElongation {
     pub elongation: f64,
 }
 
+/// What a load case is, for rating.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, Default)]
+pub enum CaseKind {
+    Dead,
+    Live,
+    #[default]
+    Other,
+}
+
 #[derive(Clone, Debug, PartialEq, Default)]
 pub struct LoadCase {
     pub id: String,
+    pub kind: CaseKind,
+    /// Dynamic load allowance (fraction) of a live case.
+    pub impact: f64,
     pub nodal: Vec<NodalLoad>,
     pub settlements: Vec<Settlement>,
     pub elongations: Vec<InitialElongation>,
@@ -145,6 +163,54 @@ pub struct Model {
     pub members: Vec<Member>,
     pub supports: Vec<Support>,
     pub cases: Vec<LoadCase>,
+    pub combinations: Vec<Combination>,
+    pub rating: RatingSettings,
+}
+
+/// A named linear combination of load cases: Σ factor × case (live cases
+/// also times 1 + impact).
+#[derive(Clone, Debug, PartialEq)]
+pub struct Combination {
+    pub id: String,
+    pub factors: Vec<(usize, f64)>,
+}
+
+/// Load factors of a rating level.
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Level {
+    pub gamma_dead: f64,
+    pub gamma_live: f64,
+}
+
+/// Model-wide capacity and rating settings.
+#[derive(Clone, Debug, PartialEq)]
+pub struct RatingSettings {
+    /// Column curve name, if the model sets one.
+    pub curve: Option<String>,
+    pub condition_factor: f64,
+    pub system_factor: f64,
+    pub inventory: Level,
+    pub operating: Level,
+}
+
+impl Default for RatingSettings {
+    /// Inventory γD = 1.25, γL = 1.75; operating γD = 1.25, γL = 1.35
+    /// (AASHTO Manual for Bridge Evaluation, Table 6A.4.2.2-1, from memory).
+    fn default() -> Self {
+        RatingSettings {
+            curve: None,
+            condition_factor: 1.0,
+            system_factor: 1.0,
+            inventory: Level {
+                gamma_dead: 1.25,
+                gamma_live: 1.75,
+            },
+            operating: Level {
+                gamma_dead: 1.25,
+                gamma_live: 1.35,
+            },
+        }
+    }
 }
 
 impl Model {

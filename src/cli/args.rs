@@ -40,4 +40,20 @@ pub enum Command {
         #[arg(long)]
         out: Option<PathBuf>,
     },
+    /// Check every member's capacity (slenderness, buckling, tension) under every
+    /// case and combination, and compute rating factors from the dead and live cases.
+    Rate {
+        model: PathBuf,
+        /// Column curve: euler, johnson, aisc360 (default), aisc360-asd, en1993-a0, en1993-a,
+        /// en1993-b, en1993-c, en1993-d, csa-s16, csa-s16-2.24, bridge-asd.
+        #[arg(long)]
+        curve: Option<String>,
+        #[arg(long, value_enum, default_value_t = FormatArg::Text)]
+        format: FormatArg,
+        #[arg(long)]
+        out: Option<PathBuf>,
+        /// Show every row in the text tables (default: the 40 highest).
+        #[arg(long)]
+        all: bool,
+    },
 }

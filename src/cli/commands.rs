@@ -4,6 +4,7 @@ use super::args::{Cli, Command, FormatArg};
 use crate::analysis;
 use crate::error::Error;
 use crate::input::{self, Converted};
+use crate::rate;
 use crate::report::{self, atomic::write_output, Format};
 use std::io::Write;
 use std::path::{Path, PathBuf};
@@ -89,6 +90,32 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
                 Format::Text => report::text::solve(w, m, &a, warn),
                 Format::Json => report::json::solve(w, m, &a, warn),
                 Format::Csv => report::csv::solve(w, m, &a),
+            })?;
+            Ok(0)
+        }
+        Command::Rate {
+            model,
+            curve,
+            format: f,
+            out,
+            all,
+        } => {
+            let c = load(&model)?;
+            let m = &c.model;
+            let chosen = rate::choose_curve(m, curve.as_deref()).map_err(Error::Usage)?;
+            let a = analysis::analyse(m).map_err(|source| Error::Analysis {
+                path: model.clone(),
+                source,
+            })?;
+            let r = rate::rate(m, &a, chosen).map_err(|e| Error::Rate {
+                path: model.clone(),
+                source: e,
+            })?;
+            let warn = &c.warnings;
+            write(&out, |w| match format(f) {
+                Format::Text => report::rate_text::rate(w, m, &a, &r, warn, all),
+                Format::Json => report::rate_json::rate(w, m, &a, &r, warn),
+                Format::Csv => report::rate_csv::rate(w, m, &r),
             })?;
             Ok(0)
         }

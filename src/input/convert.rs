@@ -299,12 +299,36 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
                 ctx.error(format!("{owner} has zero length"), at);
                 continue;
             }
+            let factor = |ctx: &mut Ctx, k: Option<f64>, name: &str| match k {
+                Some(k) if !(k.is_finite() && k > 0.0) => {
+                    ctx.error(
+                        format!("{owner} {name} must be a positive number, not {k}"),
+                        at,
+                    );
+                    1.0
+                }
+                Some(k) => k,
+                None => 1.0,
+            };
+            let k_in = factor(&mut ctx, m.k_in, "k_in");
+            let k_out = factor(&mut ctx, m.k_out, "k_out");
+            let len = |ctx: &mut Ctx, q: &Option<Quantity>, name: &str| {
+                q.as_ref().and_then(|q| {
+                    positive(ctx, q, Dimension::Length, u, &format!("{owner} {name}"), at)
+                })
+            };
+            let unbraced_in = len(&mut ctx, &m.unbraced_in, "unbraced_in");
+            let unbraced_out = len(&mut ctx, &m.unbraced_out, "unbraced_out");
             members.push(Member {
                 id: m.id.clone(),
                 start: s,
                 end: e,
                 section: sec,
                 material: mat,
+                k_in,
+                k_out,
+                unbraced_in,
+                unbraced_out,
             });
         }
     }
@@ -354,11 +378,38 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
     }
 
     // Load cases.
-    let _case_ids = intern(&mut ctx, "load case", &file.load_cases, |c| &c.id);
+    let case_ids = intern(&mut ctx, "load case", &file.load_cases, |c| &c.id);
     let mut cases = Vec::with_capacity(file.load_cases.len());
     for c in &file.load_cases {
+        let kind = match c.kind {
+            Some(CaseKindFile::Dead) => CaseKind::Dead,
+            Some(CaseKindFile::Live) => CaseKind::Live,
+            Some(CaseKindFile::Other) | None => CaseKind::Other,
+        };
+        let impact = c.impact.unwrap_or(0.0);
+        if !(impact.is_finite() && impact >= 0.0) {
+            let at = ctx.loc.field("id", &c.id, 0);
+            ctx.error(
+                format!(
+                    "case \"{}\" impact must be a fraction ≥ 0, not {impact}",
+                    c.id
+                ),
+                at,
+            );
+        } else if impact > 0.0 && kind != CaseKind::Live {
+            let at = ctx.loc.field("id", &c.id, 0);
+            ctx.warn(
+                format!(
+                    "case \"{}\" has an impact allowance but is not a Live case; it is ignored",
+                    c.id
+                ),
+                at,
+            );
+        }
         let mut case = LoadCase {
             id: c.id.clone(),
+            kind,
+            impact: if kind == CaseKind::Live { impact } else { 0.0 },
             ..Default::default()
         };
         let owner = format!("a load in case \"{}\"", c.id);
@@ -423,6 +474,107 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
     }
     let _ = member_ids;
 
+    // Combinations.
+    let _ = intern(&mut ctx, "combination", &file.combinations, |c| &c.id);
+    let mut combinations = Vec::with_capacity(file.combinations.len());
+    for c in &file.combinations {
+        let at = ctx.loc.field("id", &c.id, 0);
+        if case_ids.contains_key(c.id.as_str()) {
+            ctx.error(
+                format!("combination \"{}\" has the id of a load case", c.id),
+                at,
+            );
+        }
+        let mut factors = Vec::with_capacity(c.factors.len());
+        for (case, f) in &c.factors {
+            match case_ids.get(case.as_str()) {
+                Some(&i) if f.is_finite() => factors.push((i, *f)),
+                Some(_) => ctx.error(
+                    format!(
+                        "combination \"{}\" factor on \"{case}\" is not finite",
+                        c.id
+                    ),
+                    at,
+                ),
+                None => ctx.error(
+                    format!(
+                        "combination \"{}\" refers to load case \"{case}\", which is not defined",
+                        c.id
+                    ),
+                    at,
+                ),
+            }
+        }
+        if c.factors.is_empty() {
+            ctx.error(format!("combination \"{}\" has no factors", c.id), at);
+        }
+        combinations.push(Combination {
+            id: c.id.clone(),
+            factors,
+        });
+    }
+
+    // Rating settings.
+    let mut rating = RatingSettings::default();
+    if let Some(r) = &file.rating {
+        rating.curve = r.curve.clone();
+        if let Some(name) = &r.curve {
+            if crate::capacity::Curve::from_name(name).is_none() {
+                let at = ctx.loc.field("curve", name, 0);
+                ctx.error(
+                    format!(
+                        "rating.curve \"{name}\" is not a column curve (one of {})",
+                        crate::capacity::Curve::names().join(", ")
+                    ),
+                    at,
+                );
+            }
+        }
+        let factor = |ctx: &mut Ctx, v: Option<f64>, name: &str, into: &mut f64| {
+            if let Some(v) = v {
+                if v.is_finite() && v > 0.0 {
+                    *into = v;
+                } else {
+                    ctx.error(
+                        format!("rating.{name} must be a positive number, not {v}"),
+                        None,
+                    );
+                }
+            }
+        };
+        factor(
+            &mut ctx,
+            r.condition_factor,
+            "condition_factor",
+            &mut rating.condition_factor,
+        );
+        factor(
+            &mut ctx,
+            r.system_factor,
+            "system_factor",
+            &mut rating.system_factor,
+        );
+        for (level, name, into) in [
+            (&r.inventory, "inventory", &mut rating.inventory),
+            (&r.operating, "operating", &mut rating.operating),
+        ] {
+            if let Some(l) = level {
+                factor(
+                    &mut ctx,
+                    l.gamma_dead,
+                    &format!("{name}.gamma_dead"),
+                    &mut into.gamma_dead,
+                );
+                factor(
+                    &mut ctx,
+                    l.gamma_live,
+                    &format!("{name}.gamma_live"),
+                    &mut into.gamma_live,
+                );
+            }
+        }
+    }
+
     if !ctx.errors.is_empty() {
         return Err(Diagnostics { errors: ctx.errors });
     }
@@ -443,6 +595,8 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
         members,
         supports,
         cases,
+        combinations,
+        rating,
     };
     let crossings = geometry::crossing_members(&model, tol);
     let shown = 5;

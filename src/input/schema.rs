@@ -23,6 +23,55 @@ pub struct ModelFile {
     pub supports: Vec<SupportFile>,
     #[serde(default)]
     pub load_cases: Vec<LoadCaseFile>,
+    /// Named linear combinations of load cases, for capacity checks.
+    #[serde(default)]
+    pub combinations: Vec<CombinationFile>,
+    /// Model-wide capacity and rating settings.
+    #[serde(default)]
+    pub rating: Option<RatingFile>,
+}
+
+/// `(id: "strength", factors: [("deck", 1.25), ("crowd", 1.75)])`.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct CombinationFile {
+    pub id: String,
+    pub factors: Vec<(String, f64)>,
+}
+
+/// Load factors of one rating level.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct LevelFile {
+    #[serde(default)]
+    pub gamma_dead: Option<f64>,
+    #[serde(default)]
+    pub gamma_live: Option<f64>,
+}
+
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct RatingFile {
+    /// Column curve name (see `panelpoint rate --help`); default "aisc360".
+    #[serde(default)]
+    pub curve: Option<String>,
+    /// Condition factor φc and system factor φs (bridge-evaluation practice), default 1.0.
+    #[serde(default)]
+    pub condition_factor: Option<f64>,
+    #[serde(default)]
+    pub system_factor: Option<f64>,
+    #[serde(default)]
+    pub inventory: Option<LevelFile>,
+    #[serde(default)]
+    pub operating: Option<LevelFile>,
+}
+
+/// What a load case is, for rating.
+#[derive(Debug, Deserialize, Clone, Copy, PartialEq, Eq)]
+pub enum CaseKindFile {
+    Dead,
+    Live,
+    Other,
 }
 
 #[derive(Debug, Deserialize)]
@@ -82,6 +131,18 @@ pub struct MemberFile {
     pub end: String,
     pub section: String,
     pub material: String,
+    /// Effective-length factor for buckling in the truss plane (default 1).
+    #[serde(default)]
+    pub k_in: Option<f64>,
+    /// Effective-length factor out of the truss plane (default 1).
+    #[serde(default)]
+    pub k_out: Option<f64>,
+    /// Unbraced length in the truss plane (default: the member length).
+    #[serde(default)]
+    pub unbraced_in: Option<Quantity>,
+    /// Unbraced length out of the truss plane (default: the member length).
+    #[serde(default)]
+    pub unbraced_out: Option<Quantity>,
 }
 
 #[derive(Debug, Deserialize)]
@@ -104,6 +165,12 @@ pub enum SupportKindFile {
 #[serde(deny_unknown_fields)]
 pub struct LoadCaseFile {
     pub id: String,
+    /// `Dead`, `Live` or `Other` (default): rating keeps dead and live apart.
+    #[serde(default)]
+    pub kind: Option<CaseKindFile>,
+    /// Dynamic load allowance of a live case, as a fraction (0.10 = 10 %).
+    #[serde(default)]
+    pub impact: Option<f64>,
     #[serde(default)]
     pub loads: Vec<NodalLoadFile>,
     /// Prescribed support displacements, in the section unit.

@@ -5,6 +5,10 @@
 pub mod atomic;
 pub mod csv;
 pub mod json;
+pub mod rate_csv;
+pub mod rate_json;
+pub mod rate_rows;
+pub mod rate_text;
 pub mod section_svg;
 pub mod table;
 pub mod text;

@@ -1,0 +1,110 @@
+//! The capacity of one member, independent of load: slenderness about both
+//! section axes, the column check of the chosen curve on the governing
+//! axis, and the tension check on gross and net area.
+
+use super::RateError;
+use crate::capacity::{self, ColumnCheck, Curve};
+use crate::model::Model;
+
+/// The section axis whose slenderness governs.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum Axis {
+    /// Buckling in the plane of the truss (`i_in`).
+    In,
+    /// Buckling out of the plane (`i_out`).
+    Out,
+}
+
+impl Axis {
+    pub fn as_str(self) -> &'static str {
+        match self {
+            Axis::In => "in",
+            Axis::Out => "out",
+        }
+    }
+}
+
+#[derive(Clone, Debug, PartialEq)]
+pub struct MemberCapacity {
+    /// K·L/r in and out of plane.
+    pub slenderness_in: f64,
+    pub slenderness_out: f64,
+    /// L/r with K = 1 on the smaller radius, for the tension limit.
+    pub slenderness_tension: f64,
+    pub axis: Axis,
+    /// The column check on the governing axis (stresses in Pa).
+    pub compression: ColumnCapacity,
+    /// Design tension capacity, N, and the nominal value it came from.
+    pub tension_capacity: f64,
+    pub tension_nominal: f64,
+    pub tension: capacity::TensionCheck,
+    pub fy: f64,
+    pub e: f64,
+}
+
+#[derive(Clone, Debug, PartialEq)]
+pub struct ColumnCapacity {
+    pub check: ColumnCheck,
+    pub regime: capacity::Regime,
+    pub critical_stress: f64,
+    pub euler_stress: f64,
+    /// Design compression capacity, N.
+    pub capacity: f64,
+    pub yields_before_buckling: bool,
+}
+
+impl MemberCapacity {
+    pub fn slenderness(&self) -> f64 {
+        self.slenderness_in.max(self.slenderness_out)
+    }
+    pub fn slenderness_unit_k(&self) -> f64 {
+        self.slenderness_tension
+    }
+}
+
+pub fn member_capacity(
+    model: &Model,
+    m: usize,
+    curve: &Curve,
+) -> Result<MemberCapacity, RateError> {
+    let mem = &model.members[m];
+    let mat = &model.materials[mem.material];
+    let sec = &model.sections[mem.section];
+    let fy = mat.fy.ok_or_else(|| RateError::NoYield(mat.id.clone()))?;
+    let fu = mat.fu.ok_or_else(|| RateError::NoTensile(mat.id.clone()))?;
+    let l = model.length(m);
+    let (r_in, r_out) = (sec.r_in(), sec.r_out());
+    let slenderness_in = mem.k_in * mem.unbraced_in.unwrap_or(l) / r_in;
+    let slenderness_out = mem.k_out * mem.unbraced_out.unwrap_or(l) / r_out;
+    let (axis, kl_r) = if slenderness_out > slenderness_in {
+        (Axis::Out, slenderness_out)
+    } else {
+        (Axis::In, slenderness_in)
+    };
+    let err = |source| RateError::Capacity {
+        member: mem.id.clone(),
+        source,
+    };
+    let check = capacity::column(curve, fy, mat.e, kl_r).map_err(err)?;
+    let tension = capacity::tension(curve, fy, fu, sec.area, sec.net_area).map_err(err)?;
+    let nominal_tension = (fy * sec.area).min(fu * sec.net_area);
+    Ok(MemberCapacity {
+        slenderness_in,
+        slenderness_out,
+        slenderness_tension: l / r_in.min(r_out),
+        axis,
+        compression: ColumnCapacity {
+            regime: check.regime,
+            critical_stress: check.critical_stress,
+            euler_stress: check.euler_stress,
+            capacity: check.design_stress * sec.area,
+            yields_before_buckling: check.yields_before_buckling,
+            check,
+        },
+        tension_capacity: tension.design_capacity,
+        tension_nominal: nominal_tension,
+        tension,
+        fy,
+        e: mat.e,
+    })
+}
