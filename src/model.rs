@@ -29,6 +29,33 @@ pub struct Section {
     pub i_out: f64,
     /// Net area for tension fracture, m²; the gross area when not given.
     pub net_area: f64,
+    /// The parts and their properties, for a built-up section.
+    pub built_up: Option<BuiltUp>,
+}
+
+/// A section computed from its parts (all in SI).
+#[derive(Clone, Debug, PartialEq)]
+pub struct BuiltUp {
+    pub parts: Vec<crate::section::PlacedPart>,
+    /// Properties as built and after the recorded section loss.
+    pub original: crate::section::SectionProperties,
+    pub reduced: crate::section::SectionProperties,
+    /// Whether the section's x axis (rather than y) lies in the truss plane.
+    pub x_in_plane: bool,
+    pub lacing: Option<Lacing>,
+}
+
+/// Lacing or battens of a built-up member (AISC 360-16 §E6).
+#[derive(Clone, Debug, PartialEq)]
+pub struct Lacing {
+    /// Connector spacing a, m.
+    pub spacing: f64,
+    pub connector: crate::section::Connector,
+    pub k_i: f64,
+    /// Least radius of gyration of one component, m.
+    pub component_r: f64,
+    /// True when the lacing modifies the out-of-plane slenderness.
+    pub out_of_plane: bool,
 }
 
 impl Section {

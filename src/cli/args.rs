@@ -56,4 +56,23 @@ pub enum Command {
         #[arg(long)]
         all: bool,
     },
+    /// Section properties (built-up sections: as built and after section loss),
+    /// or a drawing of one section's parts.
+    Section {
+        model: PathBuf,
+        /// Only this section (required for --format svg when several are built up).
+        #[arg(long)]
+        id: Option<String>,
+        #[arg(long, value_enum, default_value_t = SectionFormat::Text)]
+        format: SectionFormat,
+        #[arg(long)]
+        out: Option<PathBuf>,
+    },
+}
+
+#[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
+pub enum SectionFormat {
+    Text,
+    Json,
+    Svg,
 }

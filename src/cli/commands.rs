@@ -1,6 +1,6 @@
 //! Running one parsed command: load, compute, write.
 
-use super::args::{Cli, Command, FormatArg};
+use super::args::{Cli, Command, FormatArg, SectionFormat};
 use crate::analysis;
 use crate::error::Error;
 use crate::input::{self, Converted};
@@ -91,6 +91,52 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
                 Format::Json => report::json::solve(w, m, &a, warn),
                 Format::Csv => report::csv::solve(w, m, &a),
             })?;
+            Ok(0)
+        }
+        Command::Section {
+            model,
+            id,
+            format: f,
+            out,
+        } => {
+            let c = load(&model)?;
+            let m = &c.model;
+            if let Some(id) = &id {
+                if !m.sections.iter().any(|s| &s.id == id) {
+                    return Err(Error::Usage(format!(
+                        "{}: no section \"{id}\"",
+                        model.display()
+                    )));
+                }
+            }
+            match f {
+                SectionFormat::Text => {
+                    write(&out, |w| report::sections::text(w, m, id.as_deref()))?
+                }
+                SectionFormat::Json => {
+                    write(&out, |w| report::sections::json(w, m, id.as_deref()))?
+                }
+                SectionFormat::Svg => {
+                    let built: Vec<_> = m
+                        .sections
+                        .iter()
+                        .filter(|s| s.built_up.is_some() && id.as_ref().is_none_or(|i| &s.id == i))
+                        .collect();
+                    let s = match built.as_slice() {
+                        [one] => *one,
+                        [] => return Err(Error::Usage(
+                            "no built-up section to draw (only sections with parts have a drawing)"
+                                .into(),
+                        )),
+                        _ => {
+                            return Err(Error::Usage(
+                                "several built-up sections: choose one with --id".into(),
+                            ))
+                        }
+                    };
+                    write(&out, |w| report::sections::svg(w, m, s))?
+                }
+            }
             Ok(0)
         }
         Command::Rate {

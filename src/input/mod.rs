@@ -4,6 +4,7 @@
 
 pub mod convert;
 pub mod diagnostics;
+pub mod parts;
 pub mod quantity;
 pub mod ron_writer;
 pub mod schema;

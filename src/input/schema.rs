@@ -113,6 +113,16 @@ pub struct SectionFile {
     /// Net area for the tension fracture check, if known.
     #[serde(default)]
     pub net_area: Option<Quantity>,
+    /// A built-up section: parts placed in the section plane (instead of
+    /// `area`, `i_in`, `i_out`).
+    #[serde(default)]
+    pub parts: Option<Vec<super::parts::PartFile>>,
+    /// Which section axis lies in the truss plane (default `Y`: i_in = Ix).
+    #[serde(default)]
+    pub truss_plane: Option<super::parts::PlaneAxisFile>,
+    /// Lacing or battens of a built-up member.
+    #[serde(default)]
+    pub lacing: Option<super::parts::LacingFile>,
 }
 
 #[derive(Debug, Deserialize)]

@@ -1,12 +1,26 @@
 //! Section definitions of the model file turned into section properties.
 
 use super::convert::{positive, Ctx};
+use super::parts::{self, convert_parts, LacedAxisFile, PartFile, PlaneAxisFile};
 use super::schema::SectionFile;
-use crate::model::Section;
+use crate::model::{BuiltUp, Lacing, Section};
+use crate::section;
 use crate::units::{Dimension, DisplayUnits};
 
 pub(super) fn convert_section(ctx: &mut Ctx, s: &SectionFile, u: &DisplayUnits) -> Section {
+    if let Some(parts) = &s.parts {
+        return built_up(ctx, s, parts, u);
+    }
     let at = ctx.loc.field("id", &s.id, 0);
+    if s.lacing.is_some() || s.truss_plane.is_some() {
+        ctx.error(
+            format!(
+                "section \"{}\": lacing and truss_plane apply to sections with parts",
+                s.id
+            ),
+            at,
+        );
+    }
     let what = |f: &str| format!("section \"{}\" {f}", s.id);
     let need = |ctx: &mut Ctx, q: &Option<_>, dim, f: &str| match q {
         Some(q) => positive(ctx, q, dim, u, &what(f), at),
@@ -37,5 +51,141 @@ pub(super) fn convert_section(ctx: &mut Ctx, s: &SectionFile, u: &DisplayUnits) 
         i_in: i_in.unwrap_or(1.0),
         i_out: i_out.unwrap_or(1.0),
         net_area: net.unwrap_or(area),
+        built_up: None,
     }
+}
+
+fn built_up(ctx: &mut Ctx, s: &SectionFile, parts: &[PartFile], u: &DisplayUnits) -> Section {
+    let at = ctx.loc.field("id", &s.id, 0);
+    if s.area.is_some() || s.i_in.is_some() || s.i_out.is_some() {
+        ctx.error(
+            format!(
+                "section \"{}\" gives both parts and area/i_in/i_out; use one form",
+                s.id
+            ),
+            at,
+        );
+    }
+    let placed = convert_parts(ctx, &s.id, parts, u);
+    let fallback = Section {
+        id: s.id.clone(),
+        area: 1.0,
+        i_in: 1.0,
+        i_out: 1.0,
+        net_area: 1.0,
+        built_up: None,
+    };
+    let props = match section::properties_with_original(&placed) {
+        Ok(p) => p,
+        Err(e) => {
+            ctx.error(format!("section \"{}\": {e}", s.id), at);
+            return fallback;
+        }
+    };
+    let x_in_plane = s.truss_plane == Some(PlaneAxisFile::X);
+    let r = &props.reduced;
+    let (i_in, i_out) = if x_in_plane {
+        (r.iy, r.ix)
+    } else {
+        (r.ix, r.iy)
+    };
+    let mut net_area = r.net_area;
+    if let Some(q) = &s.net_area {
+        if let Some(n) = positive(
+            ctx,
+            q,
+            Dimension::Area,
+            u,
+            &format!("section \"{}\" net_area", s.id),
+            at,
+        ) {
+            net_area = n;
+        }
+    }
+    if !is_positive(net_area) || net_area > r.area * (1.0 + 1e-12) {
+        ctx.error(
+            format!(
+                "section \"{}\": net area is not between zero and the area",
+                s.id
+            ),
+            at,
+        );
+        return fallback;
+    }
+    let lacing = s.lacing.as_ref().map(|l| {
+        let what = format!("section \"{}\" lacing spacing", s.id);
+        let spacing = parts::section_length(ctx, &l.spacing, u, &what);
+        if !is_positive(spacing) {
+            ctx.error(format!("{what} must be positive"), at);
+        }
+        let component_r = match &l.component_r {
+            Some(q) => parts::section_length(
+                ctx,
+                q,
+                u,
+                &format!("section \"{}\" lacing component_r", s.id),
+            ),
+            // The components are the main shapes: plates and eye-bars (cover
+            // plates, tie plates) are left out unless there is nothing else.
+            None => placed
+                .iter()
+                .filter(|p| !matches!(p.loss, Some(section::Loss::Missing)))
+                .filter(|p| {
+                    placed.iter().all(|q| {
+                        matches!(
+                            q.shape,
+                            section::Shape::Plate { .. } | section::Shape::EyeBar { .. }
+                        )
+                    }) || !matches!(
+                        p.shape,
+                        section::Shape::Plate { .. } | section::Shape::EyeBar { .. }
+                    )
+                })
+                .filter_map(|p| section::part_properties(p).ok())
+                .map(|pp| {
+                    let m = section::principal_moments(pp.ix, pp.iy, pp.ixy);
+                    (m.minor / pp.area).sqrt()
+                })
+                .fold(f64::INFINITY, f64::min),
+        };
+        if !is_positive(component_r) {
+            ctx.error(
+                format!("section \"{}\" lacing component_r must be positive", s.id),
+                at,
+            );
+        }
+        let k_i = l.k_i.unwrap_or(section::K_I_OTHER);
+        if !is_positive(k_i) {
+            ctx.error(
+                format!("section \"{}\" lacing k_i must be positive", s.id),
+                at,
+            );
+        }
+        Lacing {
+            spacing,
+            connector: parts::connector(l.connector),
+            k_i,
+            component_r,
+            out_of_plane: l.axis != Some(LacedAxisFile::In),
+        }
+    });
+    Section {
+        id: s.id.clone(),
+        area: r.area,
+        i_in,
+        i_out,
+        net_area,
+        built_up: Some(BuiltUp {
+            parts: placed,
+            original: props.original,
+            reduced: props.reduced,
+            x_in_plane,
+            lacing,
+        }),
+    }
+}
+
+/// Strictly positive and finite (false for NaN).
+fn is_positive(v: f64) -> bool {
+    v.is_finite() && v > 0.0
 }

@@ -5,6 +5,7 @@
 use super::RateError;
 use crate::capacity::{self, ColumnCheck, Curve};
 use crate::model::Model;
+use crate::section;
 
 /// The section axis whose slenderness governs.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
@@ -40,6 +41,21 @@ pub struct MemberCapacity {
     pub tension: capacity::TensionCheck,
     pub fy: f64,
     pub e: f64,
+    /// The effect of lacing on slenderness, for built-up laced members.
+    pub lacing: Option<LacingEffect>,
+}
+
+/// AISC 360-16 §E6 for one laced member.
+#[derive(Clone, Debug, PartialEq)]
+pub struct LacingEffect {
+    /// (KL/r)o, the slenderness of the whole section about the laced axis.
+    pub overall: f64,
+    /// (KL/r)m of Eq. E6-2a or E6-2b.
+    pub modified: f64,
+    /// a/ri of one component between connectors.
+    pub component: f64,
+    /// §E6.2: K·a/ri within 3/4 of the governing slenderness.
+    pub component_ok: bool,
 }
 
 #[derive(Clone, Debug, PartialEq)]
@@ -74,8 +90,32 @@ pub fn member_capacity(
     let fu = mat.fu.ok_or_else(|| RateError::NoTensile(mat.id.clone()))?;
     let l = model.length(m);
     let (r_in, r_out) = (sec.r_in(), sec.r_out());
-    let slenderness_in = mem.k_in * mem.unbraced_in.unwrap_or(l) / r_in;
-    let slenderness_out = mem.k_out * mem.unbraced_out.unwrap_or(l) / r_out;
+    let mut slenderness_in = mem.k_in * mem.unbraced_in.unwrap_or(l) / r_in;
+    let mut slenderness_out = mem.k_out * mem.unbraced_out.unwrap_or(l) / r_out;
+    // AISC 360-16 §E6.1: a laced or battened member buckles at the modified
+    // slenderness (KL/r)m of Eq. E6-2a/E6-2b about the axis the lacing ties.
+    let mut lacing = None;
+    if let Some(lc) = sec.built_up.as_ref().and_then(|b| b.lacing.as_ref()) {
+        let before = if lc.out_of_plane {
+            slenderness_out
+        } else {
+            slenderness_in
+        };
+        let modified =
+            section::modified_slenderness(before, lc.spacing, lc.component_r, lc.connector, lc.k_i);
+        if lc.out_of_plane {
+            slenderness_out = modified;
+        } else {
+            slenderness_in = modified;
+        }
+        let governing = slenderness_in.max(slenderness_out);
+        lacing = Some(LacingEffect {
+            overall: before,
+            modified,
+            component: lc.spacing / lc.component_r,
+            component_ok: section::component_slenderness_ok(lc.spacing, lc.component_r, governing),
+        });
+    }
     let (axis, kl_r) = if slenderness_out > slenderness_in {
         (Axis::Out, slenderness_out)
     } else {
@@ -106,5 +146,6 @@ pub fn member_capacity(
         tension,
         fy,
         e: mat.e,
+        lacing,
     })
 }

@@ -9,12 +9,13 @@
 mod checks;
 mod combine;
 
-pub use checks::{member_capacity, Axis, MemberCapacity};
+pub use checks::{member_capacity, Axis, LacingEffect, MemberCapacity};
 pub use combine::{load_effects, LoadEffect};
 
 use crate::analysis::Analysis;
 use crate::capacity::{self, Curve, Regime};
 use crate::model::{CaseKind, Model};
+use crate::section;
 
 #[derive(Debug, Clone, PartialEq, thiserror::Error)]
 pub enum RateError {
@@ -219,6 +220,25 @@ pub fn rate(model: &Model, analysis: &Analysis, curve: Curve) -> Result<Rating, 
         let id = &model.members[m].id;
         let compressed = effects.iter().any(|e| e.forces[m] < 0.0);
         let tensioned = effects.iter().any(|e| e.forces[m] > 0.0);
+        if let (Some(le), true) = (&cap.lacing, compressed) {
+            let pmax = effects.iter().map(|e| -e.forces[m]).fold(0.0f64, f64::max);
+            let s = crate::report::Scale::of(model);
+            notes.push(format!(
+                "member \"{id}\": laced built-up member, (KL/r)o = {:.1} → (KL/r)m = {:.1} (AISC 360-16 §E6.1); lacing designed for V = 2% of {:.1} {} = {:.2} {} (§E6.2)",
+                le.overall,
+                le.modified,
+                pmax / s.force,
+                s.force_name,
+                section::lacing_shear(pmax) / s.force,
+                s.force_name
+            ));
+            if !le.component_ok {
+                notes.push(format!(
+                    "member \"{id}\": component slenderness a/ri = {:.1} exceeds 3/4 of the governing slenderness (AISC 360-16 §E6.2)",
+                    le.component
+                ));
+            }
+        }
         if compressed {
             if let Some(w) = capacity::slenderness_warning(cap.slenderness(), true) {
                 notes.push(format!("member \"{id}\": {w}"));

@@ -10,6 +10,7 @@ pub mod rate_json;
 pub mod rate_rows;
 pub mod rate_text;
 pub mod section_svg;
+pub mod sections;
 pub mod table;
 pub mod text;
 

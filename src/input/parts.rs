@@ -1,0 +1,391 @@
+//! The built-up section form of the model file: parts placed in the
+//! section's own plane, with their holes and inspected section loss, and
+//! the lacing that ties them together. Converted into `section` types in SI.
+//!
+//! ```ron
+//! (id: "top-chord", parts: [
+//!     Plate(width: 16.0, thickness: 0.5, x: 0.0, y: 5.8),
+//!     Part(area: 8.2, ix: 190.0, iy: 6.3, x: -6.1, y: 0.0),
+//!     Part(area: 8.2, ix: 190.0, iy: 6.3, x: 6.1, y: 0.0),
+//! ])
+//! ```
+//! Every dimension is in the model's section unit unless written with its
+//! own unit. `x`, `y` place each part's own centroid (x across the truss
+//! plane, y in it).
+
+use super::convert::Ctx;
+use super::quantity::Quantity;
+use crate::section::{Connector, Direction, Hole, Loss, Orientation, PlacedPart, Quadrant, Shape};
+use crate::units::{Dimension, DisplayUnits};
+use serde::Deserialize;
+
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct HoleFile {
+    /// Hole diameter as used for net area (fastener + allowance).
+    pub diameter: Quantity,
+    /// Number of such holes straight across (default 1).
+    #[serde(default)]
+    pub count: Option<u32>,
+    /// Stagger from the previous hole of the same chain.
+    #[serde(default)]
+    pub pitch: Option<Quantity>,
+    #[serde(default)]
+    pub gauge: Option<Quantity>,
+    /// Thickness the hole passes through, when not the part's own.
+    #[serde(default)]
+    pub thickness: Option<Quantity>,
+    /// Failure path this hole belongs to (default 0); a part loses the area of its worst path.
+    #[serde(default)]
+    pub chain: Option<usize>,
+}
+
+/// Section loss found at inspection.
+#[derive(Debug, Deserialize)]
+pub enum LossFile {
+    /// Total thickness lost from every element of the part.
+    Thickness(Quantity),
+    /// Percent of the part's area lost (radius of gyration kept).
+    AreaPercent(f64),
+    /// The part is gone.
+    Missing,
+}
+
+#[derive(Debug, Deserialize, Clone, Copy)]
+pub enum ToesFile {
+    PosX,
+    NegX,
+    PosY,
+    NegY,
+}
+
+#[derive(Debug, Deserialize, Clone, Copy)]
+pub enum LegsFile {
+    PP,
+    PN,
+    NP,
+    NN,
+}
+
+macro_rules! part_kinds {
+    ($( $(#[$doc:meta])* $variant:ident { $( $(#[$fattr:meta])* $field:ident : $ty:ty),* $(,)? } ),* $(,)?) => {
+        /// One part of a built-up section.
+        #[derive(Debug, Deserialize)]
+        #[serde(deny_unknown_fields)]
+        pub enum PartFile {
+            $(
+                $(#[$doc])*
+                $variant {
+                    $( $(#[$fattr])* $field: $ty,)*
+                    x: Quantity,
+                    y: Quantity,
+                    #[serde(default)]
+                    holes: Vec<HoleFile>,
+                    #[serde(default)]
+                    loss: Option<LossFile>,
+                    #[serde(default)]
+                    label: Option<String>,
+                    /// A quarter turn anticlockwise of the reference shape.
+                    #[serde(default)]
+                    rotated: Option<bool>,
+                    /// Channels and tees: the direction the toes (or stem) point.
+                    #[serde(default)]
+                    toes: Option<ToesFile>,
+                    /// Angles: the quadrant the legs point into.
+                    #[serde(default)]
+                    legs: Option<LegsFile>,
+                },
+            )*
+        }
+
+        impl PartFile {
+            fn common(&self) -> (&Quantity, &Quantity, &[HoleFile], &Option<LossFile>, &Option<String>, Option<bool>, Option<ToesFile>, Option<LegsFile>) {
+                match self {
+                    $(PartFile::$variant { x, y, holes, loss, label, rotated, toes, legs, .. } =>
+                        (x, y, holes.as_slice(), loss, label, *rotated, *toes, *legs),)*
+                }
+            }
+        }
+    };
+}
+
+part_kinds! {
+    /// A flat plate: width along x, thickness along y.
+    Plate { width: Quantity, thickness: Quantity },
+    /// Any shape by its table properties about its own centroid.
+    Part { area: Quantity, ix: Quantity, iy: Quantity, #[serde(default)] ixy: Option<Quantity>, #[serde(default)] depth: Option<Quantity>, #[serde(default)] width: Option<Quantity> },
+    /// A channel by its dimensions (flange_slope: inner-face rise/run, 0 for parallel flanges).
+    Channel { depth: Quantity, flange_width: Quantity, web_thickness: Quantity, flange_thickness: Quantity, #[serde(default)] flange_slope: Option<f64> },
+    /// An angle: legs along x and y.
+    Angle { leg_x: Quantity, leg_y: Quantity, thickness: Quantity },
+    /// An I or H shape.
+    IShape { depth: Quantity, flange_width: Quantity, web_thickness: Quantity, flange_thickness: Quantity, #[serde(default)] flange_slope: Option<f64> },
+    /// A tee.
+    Tee { depth: Quantity, flange_width: Quantity, stem_thickness: Quantity, flange_thickness: Quantity },
+    RoundBar { diameter: Quantity },
+    SquareBar { side: Quantity },
+    Pipe { outer_diameter: Quantity, wall: Quantity },
+    RectTube { width: Quantity, height: Quantity, wall: Quantity },
+    /// A rectangular eye-bar: width in the truss plane.
+    EyeBar { width: Quantity, thickness: Quantity },
+}
+
+/// Which section axis lies in the plane of the truss.
+#[derive(Debug, Deserialize, Clone, Copy, PartialEq, Eq)]
+pub enum PlaneAxisFile {
+    /// The section's y axis lies in the truss plane (default): i_in = Ix.
+    Y,
+    /// The section's x axis lies in the truss plane: i_in = Iy.
+    X,
+}
+
+#[derive(Debug, Deserialize, Clone, Copy, PartialEq, Eq)]
+pub enum ConnectorFile {
+    SnugTight,
+    Riveted,
+    Pretensioned,
+    Welded,
+}
+
+#[derive(Debug, Deserialize, Clone, Copy, PartialEq, Eq)]
+pub enum LacedAxisFile {
+    In,
+    Out,
+}
+
+/// Lacing or batten plates of a built-up member (AISC 360-16 §E6).
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct LacingFile {
+    /// Distance between connectors (lacing points or battens) along the member.
+    pub spacing: Quantity,
+    #[serde(default)]
+    pub connector: Option<ConnectorFile>,
+    /// Ki of E6-2b: 0.50 back-to-back angles, 0.75 back-to-back channels, 0.86 otherwise.
+    #[serde(default)]
+    pub k_i: Option<f64>,
+    /// Least radius of gyration of one component; default: the smallest among the parts that are not plates.
+    #[serde(default)]
+    pub component_r: Option<Quantity>,
+    /// The axis whose slenderness the lacing modifies (default Out: components side by side across the truss plane).
+    #[serde(default)]
+    pub axis: Option<LacedAxisFile>,
+}
+
+/// Read a length in the section unit.
+fn len(ctx: &mut Ctx, q: &Quantity, u: &DisplayUnits, what: &str) -> f64 {
+    match q.to_si(Dimension::Length, u.section.to_si) {
+        Ok(v) => v,
+        Err(e) => {
+            ctx.error(format!("{what}: {e}"), None);
+            1.0
+        }
+    }
+}
+
+fn conv(ctx: &mut Ctx, q: &Quantity, dim: Dimension, u: &DisplayUnits, what: &str) -> f64 {
+    let f = match dim {
+        Dimension::Area => u.area_to_si(),
+        Dimension::SecondMoment => u.second_moment_to_si(),
+        _ => u.section.to_si,
+    };
+    match q.to_si(dim, f) {
+        Ok(v) => v,
+        Err(e) => {
+            ctx.error(format!("{what}: {e}"), None);
+            1.0
+        }
+    }
+}
+
+/// Convert the parts of section `id` to SI `PlacedPart`s (errors into `ctx`).
+pub(super) fn convert_parts(
+    ctx: &mut Ctx,
+    id: &str,
+    parts: &[PartFile],
+    u: &DisplayUnits,
+) -> Vec<PlacedPart> {
+    let mut out = Vec::with_capacity(parts.len());
+    for (i, p) in parts.iter().enumerate() {
+        let w = |f: &str| format!("section \"{id}\" part {} {f}", i + 1);
+        let l = |ctx: &mut Ctx, q: &Quantity, f: &str| len(ctx, q, u, &w(f));
+        let shape = match p {
+            PartFile::Plate {
+                width, thickness, ..
+            } => Shape::Plate {
+                width: l(ctx, width, "width"),
+                thickness: l(ctx, thickness, "thickness"),
+            },
+            PartFile::Part {
+                area,
+                ix,
+                iy,
+                ixy,
+                depth,
+                width,
+                ..
+            } => Shape::Given {
+                area: conv(ctx, area, Dimension::Area, u, &w("area")),
+                ix: conv(ctx, ix, Dimension::SecondMoment, u, &w("ix")),
+                iy: conv(ctx, iy, Dimension::SecondMoment, u, &w("iy")),
+                ixy: ixy
+                    .as_ref()
+                    .map_or(0.0, |q| conv(ctx, q, Dimension::SecondMoment, u, &w("ixy"))),
+                depth: depth.as_ref().map(|q| l(ctx, q, "depth")),
+                width: width.as_ref().map(|q| l(ctx, q, "width")),
+            },
+            PartFile::Channel {
+                depth,
+                flange_width,
+                web_thickness,
+                flange_thickness,
+                flange_slope,
+                ..
+            } => Shape::Channel {
+                depth: l(ctx, depth, "depth"),
+                flange_width: l(ctx, flange_width, "flange_width"),
+                web_thickness: l(ctx, web_thickness, "web_thickness"),
+                flange_thickness: l(ctx, flange_thickness, "flange_thickness"),
+                flange_slope: flange_slope.unwrap_or(0.0),
+            },
+            PartFile::Angle {
+                leg_x,
+                leg_y,
+                thickness,
+                ..
+            } => Shape::Angle {
+                leg_x: l(ctx, leg_x, "leg_x"),
+                leg_y: l(ctx, leg_y, "leg_y"),
+                thickness: l(ctx, thickness, "thickness"),
+            },
+            PartFile::IShape {
+                depth,
+                flange_width,
+                web_thickness,
+                flange_thickness,
+                flange_slope,
+                ..
+            } => Shape::IShape {
+                depth: l(ctx, depth, "depth"),
+                flange_width: l(ctx, flange_width, "flange_width"),
+                web_thickness: l(ctx, web_thickness, "web_thickness"),
+                flange_thickness: l(ctx, flange_thickness, "flange_thickness"),
+                flange_slope: flange_slope.unwrap_or(0.0),
+            },
+            PartFile::Tee {
+                depth,
+                flange_width,
+                stem_thickness,
+                flange_thickness,
+                ..
+            } => Shape::Tee {
+                depth: l(ctx, depth, "depth"),
+                flange_width: l(ctx, flange_width, "flange_width"),
+                stem_thickness: l(ctx, stem_thickness, "stem_thickness"),
+                flange_thickness: l(ctx, flange_thickness, "flange_thickness"),
+            },
+            PartFile::RoundBar { diameter, .. } => Shape::RoundBar {
+                diameter: l(ctx, diameter, "diameter"),
+            },
+            PartFile::SquareBar { side, .. } => Shape::SquareBar {
+                side: l(ctx, side, "side"),
+            },
+            PartFile::Pipe {
+                outer_diameter,
+                wall,
+                ..
+            } => Shape::Pipe {
+                outer_diameter: l(ctx, outer_diameter, "outer_diameter"),
+                wall: l(ctx, wall, "wall"),
+            },
+            PartFile::RectTube {
+                width,
+                height,
+                wall,
+                ..
+            } => Shape::RectTube {
+                width: l(ctx, width, "width"),
+                height: l(ctx, height, "height"),
+                wall: l(ctx, wall, "wall"),
+            },
+            PartFile::EyeBar {
+                width, thickness, ..
+            } => Shape::EyeBar {
+                width: l(ctx, width, "width"),
+                thickness: l(ctx, thickness, "thickness"),
+            },
+        };
+        let (x, y, holes, loss, label, rotated, toes, legs) = p.common();
+        let x = l(ctx, x, "x");
+        let y = l(ctx, y, "y");
+        let orientation = match (rotated, toes, legs) {
+            (Some(true), None, None) => Orientation::Rotated90,
+            (_, Some(t), None) => Orientation::Toes(match t {
+                ToesFile::PosX => Direction::PosX,
+                ToesFile::NegX => Direction::NegX,
+                ToesFile::PosY => Direction::PosY,
+                ToesFile::NegY => Direction::NegY,
+            }),
+            (_, None, Some(q)) => Orientation::Legs(match q {
+                LegsFile::PP => Quadrant::PP,
+                LegsFile::PN => Quadrant::PN,
+                LegsFile::NP => Quadrant::NP,
+                LegsFile::NN => Quadrant::NN,
+            }),
+            (_, Some(_), Some(_)) => {
+                ctx.error(
+                    format!("{}: give toes or legs, not both", w("orientation")),
+                    None,
+                );
+                Orientation::Reference
+            }
+            _ => Orientation::Reference,
+        };
+        let mut hs = Vec::new();
+        for h in holes {
+            let d = l(ctx, &h.diameter, "hole diameter");
+            let base = Hole {
+                diameter: d,
+                gauge: h.gauge.as_ref().map(|q| l(ctx, q, "hole gauge")),
+                pitch: h.pitch.as_ref().map(|q| l(ctx, q, "hole pitch")),
+                thickness: h.thickness.as_ref().map(|q| l(ctx, q, "hole thickness")),
+                chain: h.chain.unwrap_or(0),
+            };
+            let count = h.count.unwrap_or(1);
+            if count == 0 || count > 1000 {
+                ctx.error(format!("{}: count must be 1 to 1000", w("hole")), None);
+            }
+            for _ in 0..count.min(1000) {
+                hs.push(base.clone());
+            }
+        }
+        let loss = loss.as_ref().map(|lf| match lf {
+            LossFile::Thickness(q) => Loss::Thickness(l(ctx, q, "loss")),
+            LossFile::AreaPercent(p) => Loss::AreaPercent(*p),
+            LossFile::Missing => Loss::Missing,
+        });
+        out.push(PlacedPart {
+            shape,
+            x,
+            y,
+            orientation,
+            holes: hs,
+            loss,
+            label: label.clone(),
+        });
+    }
+    out
+}
+
+pub(super) fn connector(c: Option<ConnectorFile>) -> Connector {
+    match c {
+        None | Some(ConnectorFile::SnugTight) => Connector::SnugTight,
+        Some(ConnectorFile::Riveted) => Connector::HotDrivenRivet,
+        Some(ConnectorFile::Pretensioned) => Connector::Pretensioned,
+        Some(ConnectorFile::Welded) => Connector::Welded,
+    }
+}
+
+pub(super) fn section_length(ctx: &mut Ctx, q: &Quantity, u: &DisplayUnits, what: &str) -> f64 {
+    len(ctx, q, u, what)
+}

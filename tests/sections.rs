@@ -1,0 +1,214 @@
+//! Built-up sections in the model: properties by the parallel-axis theorem
+//! worked by hand, holes and section loss, the `section` command, and
+//! `rate` using the reduced section and the modified slenderness.
+
+mod common;
+use common::*;
+
+/// A chord of two channels (table properties typed as `Part`, values of
+/// our own) and a 14 × ½ in cover plate; two 15/16 in holes (7/8 in rivets
+/// plus 1/16 in, common practice) through the plate and through each channel
+/// web (½ in); the right channel has lost 10 % of its area at inspection.
+const CHORD: &str = r#"(id: "chord", parts: [
+    Plate(width: 14.0, thickness: 0.5, x: 0.0, y: 6.25, holes: [(diameter: 0.9375, count: 2)]),
+    Part(area: 8.82, ix: 162.0, iy: 5.12, x: -5.5, y: 0.0, holes: [(diameter: 0.9375, count: 2, thickness: 0.5)]),
+    Part(area: 8.82, ix: 162.0, iy: 5.12, x: 5.5, y: 0.0, holes: [(diameter: 0.9375, count: 2, thickness: 0.5)], loss: AreaPercent(10.0)),
+], lacing: (spacing: 16.0, connector: Riveted))"#;
+
+fn model_with_chord() -> String {
+    FOUR_PANEL.replace(
+        "(id: \"chord\", area: 14.7, i_in: 310.0, i_out: 355.0)",
+        CHORD,
+    )
+}
+
+/// The hand calculation (parallel-axis theorem, I = Σ(I_own + A·d²)).
+struct Hand {
+    area: f64,
+    cx: f64,
+    cy: f64,
+    ix: f64,
+    iy: f64,
+    net: f64,
+}
+
+fn hand() -> Hand {
+    // Parts: (A, Ix_own, Iy_own, x, y). Plate: bh³/12 and hb³/12.
+    let plate = (
+        7.0,
+        14.0 * 0.5f64.powi(3) / 12.0,
+        0.5 * 14.0f64.powi(3) / 12.0,
+        0.0,
+        6.25,
+    );
+    let left = (8.82, 162.0, 5.12, -5.5, 0.0);
+    // 10 % area loss scales A and both I by 0.9 (radius of gyration kept).
+    let right = (8.82 * 0.9, 162.0 * 0.9, 5.12 * 0.9, 5.5, 0.0);
+    let parts = [plate, left, right];
+    let area: f64 = parts.iter().map(|p| p.0).sum(); // 23.758
+    let cx = parts.iter().map(|p| p.0 * p.3).sum::<f64>() / area; // −4.851/23.758
+    let cy = parts.iter().map(|p| p.0 * p.4).sum::<f64>() / area; // 43.75/23.758
+    let ix = parts.iter().map(|p| p.1 + p.0 * (p.4 - cy).powi(2)).sum();
+    let iy = parts.iter().map(|p| p.2 + p.0 * (p.3 - cx).powi(2)).sum();
+    // Holes: 2·(15/16)·½ through the plate and the left web; the right web
+    // is thinned in proportion to its area loss (0.9·½).
+    let net = area - 2.0 * 0.9375 * 0.5 - 2.0 * 0.9375 * 0.5 - 2.0 * 0.9375 * 0.5 * 0.9;
+    Hand {
+        area,
+        cx,
+        cy,
+        ix,
+        iy,
+        net,
+    }
+}
+
+#[test]
+fn built_up_properties_by_hand() {
+    let path = temp_model("chord.ron", &model_with_chord());
+    let (code, out, err) = run(&[
+        "section",
+        path.to_str().unwrap(),
+        "--format",
+        "json",
+        "--id",
+        "chord",
+    ]);
+    assert_eq!(code, 0, "{err}");
+    let v: serde_json::Value = serde_json::from_str(&out).unwrap();
+    let s = &v["sections"][0];
+    let h = hand();
+    let rel = |k: &str, x: f64| {
+        let got = s[k].as_f64().unwrap();
+        assert!(
+            (got - x).abs() <= 1e-6 * x.abs().max(1.0),
+            "{k}: {got} vs hand {x}"
+        );
+    };
+    rel("area", h.area);
+    rel("centroid_x", h.cx);
+    rel("centroid_y", h.cy);
+    rel("ix", h.ix);
+    rel("iy", h.iy);
+    rel("i_in", h.ix);
+    rel("i_out", h.iy);
+    rel("net_area", h.net);
+    // As built: both channels whole, 8.82 · 2 + 7 = 24.64 in².
+    assert!((s["original"]["area"].as_f64().unwrap() - 24.64).abs() < 1e-9);
+    assert_eq!(v["units"]["section"], "in");
+    // Text output names the units and shows both columns.
+    let (code, text, _) = run(&["section", path.to_str().unwrap()]);
+    assert_eq!(code, 0);
+    assert!(
+        text.contains("in2") && text.contains("as built") && text.contains("after loss"),
+        "{text}"
+    );
+    // And the drawing is an SVG.
+    let (code, svg, err) = run(&[
+        "section",
+        path.to_str().unwrap(),
+        "--format",
+        "svg",
+        "--id",
+        "chord",
+    ]);
+    assert_eq!(code, 0, "{err}");
+    assert!(svg.trim_start().starts_with("<svg") || svg.trim_start().starts_with("<?xml"));
+}
+
+/// `rate` uses the reduced area and the modified slenderness of AISC 360-16
+/// §E6.1 Eq. E6-2a: (KL/r)m = √((KL/r)o² + (a/ri)²), with ri = √(5.12/8.82)
+/// of one channel and a = 16 in, about the out-of-plane axis the lacing ties.
+#[test]
+fn rate_uses_reduced_section_and_modified_slenderness() {
+    let path = temp_model("chord-rate.ron", &model_with_chord());
+    let (code, out, err) = run(&["rate", path.to_str().unwrap(), "--format", "json"]);
+    assert_eq!(code, 0, "{err}");
+    let v: serde_json::Value = serde_json::from_str(&out).unwrap();
+    let h = hand();
+    let c = v["checks"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|c| c["member"] == "L0-U1" && c["case"] == "dead")
+        .unwrap();
+    let l = (18.0f64 * 18.0 + 16.0 * 16.0).sqrt() * 12.0; // in
+    let klr_in = l / (h.ix / h.area).sqrt();
+    let klr_o = l / (h.iy / h.area).sqrt();
+    let ri = (5.12f64 / 8.82).sqrt();
+    let klr_m = (klr_o * klr_o + (16.0 / ri).powi(2)).sqrt();
+    let got_in = c["slenderness_in"].as_f64().unwrap();
+    let got_out = c["slenderness_out"].as_f64().unwrap();
+    assert!(
+        (got_in - klr_in).abs() < 1e-6 * klr_in,
+        "{got_in} vs {klr_in}"
+    );
+    assert!(
+        (got_out - klr_m).abs() < 1e-6 * klr_m,
+        "{got_out} vs {klr_m}"
+    );
+    // Stress on the reduced gross area: 13.5·l/16 kip (method of joints) over 23.758 in².
+    let stress = c["stress"].as_f64().unwrap();
+    assert!((stress + 13.5 * (l / 12.0) / 16.0 / h.area).abs() < 1e-9);
+    assert!(v["notes"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .any(|n| n.as_str().unwrap().contains("§E6.1")));
+}
+
+#[test]
+fn section_errors() {
+    let bad = model_with_chord().replace("Plate(width: 14.0,", "Plate(width: -14.0,");
+    let path = temp_model("chord-bad.ron", &bad);
+    let (code, _, err) = run(&["validate", path.to_str().unwrap()]);
+    assert_eq!(code, 2);
+    assert!(err.contains("section \"chord\""), "{err}");
+    let both = model_with_chord().replace(
+        "(id: \"chord\", parts:",
+        "(id: \"chord\", area: 3.0, parts:",
+    );
+    let path = temp_model("chord-both.ron", &both);
+    let (code, _, err) = run(&["validate", path.to_str().unwrap()]);
+    assert_eq!(code, 2);
+    assert!(err.contains("both parts and area"), "{err}");
+    let unknown = model_with_chord().replace("Plate(width: 14.0,", "Plate(widht: 14.0,");
+    let path = temp_model("chord-typo.ron", &unknown);
+    let (code, _, err) = run(&["validate", path.to_str().unwrap()]);
+    assert_eq!(code, 2);
+    assert!(err.contains("widht"), "{err}");
+}
+
+/// The reference form of a built-up section loads unchanged and is usable
+/// wherever the given-properties form is. Hand calculation: A = 8 + 2·8.2 =
+/// 24.4; ȳ = 8·5.8/24.4; Ix = 16·0.5³/12 + 8(5.8 − ȳ)² + 2(190 + 8.2ȳ²);
+/// Iy = 0.5·16³/12 + 2(6.3 + 8.2·6.1²).
+#[test]
+fn reference_form_loads() {
+    let form = r#"(id: "top-chord", parts: [
+    Plate(width: 16.0, thickness: 0.5, x: 0.0, y: 5.8),
+    Part(area: 8.2, ix: 190.0, iy: 6.3, x: -6.1, y: 0.0),
+    Part(area: 8.2, ix: 190.0, iy: 6.3, x: 6.1, y: 0.0),
+])"#;
+    let text = FOUR_PANEL
+        .replace(
+            "(id: \"chord\", area: 14.7, i_in: 310.0, i_out: 355.0)",
+            form,
+        )
+        .replace("section: \"chord\"", "section: \"top-chord\"");
+    let m = load(&text);
+    let s = &m.sections[0];
+    let in4 = INCH.powi(4);
+    let y = 8.0 * 5.8 / 24.4;
+    let ix = 16.0 * 0.125 / 12.0 + 8.0 * (5.8 - y) * (5.8 - y) + 2.0 * (190.0 + 8.2 * y * y);
+    let iy = 0.5 * 4096.0 / 12.0 + 2.0 * (6.3 + 8.2 * 6.1 * 6.1);
+    assert!((s.area / (INCH * INCH) - 24.4).abs() < 1e-9);
+    assert!((s.i_in / in4 - ix).abs() < 1e-6 * ix);
+    assert!((s.i_out / in4 - iy).abs() < 1e-6 * iy);
+    let b = s.built_up.as_ref().unwrap();
+    assert!((b.reduced.centroid_y / INCH - y).abs() < 1e-9);
+    // Doubly symmetric about y: no product of inertia about x–y at the centroid.
+    assert!(b.reduced.ixy.abs() < 1e-12 * in4);
+    let (_, a) = solve(&text);
+    assert_eq!(a.cases.len(), 2);
+}
