@@ -110,19 +110,24 @@ pub fn text(w: &mut dyn Write, model: &Model, id: Option<&str>) -> io::Result<()
                 if b.reduced.balance < 0.9 {
                     writeln!(
                         w,
-                        "note: the two principal second moments differ by more than 10 % (balance {:.2}); designers of such members usually kept them within about 10 % (common practice)",
+                        "note: the two principal second moments differ by more than 10 % (balance {:.2}); designers of compression members usually kept them within about 10 % (common practice)",
                         b.reduced.balance
                     )?;
                 }
                 if let Some(l) = &b.lacing {
                     writeln!(
                         w,
-                        "lacing: connectors every {} {unit}, component r = {} {unit}, a/ri = {}, Ki = {}, {:?} (AISC 360-16 §E6.1)",
+                        "lacing: connectors every {} {unit}, component r = {} {unit}, a/ri = {}, Ki = {}, {} (AISC 360-16 §E6.1)",
                         sig(l.spacing / f, 4),
                         sig(l.component_r / f, 4),
                         sig(l.spacing / l.component_r, 4),
                         l.k_i,
-                        l.connector
+                        match l.connector {
+                            crate::section::Connector::SnugTight => "snug-tight bolts, Eq. E6-2a",
+                            crate::section::Connector::HotDrivenRivet => "hot-driven rivets, Eq. E6-2a",
+                            crate::section::Connector::Pretensioned => "pretensioned bolts, Eq. E6-2b",
+                            crate::section::Connector::Welded => "welded, Eq. E6-2b",
+                        }
                     )?;
                 }
                 let mut t = Table::new(&[
