@@ -216,6 +216,10 @@ pub struct RatingSettings {
     pub curve: Option<String>,
     pub condition_factor: f64,
     pub system_factor: f64,
+    /// Curve parameters set in the model (they override the curve's defaults).
+    pub gamma_m1: Option<f64>,
+    pub safety_factor: Option<f64>,
+    pub csa_n: Option<f64>,
     pub inventory: Level,
     pub operating: Level,
 }
@@ -228,6 +232,9 @@ impl Default for RatingSettings {
             curve: None,
             condition_factor: 1.0,
             system_factor: 1.0,
+            gamma_m1: None,
+            safety_factor: None,
+            csa_n: None,
             inventory: Level {
                 gamma_dead: 1.25,
                 gamma_live: 1.75,

@@ -277,3 +277,41 @@ fn rate_errors() {
         "{err}"
     );
 }
+
+/// Model-wide curve parameters: γM1 divides the EN 1993 resistance
+/// (EN 1993-1-1 Eq. 6.47, Nb,Rd = χ·A·fy/γM1), and the net-to-gross ratio
+/// feeds the fracture check (AISC 360-16 Eq. D2-2, φt·Fu·Ae with φt = 0.75).
+#[test]
+fn model_parameters_and_tension() {
+    let base = rate_json(FOUR_PANEL, "en1993-c");
+    let with = FOUR_PANEL.replace("    ],\n)", "    ],\n    rating: (gamma_m1: 1.1),\n)");
+    let factored = rate_json(&with, "en1993-c");
+    let cap = |v: &serde_json::Value| {
+        v["checks"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .find(|c| c["member"] == "U1-U2")
+            .unwrap()["capacity"]
+            .as_f64()
+            .unwrap()
+    };
+    assert!((cap(&base) / cap(&factored) - 1.1).abs() < 1e-12);
+    // Web net area 0.5·6.2 in²: fracture 0.75·60·3.1 = 139.5 kip governs over
+    // yield 0.9·33·6.2 = 184.14 kip.
+    let net = FOUR_PANEL.replace(
+        "(id: \"web\", area: 6.2,",
+        "(id: \"web\", net_ratio: 0.5, area: 6.2,",
+    );
+    let v = rate_json(&net, "aisc360");
+    let c = v["checks"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|c| c["member"] == "L1-U1" && c["case"] == "dead")
+        .unwrap();
+    assert!((c["capacity"].as_f64().unwrap() - 139.5).abs() < 1e-9);
+    assert_eq!(c["regime"], "tension");
+    // 9 kip in the hanger L1-U1 (joint L1, statics).
+    assert!((c["utilization"].as_f64().unwrap() - 9.0 / 139.5).abs() < 1e-9);
+}

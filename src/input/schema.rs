@@ -60,6 +60,15 @@ pub struct RatingFile {
     pub condition_factor: Option<f64>,
     #[serde(default)]
     pub system_factor: Option<f64>,
+    /// EN 1993-1-1 partial factor γM1 (recommended 1.0).
+    #[serde(default)]
+    pub gamma_m1: Option<f64>,
+    /// Safety factor of the allowable-stress bridge column formula (default 2.12).
+    #[serde(default)]
+    pub safety_factor: Option<f64>,
+    /// CSA S16 exponent n (1.34, or 2.24 for low residual stress sections).
+    #[serde(default)]
+    pub csa_n: Option<f64>,
     #[serde(default)]
     pub inventory: Option<LevelFile>,
     #[serde(default)]
@@ -113,6 +122,9 @@ pub struct SectionFile {
     /// Net area for the tension fracture check, if known.
     #[serde(default)]
     pub net_area: Option<Quantity>,
+    /// Or the net area as a fraction of the gross area.
+    #[serde(default)]
+    pub net_ratio: Option<f64>,
     /// A built-up section: parts placed in the section plane (instead of
     /// `area`, `i_in`, `i_out`).
     #[serde(default)]

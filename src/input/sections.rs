@@ -32,10 +32,28 @@ pub(super) fn convert_section(ctx: &mut Ctx, s: &SectionFile, u: &DisplayUnits) 
     let area = need(ctx, &s.area, Dimension::Area, "area");
     let i_in = need(ctx, &s.i_in, Dimension::SecondMoment, "i_in");
     let i_out = need(ctx, &s.i_out, Dimension::SecondMoment, "i_out");
-    let net = s
+    let mut net = s
         .net_area
         .as_ref()
         .and_then(|q| positive(ctx, q, Dimension::Area, u, &what("net_area"), at));
+    if let Some(ratio) = s.net_ratio {
+        if s.net_area.is_some() {
+            ctx.error(
+                format!("section \"{}\": give net_area or net_ratio, not both", s.id),
+                at,
+            );
+        } else if !(ratio.is_finite() && ratio > 0.0 && ratio <= 1.0) {
+            ctx.error(
+                format!(
+                    "section \"{}\" net_ratio must be in (0, 1], not {ratio}",
+                    s.id
+                ),
+                at,
+            );
+        } else {
+            net = area.map(|a| a * ratio);
+        }
+    }
     if let (Some(a), Some(n)) = (area, net) {
         if n > a * (1.0 + 1e-12) {
             ctx.error(
@@ -90,6 +108,19 @@ fn built_up(ctx: &mut Ctx, s: &SectionFile, parts: &[PartFile], u: &DisplayUnits
         (r.ix, r.iy)
     };
     let mut net_area = r.net_area;
+    if let Some(ratio) = s.net_ratio {
+        if ratio.is_finite() && ratio > 0.0 && ratio <= 1.0 {
+            net_area = r.area * ratio;
+        } else {
+            ctx.error(
+                format!(
+                    "section \"{}\" net_ratio must be in (0, 1], not {ratio}",
+                    s.id
+                ),
+                at,
+            );
+        }
+    }
     if let Some(q) = &s.net_area {
         if let Some(n) = positive(
             ctx,

@@ -88,15 +88,30 @@ pub struct Rating {
 /// The curve named on the command line, else the model's, else the default.
 pub fn choose_curve(model: &Model, cli: Option<&str>) -> Result<Curve, String> {
     let name = cli.or(model.rating.curve.as_deref());
-    match name {
-        None => Ok(Curve::default_curve()),
+    let curve = match name {
+        None => Curve::default_curve(),
         Some(n) => Curve::from_name(n).ok_or_else(|| {
             format!(
                 "\"{n}\" is not a column curve; use one of {}",
                 Curve::names().join(", ")
             )
-        }),
-    }
+        })?,
+    };
+    // Parameters set in the model's rating block apply to their curve.
+    let s = &model.rating;
+    Ok(match curve {
+        Curve::En1993 { class, gamma_m1 } => Curve::En1993 {
+            class,
+            gamma_m1: s.gamma_m1.unwrap_or(gamma_m1),
+        },
+        Curve::BridgeAsd { safety_factor } => Curve::BridgeAsd {
+            safety_factor: s.safety_factor.unwrap_or(safety_factor),
+        },
+        Curve::CsaS16 { n } => Curve::CsaS16 {
+            n: s.csa_n.unwrap_or(n),
+        },
+        other => other,
+    })
 }
 
 /// Check every member under every case and combination, and rate it.
