@@ -296,7 +296,12 @@ fn model_parameters_and_tension() {
             .as_f64()
             .unwrap()
     };
-    assert!((cap(&base) / cap(&factored) - 1.1).abs() < 1e-12);
+    assert!(
+        (cap(&base) / cap(&factored) - 1.1).abs() < 1e-12,
+        "{} {}",
+        cap(&base),
+        cap(&factored)
+    );
     // Web net area 0.5·6.2 in²: fracture 0.75·60·3.1 = 139.5 kip governs over
     // yield 0.9·33·6.2 = 184.14 kip.
     let net = FOUR_PANEL.replace(

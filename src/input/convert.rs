@@ -554,6 +554,17 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
             "system_factor",
             &mut rating.system_factor,
         );
+        for (v, name, into) in [
+            (r.gamma_m1, "gamma_m1", &mut rating.gamma_m1),
+            (r.safety_factor, "safety_factor", &mut rating.safety_factor),
+            (r.csa_n, "csa_n", &mut rating.csa_n),
+        ] {
+            if let Some(v) = v {
+                let mut x = 1.0;
+                factor(&mut ctx, Some(v), name, &mut x);
+                *into = Some(x);
+            }
+        }
         for (level, name, into) in [
             (&r.inventory, "inventory", &mut rating.inventory),
             (&r.operating, "operating", &mut rating.operating),
