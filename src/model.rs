@@ -145,6 +145,8 @@ pub struct Model {
     pub members: Vec<Member>,
     pub supports: Vec<Support>,
     pub cases: Vec<LoadCase>,
+    /// Deck line, vehicles and moving loads (empty when not given).
+    pub live: crate::loads::LiveLoads,
 }
 
 impl Model {

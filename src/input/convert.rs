@@ -356,6 +356,15 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
     // Load cases.
     let _case_ids = intern(&mut ctx, "load case", &file.load_cases, |c| &c.id);
     let mut cases = Vec::with_capacity(file.load_cases.len());
+    let parts = super::loads::Parts {
+        units: u,
+        nodes: &nodes,
+        members: &members,
+        sections: &sections,
+        materials: &materials,
+        member_ids: &member_ids,
+        members_ok: members.len() == file.members.len(),
+    };
     for c in &file.load_cases {
         let mut case = LoadCase {
             id: c.id.clone(),
@@ -419,9 +428,13 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
                 case.settlements.push(Settlement { node, dx, dy });
             }
         }
+        super::loads::case_loads(&mut ctx, c, &mut case, &parts);
         cases.push(case);
     }
-    let _ = member_ids;
+    let carries: Vec<bool> = (0..nodes.len())
+        .map(|i| degree[i] > 0 || supported[i])
+        .collect();
+    let live = super::loads::live_loads(&mut ctx, &file, &parts, &node_ids, &carries);
 
     if !ctx.errors.is_empty() {
         return Err(Diagnostics { errors: ctx.errors });
@@ -443,6 +456,7 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
         members,
         supports,
         cases,
+        live,
     };
     let crossings = geometry::crossing_members(&model, tol);
     let shown = 5;
