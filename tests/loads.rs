@@ -645,3 +645,97 @@ fn core_example_still_loads_and_example_with_live_load_runs() {
     let j = member(&m, "L1-L2");
     assert!(envs[0].per_member[j].dead > 15.1875 * KIP);
 }
+
+fn run(args: &[&str]) -> (i32, String, String) {
+    let out = std::process::Command::new(env!("CARGO_BIN_EXE_panelpoint"))
+        .args(args)
+        .current_dir(env!("CARGO_MANIFEST_DIR"))
+        .output()
+        .unwrap();
+    (
+        out.status.code().unwrap_or(-1),
+        String::from_utf8_lossy(&out.stdout).into_owned(),
+        String::from_utf8_lossy(&out.stderr).into_owned(),
+    )
+}
+
+#[test]
+fn influence_command_json_and_errors() {
+    let (code, out, err) = run(&[
+        "influence",
+        "tests/data/four_panel.ron",
+        "--deck",
+        "L0,L1,L2,L3,L4",
+        "--format",
+        "json",
+    ]);
+    assert_eq!(code, 0, "{err}");
+    let v: serde_json::Value = serde_json::from_str(&out).unwrap();
+    let lines = v["lines"].as_array().unwrap();
+    // Every member and both reactions.
+    assert_eq!(lines.len(), 13 + 2);
+    let l1l2 = lines.iter().find(|l| l["member"] == "L1-L2").unwrap();
+    let at_l1 = &l1l2["ordinates"][1];
+    assert_eq!(at_l1["node"], "L1");
+    // M/h by hand: 18·54/72/16 = 0.84375.
+    assert!((at_l1["value"].as_f64().unwrap() - 0.84375).abs() < 1e-9);
+    let r = lines.iter().find(|l| l["reaction"] == "L0").unwrap();
+    // R_L0 at L2 = (72 − 36)/72 (statics).
+    assert!((r["ordinates"][2]["ry"].as_f64().unwrap() - 0.5).abs() < 1e-9);
+
+    let (code, out, _) = run(&[
+        "influence",
+        "models/four_panel_live.ron",
+        "--member",
+        "U1-L2",
+        "--format",
+        "csv",
+    ]);
+    assert_eq!(code, 0);
+    assert_eq!(out.lines().count(), 1 + 5);
+    assert!(
+        out.starts_with("kind,id,node,chainage_ft,value\nmember,U1-L2,L0,0.0,0.0\n"),
+        "{out}"
+    );
+
+    // Bad input: exit 2 with a message naming the thing.
+    let (code, _, err) = run(&["influence", "tests/data/four_panel.ron"]);
+    assert_eq!(code, 2);
+    assert!(err.contains("deck"), "{err}");
+    let (code, _, err) = run(&["influence", "tests/data/four_panel.ron", "--deck", "L0,Q7"]);
+    assert_eq!(code, 2);
+    assert!(err.contains("\"Q7\""), "{err}");
+    let (code, _, err) = run(&[
+        "influence",
+        "models/four_panel_live.ron",
+        "--member",
+        "nope",
+    ]);
+    assert_eq!(code, 2);
+    assert!(err.contains("\"nope\""), "{err}");
+    let (code, _, err) = run(&["envelope", "tests/data/four_panel.ron"]);
+    assert_eq!(code, 2);
+    assert!(err.contains("moving loads"), "{err}");
+}
+
+#[test]
+fn envelope_command_json() {
+    let (code, out, err) = run(&["envelope", "models/four_panel_live.ron", "--format", "json"]);
+    assert_eq!(code, 0, "{err}");
+    let v: serde_json::Value = serde_json::from_str(&out).unwrap();
+    let cart = &v["envelopes"][0];
+    assert_eq!(cart["moving_load"], "cart");
+    let m = cart["members"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|m| m["id"] == "L1-L2")
+        .unwrap();
+    // By hand: 8 kip at 27 ft (ordinate (0.84375 + 0.5625)/2) and 12 kip at
+    // 18 ft (0.84375): 15.75 kip; lane 0.2 kip/ft × ½·72·0.84375 = 6.075 kip;
+    // with 10 % on the axles only: 1.1·15.75 + 6.075 = 23.4 kip.
+    assert!((m["tension"]["force"].as_f64().unwrap() - 23.4).abs() < 1e-9);
+    assert!((m["tension"]["position"].as_f64().unwrap() - 27.0).abs() < 1e-9);
+    assert_eq!(m["tension"]["direction"], "forward");
+    assert_eq!(m["compression"]["position"], serde_json::Value::Null);
+}

@@ -18,7 +18,9 @@
 //!
 //! The reported extreme is (1 + I)·F_axles + (1 + I or 1)·F_lane, with the
 //! tension extreme never below zero and the compression extreme never
-//! above zero (the bridge may always be empty).
+//! above zero (the bridge may always be empty). An axle or lane effect
+//! below 1e-9 of (largest ordinate of any effect × total load) is
+//! round-off in a zero-force member and is reported as zero, unplaced.
 
 use super::influence::{influence_lines, InfluenceLines};
 use super::moving::{positions, Deck, Direction, Placement};
@@ -256,6 +258,21 @@ pub fn extremes(
             }
         }
     }
+    // Round-off floor: an effect below 1e-9 of the largest ordinate of any
+    // effect times the load is noise (a zero-force member), reported as
+    // zero with no placement.
+    let largest = rows.iter().fold(0.0f64, |a, v| a.max(v.abs()));
+    let total: f64 = vehicle.axles.iter().map(|a| a.load).sum();
+    let floor = 1e-9 * largest * total;
+    for e in 0..ne {
+        if hi[e].0 <= floor {
+            hi[e] = (0.0, None);
+        }
+        if lo[e].0 >= -floor {
+            lo[e] = (0.0, None);
+        }
+    }
+    let lane_floor = 1e-9 * largest * deck.length();
     let axle_factor = 1.0 + ml.impact;
     let lane_factor = if ml.impact_on_lane { axle_factor } else { 1.0 };
     let w = vehicle.lane.unwrap_or(0.0);
@@ -269,8 +286,8 @@ pub fn extremes(
                 *o = rows[k * ne + e];
             }
             let (pos, neg) = deck.signed_areas(&ord);
-            t.lane = w * pos;
-            c.lane = w * neg;
+            t.lane = if pos > lane_floor { w * pos } else { 0.0 };
+            c.lane = if neg < -lane_floor { w * neg } else { 0.0 };
         }
         (t.axles, t.at) = hi[e];
         (c.axles, c.at) = lo[e];

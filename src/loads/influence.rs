@@ -111,6 +111,18 @@ pub fn influence_lines(
             }
         }
     }
+    // Round-off (a zero-force member's 1e-17) shown as the zero it is:
+    // ordinates below 1e-12 of the largest ordinate are cleared.
+    let largest = members
+        .iter()
+        .chain(reactions.iter().flatten())
+        .fold(0.0f64, |a, v| a.max(v.abs()));
+    let floor = 1e-12 * largest;
+    members
+        .iter_mut()
+        .chain(reactions.iter_mut().flatten())
+        .filter(|v| v.abs() < floor)
+        .for_each(|v| *v = 0.0);
     Ok(InfluenceLines {
         deck: deck.clone(),
         members,
