@@ -739,3 +739,73 @@ fn envelope_command_json() {
     assert_eq!(m["tension"]["direction"], "forward");
     assert_eq!(m["compression"]["position"], serde_json::Value::Null);
 }
+
+#[test]
+fn indeterminate_lines_match_a_dense_nalgebra_solve() {
+    // The four-panel Pratt with a counter L1–U2 added: indeterminate to
+    // degree 1, so the lines depend on the stiffnesses. Check against a
+    // dense stiffness matrix assembled here and solved by nalgebra's LU.
+    let text = pratt(4, 18.0, 16.0, "", &deck_text(4)).replace(
+        "members: [",
+        "members: [(id: \"L1-U2\", start: \"L1\", end: \"U2\", section: \"web\", material: \"steel\"),",
+    );
+    let m = model(&text);
+    assert_eq!(m.determinacy().degree(), 1);
+    let p = Prepared::new(&m).unwrap();
+    let deck = Deck::of_model(&m).unwrap();
+    let lines = influence_lines(&m, &p, &deck).unwrap();
+    let nn = m.nodes.len();
+    // Restrained global DOFs: pin at L0 (x, y), roller at L4 (y).
+    let l0 = m.nodes.iter().position(|n| n.id == "L0").unwrap();
+    let l4 = m.nodes.iter().position(|n| n.id == "L4").unwrap();
+    let fixed = [2 * l0, 2 * l0 + 1, 2 * l4 + 1];
+    let free: Vec<usize> = (0..2 * nn).filter(|d| !fixed.contains(d)).collect();
+    let mut k = nalgebra::DMatrix::<f64>::zeros(2 * nn, 2 * nn);
+    for mem in &m.members {
+        let (a, b) = (&m.nodes[mem.start], &m.nodes[mem.end]);
+        let l = (b.x - a.x).hypot(b.y - a.y);
+        let (c, s) = ((b.x - a.x) / l, (b.y - a.y) / l);
+        let ea_l = m.materials[mem.material].e * m.sections[mem.section].area / l;
+        let dofs = [
+            2 * mem.start,
+            2 * mem.start + 1,
+            2 * mem.end,
+            2 * mem.end + 1,
+        ];
+        let g = [-c, -s, c, s];
+        for r in 0..4 {
+            for q in 0..4 {
+                k[(dofs[r], dofs[q])] += ea_l * g[r] * g[q];
+            }
+        }
+    }
+    let kf = k.select_rows(&free).select_columns(&free);
+    let lu = kf.lu();
+    for (kd, &node) in deck.nodes.iter().enumerate() {
+        let mut f = nalgebra::DVector::<f64>::zeros(free.len());
+        if let Some(i) = free.iter().position(|&d| d == 2 * node + 1) {
+            f[i] = -1.0;
+        }
+        let uf = lu.solve(&f).unwrap();
+        let mut u = vec![0.0; 2 * nn];
+        for (i, &d) in free.iter().enumerate() {
+            u[d] = uf[i];
+        }
+        for (j, mem) in m.members.iter().enumerate() {
+            let (a, b) = (&m.nodes[mem.start], &m.nodes[mem.end]);
+            let l = (b.x - a.x).hypot(b.y - a.y);
+            let (c, s) = ((b.x - a.x) / l, (b.y - a.y) / l);
+            let ea_l = m.materials[mem.material].e * m.sections[mem.section].area / l;
+            let e = c * (u[2 * mem.end] - u[2 * mem.start])
+                + s * (u[2 * mem.end + 1] - u[2 * mem.start + 1]);
+            let want = ea_l * e;
+            let got = lines.member(j)[kd];
+            assert!(
+                (got - want).abs() < 1e-8,
+                "{} at {}: {got} vs {want}",
+                mem.id,
+                m.nodes[node].id
+            );
+        }
+    }
+}
