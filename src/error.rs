@@ -32,6 +32,11 @@ pub enum Error {
         what: String,
         source: std::io::Error,
     },
+    #[error("{path}: {source}")]
+    Loads {
+        path: PathBuf,
+        source: crate::loads::LoadError,
+    },
     #[error("{0}")]
     Usage(String),
 }
@@ -46,6 +51,13 @@ impl Error {
                 _ => 2,
             },
             Error::Write { .. } => 1,
+            Error::Loads { source, .. } => {
+                if source.is_internal() {
+                    1
+                } else {
+                    2
+                }
+            }
         }
     }
 

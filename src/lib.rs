@@ -14,6 +14,7 @@ pub mod error;
 pub mod generate;
 pub mod geometry;
 pub mod input;
+pub mod loads;
 pub mod model;
 pub mod rate;
 pub mod report;

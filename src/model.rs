@@ -192,6 +192,8 @@ pub struct Model {
     pub cases: Vec<LoadCase>,
     pub combinations: Vec<Combination>,
     pub rating: RatingSettings,
+    /// Deck line, vehicles and moving loads (empty when not given).
+    pub live: crate::loads::LiveLoads,
 }
 
 /// A named linear combination of load cases: Σ factor × case (live cases

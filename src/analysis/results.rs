@@ -213,7 +213,12 @@ impl Prepared {
             let e: f64 = self.rows[m].iter().map(|(d, b)| b * q[d]).sum::<f64>() + imposed[m];
             let force = self.stiff[m] * e;
             forces.push(force);
-            largest = largest.max(force.abs());
+            // The imposed part enters the nodal sums too; its size sets the
+            // round-off scale even when the net force is zero (a free
+            // thermal expansion of a determinate truss).
+            largest = largest
+                .max(force.abs())
+                .max((self.stiff[m] * imposed[m]).abs());
             let c = model.direction(m);
             net[mem.start][0] += force * c[0];
             net[mem.start][1] += force * c[1];

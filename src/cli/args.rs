@@ -68,6 +68,32 @@ pub enum Command {
         #[arg(long)]
         out: Option<PathBuf>,
     },
+    /// Influence lines of member forces and support reactions for a unit
+    /// downward load moving along the deck line.
+    Influence {
+        model: PathBuf,
+        /// Only this member (repeatable); without it every member and every reaction.
+        #[arg(long = "member", value_name = "ID")]
+        members: Vec<String>,
+        /// Deck nodes in order, comma-separated, instead of the model's `deck`.
+        #[arg(long, value_delimiter = ',', value_name = "NODES")]
+        deck: Option<Vec<String>>,
+        #[arg(long, value_enum, default_value_t = FormatArg::Text)]
+        format: FormatArg,
+        /// Write to this file (atomically) instead of standard output.
+        #[arg(long)]
+        out: Option<PathBuf>,
+    },
+    /// Greatest tension and compression in every member (and reactions)
+    /// under each of the model's moving loads, with the dead-load force.
+    Envelope {
+        model: PathBuf,
+        #[arg(long, value_enum, default_value_t = FormatArg::Text)]
+        format: FormatArg,
+        /// Write to this file (atomically) instead of standard output.
+        #[arg(long)]
+        out: Option<PathBuf>,
+    },
 }
 
 #[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]

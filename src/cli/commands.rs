@@ -36,13 +36,13 @@ pub fn load(path: &Path) -> Result<Converted, Error> {
             }],
         },
     })?;
-    input::load_str(&text).map_err(|diagnostics| Error::Model {
+    input::load_str_in(&text, path.parent()).map_err(|diagnostics| Error::Model {
         path: path.to_path_buf(),
         diagnostics,
     })
 }
 
-fn write(
+pub(super) fn write(
     out: &Option<PathBuf>,
     body: impl FnOnce(&mut dyn Write) -> std::io::Result<()>,
 ) -> Result<(), Error> {
@@ -165,5 +165,17 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             })?;
             Ok(0)
         }
+        Command::Influence {
+            model,
+            members,
+            deck,
+            format: f,
+            out,
+        } => super::loads::influence(&model, &members, deck.as_deref(), format(f), &out),
+        Command::Envelope {
+            model,
+            format: f,
+            out,
+        } => super::loads::envelope(&model, format(f), &out),
     }
 }

@@ -380,6 +380,15 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
     // Load cases.
     let case_ids = intern(&mut ctx, "load case", &file.load_cases, |c| &c.id);
     let mut cases = Vec::with_capacity(file.load_cases.len());
+    let parts = super::loads::Parts {
+        units: u,
+        nodes: &nodes,
+        members: &members,
+        sections: &sections,
+        materials: &materials,
+        member_ids: &member_ids,
+        members_ok: members.len() == file.members.len(),
+    };
     for c in &file.load_cases {
         let kind = match c.kind {
             Some(CaseKindFile::Dead) => CaseKind::Dead,
@@ -470,9 +479,13 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
                 case.settlements.push(Settlement { node, dx, dy });
             }
         }
+        super::loads::case_loads(&mut ctx, c, &mut case, &parts);
         cases.push(case);
     }
-    let _ = member_ids;
+    let carries: Vec<bool> = (0..nodes.len())
+        .map(|i| degree[i] > 0 || supported[i])
+        .collect();
+    let live = super::loads::live_loads(&mut ctx, &file, &parts, &node_ids, &carries);
 
     // Combinations.
     let _ = intern(&mut ctx, "combination", &file.combinations, |c| &c.id);
@@ -608,6 +621,7 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
         cases,
         combinations,
         rating,
+        live,
     };
     let crossings = geometry::crossing_members(&model, tol);
     let shown = 5;

@@ -4,6 +4,7 @@
 
 pub mod convert;
 pub mod diagnostics;
+mod loads;
 pub mod parts;
 pub mod quantity;
 pub mod ron_writer;
@@ -19,8 +20,15 @@ use diagnostics::Locator;
 /// something that is not a model at all.
 pub const MAX_FILE_BYTES: usize = 1 << 31;
 
-/// Parse and validate model text.
+/// Parse and validate model text; a `vehicles_file` is read relative to
+/// the current folder.
 pub fn load_str(text: &str) -> Result<Converted, Diagnostics> {
+    load_str_in(text, None)
+}
+
+/// Parse and validate model text read from a file in folder `dir`, which
+/// a `vehicles_file` is relative to.
+pub fn load_str_in(text: &str, dir: Option<&std::path::Path>) -> Result<Converted, Diagnostics> {
     if text.trim().is_empty() {
         return Err(single("the model file is empty", None));
     }
@@ -30,7 +38,7 @@ pub fn load_str(text: &str) -> Result<Converted, Diagnostics> {
     let options = ron::Options::default()
         .with_default_extension(ron::extensions::Extensions::IMPLICIT_SOME)
         .with_recursion_limit(64);
-    let file: schema::ModelFile = match options.from_str(text) {
+    let mut file: schema::ModelFile = match options.from_str(text) {
         Ok(f) => f,
         Err(e) => {
             let pos = e.span.start;
@@ -39,6 +47,7 @@ pub fn load_str(text: &str) -> Result<Converted, Diagnostics> {
         }
     };
     let _ = Locator::new(text);
+    loads::merge_vehicles_file(&mut file, dir)?;
     convert::convert(file, text)
 }
 

@@ -29,6 +29,22 @@ pub struct ModelFile {
     /// Model-wide capacity and rating settings.
     #[serde(default)]
     pub rating: Option<RatingFile>,
+    // Optional moving-load fields; see `docs/loads.md` and `input/loads.rs`.
+    /// Ordered deck nodes (panel points where floor beams deliver load).
+    #[serde(default)]
+    pub deck: Vec<String>,
+    /// Vehicle definitions: axle trains and lane loads.
+    #[serde(default)]
+    pub vehicles: Vec<VehicleFile>,
+    /// A file of further vehicles, relative to the model file.
+    #[serde(default)]
+    pub vehicles_file: Option<String>,
+    /// Vehicles rolled across the deck.
+    #[serde(default)]
+    pub moving_loads: Vec<MovingLoadFile>,
+    /// Load cases whose sum is the dead load reported beside the envelopes.
+    #[serde(default)]
+    pub dead_cases: Vec<String>,
 }
 
 /// `(id: "strength", factors: [("deck", 1.25), ("crowd", 1.75)])`.
@@ -198,6 +214,18 @@ pub struct LoadCaseFile {
     /// Prescribed support displacements, in the section unit.
     #[serde(default)]
     pub settlements: Vec<SettlementFile>,
+    /// Self-weight of every member times this factor (connection material).
+    #[serde(default)]
+    pub self_weight: Option<f64>,
+    /// Temperature change of single members (replaces `temperature_all` for them).
+    #[serde(default)]
+    pub temperature: Vec<TemperatureFile>,
+    /// Temperature change of every member.
+    #[serde(default)]
+    pub temperature_all: Option<Quantity>,
+    /// Members made too long (positive) or too short, in the section unit.
+    #[serde(default)]
+    pub lack_of_fit: Vec<LackOfFitFile>,
 }
 
 #[derive(Debug, Deserialize)]
@@ -218,4 +246,61 @@ pub struct SettlementFile {
     pub dx: Option<Quantity>,
     #[serde(default)]
     pub dy: Option<Quantity>,
+}
+
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct TemperatureFile {
+    pub member: String,
+    pub change: Quantity,
+}
+
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct LackOfFitFile {
+    pub member: String,
+    pub elongation: Quantity,
+}
+
+/// A vehicle: axles front to back, each `spacing` behind the one before.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct VehicleFile {
+    pub id: String,
+    #[serde(default)]
+    pub axles: Vec<AxleFile>,
+    /// Uniform lane or crowd load, force per length.
+    #[serde(default)]
+    pub lane: Option<Quantity>,
+}
+
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct AxleFile {
+    pub load: Quantity,
+    /// Distance behind the axle in front (zero or absent for the first).
+    #[serde(default)]
+    pub spacing: Option<Quantity>,
+}
+
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct MovingLoadFile {
+    pub id: String,
+    pub vehicle: String,
+    pub step: Quantity,
+    /// Dynamic allowance as a fraction (0.10 = 10 %), on the axles.
+    #[serde(default)]
+    pub impact: Option<f64>,
+    /// Apply the dynamic allowance to the lane load too.
+    #[serde(default)]
+    pub impact_on_lane: Option<bool>,
+}
+
+/// The separate vehicles file: `(vehicles: [...])`.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct VehiclesFile {
+    #[serde(default)]
+    pub vehicles: Vec<VehicleFile>,
 }

@@ -4,6 +4,9 @@
 
 pub mod atomic;
 pub mod csv;
+pub mod influence_csv;
+pub mod influence_json;
+pub mod influence_text;
 pub mod json;
 pub mod rate_csv;
 pub mod rate_json;

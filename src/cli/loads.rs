@@ -1,0 +1,82 @@
+//! The `influence` and `envelope` commands: load the model, factor it
+//! once, compute influence lines or envelopes, hand them to a writer.
+
+use super::commands::{load, write};
+use crate::analysis::results::Prepared;
+use crate::error::Error;
+use crate::loads::{self, Deck, LoadError};
+use crate::report::{influence_csv, influence_json, influence_text, Format};
+use std::path::{Path, PathBuf};
+
+fn prepare(path: &Path, model: &crate::model::Model) -> Result<Prepared, Error> {
+    Prepared::new(model).map_err(|source| Error::Analysis {
+        path: path.to_path_buf(),
+        source,
+    })
+}
+
+fn loads_error(path: &Path) -> impl Fn(LoadError) -> Error + '_ {
+    move |source| Error::Loads {
+        path: path.to_path_buf(),
+        source,
+    }
+}
+
+/// `panelpoint influence`.
+pub fn influence(
+    path: &Path,
+    members: &[String],
+    deck: Option<&[String]>,
+    format: Format,
+    out: &Option<PathBuf>,
+) -> Result<u8, Error> {
+    let c = load(path)?;
+    let m = &c.model;
+    let deck = match deck {
+        Some(ids) => Deck::from_ids(m, ids),
+        None => Deck::of_model(m),
+    }
+    .map_err(loads_error(path))?;
+    let mut chosen = Vec::with_capacity(members.len());
+    for id in members {
+        let i = m
+            .members
+            .iter()
+            .position(|x| &x.id == id)
+            .ok_or_else(|| loads_error(path)(LoadError::UnknownMember(id.clone())))?;
+        if !chosen.contains(&i) {
+            chosen.push(i);
+        }
+    }
+    let supports: Vec<usize> = if members.is_empty() {
+        chosen = (0..m.members.len()).collect();
+        (0..m.supports.len()).collect()
+    } else {
+        Vec::new()
+    };
+    let prepared = prepare(path, m)?;
+    let lines = loads::influence_lines(m, &prepared, &deck).map_err(loads_error(path))?;
+    write(out, |w| match format {
+        Format::Text => influence_text::influence(w, m, &lines, &chosen, &supports, &c.warnings),
+        Format::Json => influence_json::influence(w, m, &lines, &chosen, &supports, &c.warnings),
+        Format::Csv => influence_csv::influence(w, m, &lines, &chosen, &supports),
+    })?;
+    Ok(0)
+}
+
+/// `panelpoint envelope`.
+pub fn envelope(path: &Path, format: Format, out: &Option<PathBuf>) -> Result<u8, Error> {
+    let c = load(path)?;
+    let m = &c.model;
+    if m.live.moving.is_empty() {
+        return Err(loads_error(path)(LoadError::NoMovingLoads));
+    }
+    let prepared = prepare(path, m)?;
+    let envs = loads::envelopes(m, &prepared).map_err(loads_error(path))?;
+    write(out, |w| match format {
+        Format::Text => influence_text::envelopes(w, m, &envs, &c.warnings),
+        Format::Json => influence_json::envelopes(w, m, &envs, &c.warnings),
+        Format::Csv => influence_csv::envelopes(w, m, &envs),
+    })?;
+    Ok(0)
+}
