@@ -201,7 +201,11 @@ pub struct Model {
 #[derive(Clone, Debug, PartialEq)]
 pub struct Combination {
     pub id: String,
+    /// (load case index, factor).
     pub factors: Vec<(usize, f64)>,
+    /// (moving load index, factor): the moving load's envelope enters the
+    /// combination side by side (greatest tension, greatest compression).
+    pub moving: Vec<(usize, f64)>,
 }
 
 /// Load factors of a rating level.
@@ -250,6 +254,18 @@ impl Default for RatingSettings {
 }
 
 impl Model {
+    /// The load cases summed as the dead load: those listed in `dead_cases`
+    /// of the model file, or else every case of kind `Dead`.
+    pub fn dead_cases(&self) -> Vec<usize> {
+        if self.live.dead_cases.is_empty() {
+            (0..self.cases.len())
+                .filter(|&c| self.cases[c].kind == CaseKind::Dead)
+                .collect()
+        } else {
+            self.live.dead_cases.clone()
+        }
+    }
+
     /// Length of member `m`, m.
     pub fn length(&self, m: usize) -> f64 {
         let mem = &self.members[m];

@@ -320,3 +320,49 @@ fn model_parameters_and_tension() {
     // 9 kip in the hanger L1-U1 (joint L1, statics).
     assert!((c["utilization"].as_f64().unwrap() - 9.0 / 139.5).abs() < 1e-9);
 }
+
+/// A moving load rated by hand: one 10 kip axle with 10 % impact rolled
+/// along the bottom chord of the example. The end post L0-U1 is worst with
+/// the axle at L1: R0 = 3/4 of the axle (lever rule), so L = −0.75·11·l/16
+/// kip (method of joints at L0, l = √(18² + 16²) ft); D = −13.5·l/16 from the
+/// dead case; RF = (φPn − 1.25·|D|)/(1.75·|L|) with φPn by AISC 360-16 E3-2.
+#[test]
+fn moving_load_rating_by_hand() {
+    let text = FOUR_PANEL
+        .replace("(id: \"dead\", loads:", "(id: \"dead\", kind: Dead, loads:")
+        .replace(
+            "    ],\n)",
+            "    ],\n    deck: [\"L0\", \"L1\", \"L2\", \"L3\", \"L4\"],\n    vehicles: [(id: \"axle\", axles: [(load: \"10 kip\")])],\n    moving_loads: [(id: \"roll\", vehicle: \"axle\", step: \"0.5 ft\", impact: 0.10)],\n)",
+        );
+    let v = rate_json(&text, "aisc360");
+    let l = (18.0f64 * 18.0 + 16.0 * 16.0).sqrt();
+    let live = 0.75 * 11.0 * l / 16.0;
+    let d = 13.5 * l / 16.0;
+    let klr = l * 12.0 / (310.0f64 / 14.7).sqrt();
+    let fe = PI * PI * 29000.0 / (klr * klr);
+    let phi_pn = 0.9 * 0.658f64.powf(33.0 / fe) * 33.0 * 14.7;
+    let rf = (phi_pn - 1.25 * d) / (1.75 * live);
+    let r = v["ratings"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|r| r["member"] == "L0-U1" && r["live_case"] == "roll")
+        .unwrap();
+    assert!(
+        (r["live_with_impact"].as_f64().unwrap() + live).abs() < 1e-9,
+        "{r}"
+    );
+    assert!(
+        (r["inventory"].as_f64().unwrap() - rf).abs() < 1e-9 * rf,
+        "{r}"
+    );
+    assert!(r["position"].as_str().unwrap().contains("18.00 ft"), "{r}");
+    // The check row holds dead + live: −(13.5 + 8.25)·l/16.
+    let c = v["checks"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|c| c["member"] == "L0-U1" && c["case"] == "dead + roll (max compression)")
+        .unwrap();
+    assert!((c["force"].as_f64().unwrap() + (d + live)).abs() < 1e-9);
+}

@@ -499,7 +499,22 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
             );
         }
         let mut factors = Vec::with_capacity(c.factors.len());
+        let mut moving = Vec::new();
         for (case, f) in &c.factors {
+            if let Some(k) = live.moving.iter().position(|ml| &ml.id == case) {
+                if f.is_finite() {
+                    moving.push((k, *f));
+                } else {
+                    ctx.error(
+                        format!(
+                            "combination \"{}\" factor on \"{case}\" is not finite",
+                            c.id
+                        ),
+                        at,
+                    );
+                }
+                continue;
+            }
             match case_ids.get(case.as_str()) {
                 Some(&i) if f.is_finite() => factors.push((i, *f)),
                 Some(_) => ctx.error(
@@ -511,7 +526,7 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
                 ),
                 None => ctx.error(
                     format!(
-                        "combination \"{}\" refers to load case \"{case}\", which is not defined",
+                        "combination \"{}\" refers to load case \"{case}\", which is not defined (nor is a moving load of that id)",
                         c.id
                     ),
                     at,
@@ -521,9 +536,19 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
         if c.factors.is_empty() {
             ctx.error(format!("combination \"{}\" has no factors", c.id), at);
         }
+        if moving.len() > 1 {
+            ctx.error(
+                format!(
+                    "combination \"{}\" names more than one moving load; give one per combination",
+                    c.id
+                ),
+                at,
+            );
+        }
         combinations.push(Combination {
             id: c.id.clone(),
             factors,
+            moving,
         });
     }
 

@@ -114,12 +114,9 @@ pub fn dead_load(
 ) -> Result<(Vec<f64>, Vec<[f64; 2]>), LoadError> {
     let mut forces = vec![0.0; model.members.len()];
     let mut reactions = vec![[0.0; 2]; model.supports.len()];
-    let cases: Vec<_> = model
-        .live
-        .dead_cases
-        .iter()
-        .map(|&c| model.cases[c].clone())
-        .collect();
+    // The listed dead cases, or else every case of kind Dead.
+    let listed = model.dead_cases();
+    let cases: Vec<_> = listed.iter().map(|&c| model.cases[c].clone()).collect();
     if cases.is_empty() {
         return Ok((forces, reactions));
     }
@@ -135,7 +132,7 @@ pub fn dead_load(
 
 /// Envelopes of every moving load of the model: influence lines on the
 /// model's deck from the factorization in `prepared`, dead load from
-/// `model.live.dead_cases`. All results SI (N), tension positive.
+/// `model.live.dead_cases` (or every `Dead` case when none is listed). All results SI (N), tension positive.
 ///
 /// Errors: no deck line (`NoDeck`), no moving loads (`NoMovingLoads`), a
 /// step too fine (`TooManyPositions`), or an analysis failure.

@@ -10,7 +10,7 @@ mod checks;
 mod combine;
 
 pub use checks::{member_capacity, Axis, LacingEffect, MemberCapacity};
-pub use combine::{load_effects, LoadEffect};
+pub use combine::{load_effects, moving_effects, LoadEffect, Side};
 
 use crate::analysis::Analysis;
 use crate::capacity::{self, Curve, Regime};
@@ -23,6 +23,8 @@ pub enum RateError {
     NoYield(String),
     #[error("material \"{0}\" has no fu; the tension fracture check needs the tensile strength")]
     NoTensile(String),
+    #[error("moving loads: {0}")]
+    Loads(#[from] crate::loads::LoadError),
     #[error("member \"{member}\": {source}")]
     Capacity {
         member: String,
@@ -51,12 +53,15 @@ pub struct Check {
     pub rating_factor: Option<f64>,
 }
 
-/// Rating factors of one member for one live case.
+/// Rating factors of one member for one live load (a Live case or a
+/// moving load's envelope).
 #[derive(Clone, Debug, PartialEq)]
 pub struct MemberRating {
     pub member: usize,
-    /// Index of the live case in `model.cases`.
-    pub live_case: usize,
+    /// The live case's or moving load's id.
+    pub live_id: String,
+    /// For a moving load: where the vehicle stood for the governing effect.
+    pub at: Option<String>,
     /// Dead-load force (sum of Dead cases), N.
     pub dead: f64,
     /// Live force with impact, N.
@@ -119,48 +124,61 @@ pub fn rate(model: &Model, analysis: &Analysis, curve: Curve) -> Result<Rating, 
     let members = (0..model.members.len())
         .map(|m| member_capacity(model, m, &curve))
         .collect::<Result<Vec<_>, _>>()?;
-    let effects = load_effects(model, analysis);
+    let mut effects = load_effects(model, analysis);
+    let envelopes = if model.live.moving.is_empty() {
+        Vec::new()
+    } else {
+        crate::loads::envelopes(model, &analysis.prepared)?
+    };
+    effects.extend(moving_effects(model, analysis, &envelopes));
+    let dead_cases = model.dead_cases();
     let dead: Vec<f64> = (0..model.members.len())
         .map(|m| {
-            model
-                .cases
+            dead_cases
                 .iter()
-                .zip(&analysis.cases)
-                .filter(|(c, _)| c.kind == CaseKind::Dead)
-                .map(|(_, r)| r.forces[m])
+                .map(|&c| analysis.cases[c].forces[m])
                 .sum()
         })
         .collect();
-    let has_dead = model.cases.iter().any(|c| c.kind == CaseKind::Dead);
     let phi = model.rating.condition_factor * model.rating.system_factor;
     let s = &model.rating;
+    let asr = matches!(curve, Curve::BridgeAsd { .. });
+    // RF of member m for a live force (impact included), both levels.
+    let rf = |m: usize, live: f64| -> (Option<f64>, Option<f64>, f64) {
+        let cap = &members[m];
+        let (ct, cc) = (phi * cap.tension_capacity, phi * cap.compression.capacity);
+        let level = |g: crate::model::Level| {
+            capacity::member_rating(ct, cc, dead[m], live, g.gamma_dead, g.gamma_live)
+        };
+        let capacity = if live >= 0.0 { ct } else { cc };
+        if asr {
+            // Allowable-stress form RF = (C − D)/(L(1 + I)), one level.
+            (
+                capacity::member_rating(ct, cc, dead[m], live, 1.0, 1.0),
+                None,
+                capacity,
+            )
+        } else {
+            (level(s.inventory), level(s.operating), capacity)
+        }
+    };
 
     let mut ratings = Vec::new();
+    // Inventory RF of (member, effect) for the check rows.
     let mut rf_of = std::collections::HashMap::new();
     for (ci, case) in model.cases.iter().enumerate() {
         if case.kind != CaseKind::Live {
             continue;
         }
-        for (m, cap) in members.iter().enumerate() {
+        let ei = effects.iter().position(|e| e.case == Some(ci)).unwrap_or(0);
+        for m in 0..members.len() {
             let live = analysis.cases[ci].forces[m] * (1.0 + case.impact);
-            let (ct, cc) = (phi * cap.tension_capacity, phi * cap.compression.capacity);
-            let level = |g: crate::model::Level| {
-                capacity::member_rating(ct, cc, dead[m], live, g.gamma_dead, g.gamma_live)
-            };
-            let (inventory, operating) = if matches!(curve, Curve::BridgeAsd { .. }) {
-                // Allowable-stress form RF = (C − D)/(L(1 + I)), one level.
-                (
-                    capacity::member_rating(ct, cc, dead[m], live, 1.0, 1.0),
-                    None,
-                )
-            } else {
-                (level(s.inventory), level(s.operating))
-            };
-            let capacity = if live >= 0.0 { ct } else { cc };
-            rf_of.insert((m, ci), inventory);
+            let (inventory, operating, capacity) = rf(m, live);
+            rf_of.insert((m, ei), inventory);
             ratings.push(MemberRating {
                 member: m,
-                live_case: ci,
+                live_id: case.id.clone(),
+                at: None,
                 dead: dead[m],
                 live,
                 capacity,
@@ -169,7 +187,54 @@ pub fn rate(model: &Model, analysis: &Analysis, curve: Curve) -> Result<Rating, 
             });
         }
     }
-    let _ = has_dead;
+    let length = model.units.length;
+    for (k, env) in envelopes.iter().enumerate() {
+        for m in 0..members.len() {
+            let e = &env.per_member[m];
+            // Rate each side of the envelope; the lower factor governs.
+            let mut best: Option<MemberRating> = None;
+            for (side, extreme) in [
+                (Side::Tension, &e.tension),
+                (Side::Compression, &e.compression),
+            ] {
+                let live = extreme.force;
+                let (inventory, operating, capacity) = rf(m, live);
+                let ei = effects.iter().position(|x| x.moving == Some((k, side)));
+                if let Some(ei) = ei {
+                    rf_of.insert((m, ei), inventory);
+                }
+                let Some(inv) = inventory else { continue };
+                let at = extreme.at.as_ref().map(|p| {
+                    format!(
+                        "{} with the front axle at {:.2} {} ({})",
+                        side.label(),
+                        p.position / length.to_si,
+                        length.name,
+                        format!("{:?}", p.direction).to_lowercase()
+                    )
+                });
+                let row = MemberRating {
+                    member: m,
+                    live_id: env.moving_load.clone(),
+                    at,
+                    dead: dead[m],
+                    live,
+                    capacity,
+                    inventory,
+                    operating,
+                };
+                if best
+                    .as_ref()
+                    .is_none_or(|b| inv < b.inventory.unwrap_or(f64::INFINITY))
+                {
+                    best = Some(row);
+                }
+            }
+            if let Some(b) = best {
+                ratings.push(b);
+            }
+        }
+    }
 
     let mut checks = Vec::with_capacity(effects.len() * members.len());
     for (ei, effect) in effects.iter().enumerate() {
@@ -200,9 +265,7 @@ pub fn rate(model: &Model, analysis: &Analysis, curve: Curve) -> Result<Rating, 
             };
             let utilization = force.abs() / capacity;
             let margin = (stress.abs() > 0.0).then(|| critical / stress.abs());
-            let rating_factor = effect
-                .case
-                .and_then(|ci| rf_of.get(&(m, ci)).copied().flatten());
+            let rating_factor = rf_of.get(&(m, ei)).copied().flatten();
             checks.push(Check {
                 member: m,
                 effect: ei,

@@ -77,14 +77,15 @@ pub fn rate(
         }
         write!(
             w,
-            "{{\"member\":{},\"live_case\":{},\"dead\":{},\"live_with_impact\":{},\"capacity\":{},\"inventory\":{},\"operating\":{}}}",
+            "{{\"member\":{},\"live_case\":{},\"dead\":{},\"live_with_impact\":{},\"capacity\":{},\"inventory\":{},\"operating\":{},\"position\":{}}}",
             string(&model.members[r.member].id),
-            string(&model.cases[r.live_case].id),
+            string(&r.live_id),
             num(r.dead / s.force),
             num(r.live / s.force),
             num(r.capacity / s.force),
             opt(r.inventory),
-            opt(r.operating)
+            opt(r.operating),
+            r.at.as_ref().map_or("null".into(), |a| string(a))
         )?;
     }
     w.write_all(b"],\"lowest_rating\":")?;
@@ -95,7 +96,7 @@ pub fn rate(
                 w,
                 "{{\"member\":{},\"live_case\":{},\"inventory\":{},\"operating\":{}}}",
                 string(&model.members[r.member].id),
-                string(&model.cases[r.live_case].id),
+                string(&r.live_id),
                 opt(r.inventory),
                 opt(r.operating)
             )?;

@@ -52,11 +52,12 @@ pub fn rate(
         let r = &rating.ratings[i];
         writeln!(
             w,
-            "Lowest rating factor: {} (inventory), {} (operating) — member {} for live case \"{}\"",
+            "Lowest rating factor: {} (inventory), {} (operating) — member {} for live load \"{}\"{}",
             opt(r.inventory, 3),
             opt(r.operating, 3),
             model.members[r.member].id,
-            model.cases[r.live_case].id
+            r.live_id,
+            r.at.as_ref().map_or(String::new(), |a| format!(", {a}"))
         )?;
     } else {
         writeln!(
@@ -137,7 +138,7 @@ pub fn rate(
             let r = &rating.ratings[i];
             t.row(vec![
                 model.members[r.member].id.clone(),
-                model.cases[r.live_case].id.clone(),
+                r.live_id.clone(),
                 sig(r.dead / s.force, 4),
                 sig(r.live / s.force, 4),
                 sig(r.capacity / s.force, 4),
