@@ -120,6 +120,8 @@ pub fn choose_curve(model: &Model, cli: Option<&str>) -> Result<Curve, String> {
 }
 
 /// Check every member under every case and combination, and rate it.
+// Members, dead forces and envelopes are parallel arrays indexed by member.
+#[allow(clippy::needless_range_loop)]
 pub fn rate(model: &Model, analysis: &Analysis, curve: Curve) -> Result<Rating, RateError> {
     let members = (0..model.members.len())
         .map(|m| member_capacity(model, m, &curve))
