@@ -46,6 +46,9 @@ pub struct CaseResult {
     /// Sum of applied loads and of reactions, N (they should cancel).
     pub load_sum: [f64; 2],
     pub reaction_sum: [f64; 2],
+    /// The force scale of the case, N: the largest applied load, member
+    /// force or imposed-elongation force. Values far below it are round-off.
+    pub force_scale: f64,
 }
 
 /// A model made ready to solve: DOFs, stiffness, factorization.
@@ -279,6 +282,7 @@ impl Prepared {
             relative_residual: relative,
             load_sum,
             reaction_sum,
+            force_scale: largest,
         })
     }
 }

@@ -71,7 +71,9 @@ pub fn solve(
             &format!("stress {}", s.stress_name),
             "sense",
         ]);
-        let fmax = largest(case.forces.iter());
+        // Round-off is judged against the case's own force scale, so a case
+        // whose forces are all zero (a determinate truss warmed evenly) prints zeros.
+        let fmax = case.force_scale.max(largest(case.forces.iter()) * 1e-300);
         for (m, (mem, f)) in model.members.iter().zip(&case.forces).enumerate() {
             let area = model.sections[mem.section].area;
             let sense = if f.abs() <= 1e-10 * fmax {
