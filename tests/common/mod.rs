@@ -21,9 +21,13 @@ pub fn run(args: &[&str]) -> (i32, String, String) {
     )
 }
 
-/// Write `text` to a fresh temporary file and return its path.
+/// Write `text` to a fresh temporary file and return its path. Each call
+/// gets its own folder, so tests running in parallel never share a file.
 pub fn temp_model(name: &str, text: &str) -> std::path::PathBuf {
-    let dir = std::env::temp_dir().join(format!("panelpoint-tests-{}", std::process::id()));
+    use std::sync::atomic::{AtomicUsize, Ordering};
+    static NEXT: AtomicUsize = AtomicUsize::new(0);
+    let n = NEXT.fetch_add(1, Ordering::Relaxed);
+    let dir = std::env::temp_dir().join(format!("panelpoint-tests-{}-{n}", std::process::id()));
     std::fs::create_dir_all(&dir).unwrap();
     let path = dir.join(name);
     std::fs::write(&path, text).unwrap();
