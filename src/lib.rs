@@ -18,4 +18,6 @@ pub mod model;
 pub mod rate;
 pub mod report;
 pub mod section;
+pub mod sensitivity;
+pub mod sweep;
 pub mod units;

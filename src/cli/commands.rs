@@ -9,7 +9,7 @@ use crate::report::{self, atomic::write_output, Format};
 use std::io::Write;
 use std::path::{Path, PathBuf};
 
-fn format(f: FormatArg) -> Format {
+pub(super) fn format(f: FormatArg) -> Format {
     match f {
         FormatArg::Text => Format::Text,
         FormatArg::Json => Format::Json,
@@ -42,7 +42,7 @@ pub fn load(path: &Path) -> Result<Converted, Error> {
     })
 }
 
-fn write(
+pub(super) fn write(
     out: &Option<PathBuf>,
     body: impl FnOnce(&mut dyn Write) -> std::io::Result<()>,
 ) -> Result<(), Error> {
@@ -119,5 +119,58 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             })?;
             Ok(0)
         }
+        Command::New {
+            family,
+            panels,
+            panel_width,
+            span,
+            height,
+            panel_load,
+            units,
+            top_heights,
+            out,
+        } => super::whatif::new(super::whatif::NewArgs {
+            family,
+            panels,
+            panel_width,
+            span,
+            height,
+            panel_load,
+            units,
+            top_heights,
+            out,
+        }),
+        Command::Sweep {
+            model,
+            sweep,
+            jobs,
+            shard,
+            curve,
+            format: f,
+            out,
+            detail,
+        } => super::whatif::sweep(super::whatif::SweepArgs {
+            model,
+            sweep,
+            jobs,
+            shard,
+            curve,
+            format: format(f),
+            out,
+            detail,
+        }),
+        Command::Redundancy {
+            model,
+            curve,
+            format: f,
+            out,
+        } => super::whatif::redundancy(&model, curve.as_deref(), format(f), &out),
+        Command::Sensitivity {
+            model,
+            case,
+            curve,
+            format: f,
+            out,
+        } => super::whatif::sensitivity(&model, case.as_deref(), curve.as_deref(), format(f), &out),
     }
 }

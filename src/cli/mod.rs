@@ -4,6 +4,7 @@
 
 mod args;
 mod commands;
+mod whatif;
 
 pub use args::Cli;
 pub use commands::run;

@@ -2,7 +2,7 @@
 //! combination as the linear sum of its factored cases (live cases with
 //! their impact allowance, 1.25·DC + 1.75·(LL + IM) style).
 
-use crate::analysis::Analysis;
+use crate::analysis::{Analysis, CaseResult};
 use crate::model::{CaseKind, Model};
 
 /// Member forces of one load case or combination, N.
@@ -15,10 +15,16 @@ pub struct LoadEffect {
 }
 
 pub fn load_effects(model: &Model, analysis: &Analysis) -> Vec<LoadEffect> {
+    load_effects_of(model, &analysis.cases)
+}
+
+/// As [`load_effects`], from the case results alone.
+pub fn load_effects_of(model: &Model, results: &[CaseResult]) -> Vec<LoadEffect> {
+    let analysis_cases = results;
     let mut out: Vec<LoadEffect> = model
         .cases
         .iter()
-        .zip(&analysis.cases)
+        .zip(analysis_cases)
         .enumerate()
         .map(|(i, (c, r))| LoadEffect {
             id: c.id.clone(),
@@ -35,7 +41,7 @@ pub fn load_effects(model: &Model, analysis: &Analysis) -> Vec<LoadEffect> {
             } else {
                 factor
             };
-            for (acc, v) in forces.iter_mut().zip(&analysis.cases[ci].forces) {
+            for (acc, v) in forces.iter_mut().zip(&analysis_cases[ci].forces) {
                 *acc += f * v;
             }
         }

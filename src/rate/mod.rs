@@ -12,7 +12,7 @@ mod combine;
 pub use checks::{member_capacity, Axis, MemberCapacity};
 pub use combine::{load_effects, LoadEffect};
 
-use crate::analysis::Analysis;
+use crate::analysis::{Analysis, CaseResult};
 use crate::capacity::{self, Curve, Regime};
 use crate::model::{CaseKind, Model};
 
@@ -100,16 +100,26 @@ pub fn choose_curve(model: &Model, cli: Option<&str>) -> Result<Curve, String> {
 
 /// Check every member under every case and combination, and rate it.
 pub fn rate(model: &Model, analysis: &Analysis, curve: Curve) -> Result<Rating, RateError> {
+    rate_results(model, &analysis.cases, curve)
+}
+
+/// As [`rate`], from the case results alone (one per `model.cases`), for
+/// callers that solved many variants on one factorization.
+pub fn rate_results(
+    model: &Model,
+    results: &[CaseResult],
+    curve: Curve,
+) -> Result<Rating, RateError> {
     let members = (0..model.members.len())
         .map(|m| member_capacity(model, m, &curve))
         .collect::<Result<Vec<_>, _>>()?;
-    let effects = load_effects(model, analysis);
+    let effects = combine::load_effects_of(model, results);
     let dead: Vec<f64> = (0..model.members.len())
         .map(|m| {
             model
                 .cases
                 .iter()
-                .zip(&analysis.cases)
+                .zip(results)
                 .filter(|(c, _)| c.kind == CaseKind::Dead)
                 .map(|(_, r)| r.forces[m])
                 .sum()
@@ -126,7 +136,7 @@ pub fn rate(model: &Model, analysis: &Analysis, curve: Curve) -> Result<Rating, 
             continue;
         }
         for (m, cap) in members.iter().enumerate() {
-            let live = analysis.cases[ci].forces[m] * (1.0 + case.impact);
+            let live = results[ci].forces[m] * (1.0 + case.impact);
             let (ct, cc) = (phi * cap.tension_capacity, phi * cap.compression.capacity);
             let level = |g: crate::model::Level| {
                 capacity::member_rating(ct, cc, dead[m], live, g.gamma_dead, g.gamma_live)

@@ -12,6 +12,7 @@ pub mod rate_text;
 pub mod section_svg;
 pub mod table;
 pub mod text;
+pub mod whatif;
 
 use crate::model::Model;
 
