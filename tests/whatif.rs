@@ -519,3 +519,36 @@ fn sensitivity_of_a_buckling_check_matches_finite_differences() {
     assert!(c.force < 0.0, "a compression check must govern");
     check_against_finite_differences(&text);
 }
+
+#[test]
+fn sweep_json_parses_and_a_failed_run_keeps_the_old_file() {
+    let model = temp_model("json-model.ron", MILLRACE);
+    let sw = temp_model("json-sweep.ron", MILLRACE_SWEEP);
+    let (code, out, err) = run(&[
+        "sweep",
+        model.to_str().unwrap(),
+        sw.to_str().unwrap(),
+        "--format",
+        "json",
+        "--detail",
+    ]);
+    assert_eq!(code, 0, "{err}");
+    let v: serde_json::Value = serde_json::from_str(&out).unwrap();
+    let rows = v["variants"].as_array().unwrap();
+    // 1 base + 6 listed + 5 × 4 × 2 product variants (the sweep file's own count).
+    assert_eq!(rows.len(), 47);
+    assert_eq!(rows[0]["members"].as_array().unwrap().len(), 21);
+    assert!(rows[5]["error"].as_str().unwrap().contains("mechanism"));
+    let target = temp_model("kept.csv", "old contents");
+    let bad = temp_model("bad-sweep.ron", "(variants: [(scale: [(\"nope\", 2.0)])])");
+    let (code, _, err) = run(&[
+        "sweep",
+        model.to_str().unwrap(),
+        bad.to_str().unwrap(),
+        "--out",
+        target.to_str().unwrap(),
+    ]);
+    assert_eq!(code, 2);
+    assert!(err.contains("no load case \"nope\""), "{err}");
+    assert_eq!(std::fs::read_to_string(&target).unwrap(), "old contents");
+}
