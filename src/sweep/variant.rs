@@ -244,3 +244,76 @@ fn check_geometry(m: &Model) -> Result<(), VariantError> {
     }
     Ok(())
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::sweep::{Change, DepthNodes, Variant};
+
+    fn four_panel() -> Model {
+        crate::input::load_str(include_str!("../../tests/data/four_panel.ron"))
+            .unwrap()
+            .model
+    }
+
+    fn with(changes: Vec<Change>) -> Variant {
+        Variant {
+            changes,
+            ..Variant::default()
+        }
+    }
+
+    #[test]
+    fn moves_depth_and_removal() {
+        let m = four_panel();
+        let u2 = node_index(&m, "U2").unwrap();
+        // Absolute x, offset y: U2 stands 16 ft = 4.8768 m high (1 ft = 0.3048 m exactly), + 0.5 m.
+        let v = with(vec![Change::MoveNode {
+            node: "U2".into(),
+            x: Some(10.0),
+            y: None,
+            dx: 0.0,
+            dy: 0.5,
+        }]);
+        let out = apply(&m, &v).unwrap();
+        assert_eq!(out.nodes[u2].x, 10.0);
+        assert!((out.nodes[u2].y - (16.0 * 0.3048 + 0.5)).abs() < 1e-12);
+        // Depth by prefix and above the supports move the same three U nodes here.
+        for nodes in [DepthNodes::Prefix("U".into()), DepthNodes::AboveSupports] {
+            let out = apply(&m, &with(vec![Change::Depth { nodes, dy: 1.0 }])).unwrap();
+            let moved = (0..m.nodes.len())
+                .filter(|&i| out.nodes[i].y != m.nodes[i].y)
+                .count();
+            assert_eq!(moved, 3);
+        }
+        let out = apply(
+            &m,
+            &with(vec![Change::RemoveMember {
+                member: "L2-U2".into(),
+            }]),
+        )
+        .unwrap();
+        assert_eq!(out.members.len(), m.members.len() - 1);
+        assert!(out.members.iter().all(|x| x.id != "L2-U2"));
+        let err = apply(
+            &m,
+            &with(vec![Change::MoveNode {
+                node: "U2".into(),
+                x: Some(36.0 * 0.3048),
+                y: Some(0.0),
+                dx: 0.0,
+                dy: 0.0,
+            }]),
+        )
+        .unwrap_err();
+        assert!(err.to_string().contains("zero length"), "{err}");
+        assert!(apply(
+            &m,
+            &with(vec![Change::ScaleCase {
+                case: "x".into(),
+                factor: 2.0
+            }])
+        )
+        .is_err());
+    }
+}
