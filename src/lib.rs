@@ -19,4 +19,6 @@ pub mod model;
 pub mod rate;
 pub mod report;
 pub mod section;
+pub mod sensitivity;
+pub mod sweep;
 pub mod units;

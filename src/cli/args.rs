@@ -94,6 +94,78 @@ pub enum Command {
         #[arg(long)]
         out: Option<PathBuf>,
     },
+    /// Write a starting model of a truss family (RON) to standard output or a file.
+    New {
+        /// pratt, howe, warren, warren-verticals, polygonal, k-braced.
+        family: String,
+        #[arg(long, default_value_t = 6)]
+        panels: usize,
+        /// Bottom-chord panel length (model length unit).
+        #[arg(long, conflicts_with = "span")]
+        panel_width: Option<f64>,
+        /// Overall span; the panel width is span / panels.
+        #[arg(long)]
+        span: Option<f64>,
+        /// Depth between chord centrelines (polygonal: at mid-span).
+        #[arg(long)]
+        height: f64,
+        /// Downward load at every interior bottom panel point, case "panel".
+        #[arg(long)]
+        panel_load: Option<f64>,
+        /// us (ft, kip, in, ksi) or si (m, kN, mm, MPa).
+        #[arg(long, default_value = "us")]
+        units: String,
+        /// Polygonal only: heights of U1..U(n-1), comma separated.
+        #[arg(long, value_delimiter = ',')]
+        top_heights: Option<Vec<f64>>,
+        /// Write to this file (atomically) instead of standard output.
+        #[arg(short = 'o', long = "out")]
+        out: Option<PathBuf>,
+    },
+    /// Analyse and rate many variants of a model described by a sweep file.
+    Sweep {
+        model: PathBuf,
+        sweep: PathBuf,
+        /// Worker threads (default: one per core).
+        #[arg(long)]
+        jobs: Option<usize>,
+        /// Run only variants whose index % N == I-1.
+        #[arg(long)]
+        shard: Option<String>,
+        #[arg(long)]
+        curve: Option<String>,
+        #[arg(long, value_enum, default_value_t = FormatArg::Text)]
+        format: FormatArg,
+        /// Write rows here as they finish (kept as OUT.partial if interrupted).
+        #[arg(long)]
+        out: Option<PathBuf>,
+        /// Per-member results of every variant.
+        #[arg(long)]
+        detail: bool,
+    },
+    /// Remove each member in turn: mechanism (non-redundant) or the worst utilization after the loss.
+    Redundancy {
+        model: PathBuf,
+        #[arg(long)]
+        curve: Option<String>,
+        #[arg(long, value_enum, default_value_t = FormatArg::Text)]
+        format: FormatArg,
+        #[arg(long)]
+        out: Option<PathBuf>,
+    },
+    /// Derivatives of the governing utilization and largest deflection with respect to node coordinates.
+    Sensitivity {
+        model: PathBuf,
+        /// Differentiate the worst check and deflection of this load case.
+        #[arg(long)]
+        case: Option<String>,
+        #[arg(long)]
+        curve: Option<String>,
+        #[arg(long, value_enum, default_value_t = FormatArg::Text)]
+        format: FormatArg,
+        #[arg(long)]
+        out: Option<PathBuf>,
+    },
 }
 
 #[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]

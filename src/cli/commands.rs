@@ -9,7 +9,7 @@ use crate::report::{self, atomic::write_output, Format};
 use std::io::Write;
 use std::path::{Path, PathBuf};
 
-fn format(f: FormatArg) -> Format {
+pub(super) fn format(f: FormatArg) -> Format {
     match f {
         FormatArg::Text => Format::Text,
         FormatArg::Json => Format::Json,
@@ -177,5 +177,58 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             format: f,
             out,
         } => super::loads::envelope(&model, format(f), &out),
+        Command::New {
+            family,
+            panels,
+            panel_width,
+            span,
+            height,
+            panel_load,
+            units,
+            top_heights,
+            out,
+        } => super::whatif::new(super::whatif::NewArgs {
+            family,
+            panels,
+            panel_width,
+            span,
+            height,
+            panel_load,
+            units,
+            top_heights,
+            out,
+        }),
+        Command::Sweep {
+            model,
+            sweep,
+            jobs,
+            shard,
+            curve,
+            format: f,
+            out,
+            detail,
+        } => super::whatif::sweep(super::whatif::SweepArgs {
+            model,
+            sweep,
+            jobs,
+            shard,
+            curve,
+            format: format(f),
+            out,
+            detail,
+        }),
+        Command::Redundancy {
+            model,
+            curve,
+            format: f,
+            out,
+        } => super::whatif::redundancy(&model, curve.as_deref(), format(f), &out),
+        Command::Sensitivity {
+            model,
+            case,
+            curve,
+            format: f,
+            out,
+        } => super::whatif::sensitivity(&model, case.as_deref(), curve.as_deref(), format(f), &out),
     }
 }

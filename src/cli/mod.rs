@@ -5,6 +5,7 @@
 mod args;
 mod commands;
 mod loads;
+mod whatif;
 
 pub use args::Cli;
 pub use commands::run;

@@ -10,6 +10,7 @@ pub mod quantity;
 pub mod ron_writer;
 pub mod schema;
 mod sections;
+pub mod sweep;
 
 pub use convert::Converted;
 pub use diagnostics::{Diagnostic, Diagnostics, Severity};

@@ -2,7 +2,7 @@
 //! combination as the linear sum of its factored cases (live cases with
 //! their impact allowance, 1.25·DC + 1.75·(LL + IM) style).
 
-use crate::analysis::Analysis;
+use crate::analysis::{Analysis, CaseResult};
 use crate::model::{CaseKind, Model};
 
 /// Member forces of one load case or combination, N.
@@ -33,10 +33,16 @@ impl Side {
 }
 
 pub fn load_effects(model: &Model, analysis: &Analysis) -> Vec<LoadEffect> {
+    load_effects_of(model, &analysis.cases)
+}
+
+/// As [`load_effects`], from the case results alone.
+pub fn load_effects_of(model: &Model, results: &[CaseResult]) -> Vec<LoadEffect> {
+    let analysis_cases = results;
     let mut out: Vec<LoadEffect> = model
         .cases
         .iter()
-        .zip(&analysis.cases)
+        .zip(analysis_cases)
         .enumerate()
         .map(|(i, (c, r))| LoadEffect {
             id: c.id.clone(),
@@ -55,7 +61,7 @@ pub fn load_effects(model: &Model, analysis: &Analysis) -> Vec<LoadEffect> {
             } else {
                 factor
             };
-            for (acc, v) in forces.iter_mut().zip(&analysis.cases[ci].forces) {
+            for (acc, v) in forces.iter_mut().zip(&analysis_cases[ci].forces) {
                 *acc += f * v;
             }
         }
@@ -75,7 +81,7 @@ pub fn load_effects(model: &Model, analysis: &Analysis) -> Vec<LoadEffect> {
 /// combination with that envelope side in place of a case.
 pub fn moving_effects(
     model: &Model,
-    analysis: &Analysis,
+    results: &[CaseResult],
     envelopes: &[crate::loads::MovingEnvelope],
 ) -> Vec<LoadEffect> {
     let mut out = Vec::new();
@@ -115,7 +121,7 @@ pub fn moving_effects(
                     } else {
                         f
                     };
-                    for (acc, v) in forces.iter_mut().zip(&analysis.cases[ci].forces) {
+                    for (acc, v) in forces.iter_mut().zip(&results[ci].forces) {
                         *acc += f * v;
                     }
                 }

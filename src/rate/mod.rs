@@ -12,7 +12,7 @@ mod combine;
 pub use checks::{member_capacity, Axis, LacingEffect, MemberCapacity};
 pub use combine::{load_effects, moving_effects, LoadEffect, Side};
 
-use crate::analysis::Analysis;
+use crate::analysis::{Analysis, CaseResult};
 use crate::capacity::{self, Curve, Regime};
 use crate::model::{CaseKind, Model};
 use crate::section;
@@ -120,27 +120,41 @@ pub fn choose_curve(model: &Model, cli: Option<&str>) -> Result<Curve, String> {
 }
 
 /// Check every member under every case and combination, and rate it.
+pub fn rate(model: &Model, analysis: &Analysis, curve: Curve) -> Result<Rating, RateError> {
+    let envelopes = moving_envelopes(model, &analysis.prepared)?;
+    rate_results(model, &analysis.cases, curve, &envelopes)
+}
+
+/// The moving-load envelopes of a model (none when it has no moving loads).
+pub fn moving_envelopes(
+    model: &Model,
+    prepared: &crate::analysis::results::Prepared,
+) -> Result<Vec<crate::loads::MovingEnvelope>, RateError> {
+    if model.live.moving.is_empty() {
+        Ok(Vec::new())
+    } else {
+        Ok(crate::loads::envelopes(model, prepared)?)
+    }
+}
+
+/// As [`rate`], from the case results alone (one per `model.cases`), for
+/// callers that solved many variants on one factorization.
 // Members, dead forces and envelopes are parallel arrays indexed by member.
 #[allow(clippy::needless_range_loop)]
-pub fn rate(model: &Model, analysis: &Analysis, curve: Curve) -> Result<Rating, RateError> {
+pub fn rate_results(
+    model: &Model,
+    results: &[CaseResult],
+    curve: Curve,
+    envelopes: &[crate::loads::MovingEnvelope],
+) -> Result<Rating, RateError> {
     let members = (0..model.members.len())
         .map(|m| member_capacity(model, m, &curve))
         .collect::<Result<Vec<_>, _>>()?;
-    let mut effects = load_effects(model, analysis);
-    let envelopes = if model.live.moving.is_empty() {
-        Vec::new()
-    } else {
-        crate::loads::envelopes(model, &analysis.prepared)?
-    };
-    effects.extend(moving_effects(model, analysis, &envelopes));
+    let mut effects = combine::load_effects_of(model, results);
+    effects.extend(moving_effects(model, results, envelopes));
     let dead_cases = model.dead_cases();
     let dead: Vec<f64> = (0..model.members.len())
-        .map(|m| {
-            dead_cases
-                .iter()
-                .map(|&c| analysis.cases[c].forces[m])
-                .sum()
-        })
+        .map(|m| dead_cases.iter().map(|&c| results[c].forces[m]).sum())
         .collect();
     let phi = model.rating.condition_factor * model.rating.system_factor;
     let s = &model.rating;
@@ -174,7 +188,7 @@ pub fn rate(model: &Model, analysis: &Analysis, curve: Curve) -> Result<Rating, 
         }
         let ei = effects.iter().position(|e| e.case == Some(ci)).unwrap_or(0);
         for m in 0..members.len() {
-            let live = analysis.cases[ci].forces[m] * (1.0 + case.impact);
+            let live = results[ci].forces[m] * (1.0 + case.impact);
             let (inventory, operating, capacity) = rf(m, live);
             rf_of.insert((m, ei), inventory);
             ratings.push(MemberRating {

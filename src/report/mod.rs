@@ -16,6 +16,7 @@ pub mod section_svg;
 pub mod sections;
 pub mod table;
 pub mod text;
+pub mod whatif;
 
 use crate::model::Model;
 

@@ -31,11 +31,16 @@ pub fn temp_model(name: &str, text: &str) -> std::path::PathBuf {
     std::fs::create_dir_all(&dir).unwrap();
     let path = dir.join(name);
     std::fs::write(&path, text).unwrap();
+    // Models may name the example vehicles file beside them.
+    let vehicles = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("models/vehicles.ron");
+    std::fs::copy(vehicles, dir.join("vehicles.ron")).unwrap();
     path
 }
 
 pub fn load(text: &str) -> Model {
-    match panelpoint::input::load_str(text) {
+    // Relative files a model names (a vehicles file) are read from models/.
+    let dir = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("models");
+    match panelpoint::input::load_str_in(text, Some(&dir)) {
         Ok(c) => c.model,
         Err(d) => panic!("model did not load:\n{d}"),
     }

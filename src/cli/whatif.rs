@@ -1,0 +1,285 @@
+//! Running the what-if commands: `new`, `sweep`, `redundancy`,
+//! `sensitivity`. The streamed sweep output lives here because it is about
+//! files and terminals, not engineering.
+
+use super::commands::{load, write};
+use crate::analysis;
+use crate::error::Error;
+use crate::generate::{self, Family, GenerateOptions, UnitSystem};
+use crate::input::{self, ron_writer::layout_to_ron};
+use crate::rate;
+use crate::report::{self, Format};
+use crate::sweep::{self, RunOptions};
+use std::fs;
+use std::io::{self, BufWriter, IsTerminal, Write};
+use std::path::{Path, PathBuf};
+use std::time::{Duration, Instant};
+
+pub struct NewArgs {
+    pub family: String,
+    pub panels: usize,
+    pub panel_width: Option<f64>,
+    pub span: Option<f64>,
+    pub height: f64,
+    pub panel_load: Option<f64>,
+    pub units: String,
+    pub top_heights: Option<Vec<f64>>,
+    pub out: Option<PathBuf>,
+}
+
+pub fn new(a: NewArgs) -> Result<u8, Error> {
+    let family = Family::from_name(&a.family).ok_or_else(|| {
+        Error::Usage(format!(
+            "\"{}\" is not a truss family; use one of {}",
+            a.family,
+            Family::names().join(", ")
+        ))
+    })?;
+    let units = match a.units.trim().to_ascii_lowercase().as_str() {
+        "us" => UnitSystem::Us,
+        "si" => UnitSystem::Si,
+        other => {
+            return Err(Error::Usage(format!(
+                "--units \"{other}\": use us (ft, kip) or si (m, kN)"
+            )))
+        }
+    };
+    let panel_width = match (a.panel_width, a.span) {
+        (Some(w), _) => w,
+        (None, Some(s)) if a.panels > 0 => s / a.panels as f64,
+        (None, Some(_)) => 0.0,
+        (None, None) => {
+            return Err(Error::Usage(
+                "give --panel-width W or --span S for the panel length".into(),
+            ))
+        }
+    };
+    let layout = generate::generate(&GenerateOptions {
+        family,
+        panels: a.panels,
+        panel_width,
+        height: a.height,
+        panel_load: a.panel_load,
+        units,
+        top_heights: a.top_heights,
+    })
+    .map_err(|e| Error::Usage(format!("cannot generate: {e}")))?;
+    let text = layout_to_ron(&layout);
+    write(&a.out, |w| w.write_all(text.as_bytes()))?;
+    Ok(0)
+}
+
+pub struct SweepArgs {
+    pub model: PathBuf,
+    pub sweep: PathBuf,
+    pub jobs: Option<usize>,
+    pub shard: Option<String>,
+    pub curve: Option<String>,
+    pub format: Format,
+    pub out: Option<PathBuf>,
+    pub detail: bool,
+}
+
+/// Where streamed rows go: standard output, or `<out>.partial`, renamed
+/// to `<out>` only once the sweep is complete.
+struct Sink {
+    w: BufWriter<Box<dyn Write>>,
+    partial: Option<(PathBuf, PathBuf)>,
+    last_flush: Instant,
+}
+
+/// The name an interrupted sweep's rows are kept under.
+pub fn partial_path(out: &Path) -> PathBuf {
+    let mut name = out.file_name().unwrap_or_default().to_os_string();
+    name.push(".partial");
+    out.with_file_name(name)
+}
+
+impl Sink {
+    fn open(out: &Option<PathBuf>) -> io::Result<Sink> {
+        let (inner, partial): (Box<dyn Write>, _) = match out {
+            None => (Box::new(io::stdout()), None),
+            Some(p) => {
+                let tmp = partial_path(p);
+                (Box::new(fs::File::create(&tmp)?), Some((tmp, p.clone())))
+            }
+        };
+        Ok(Sink {
+            w: BufWriter::with_capacity(1 << 16, inner),
+            partial,
+            last_flush: Instant::now(),
+        })
+    }
+
+    /// Flush at most twice a second, so an interrupted run keeps its rows.
+    fn tick(&mut self) -> io::Result<()> {
+        if self.last_flush.elapsed() > Duration::from_millis(500) {
+            self.w.flush()?;
+            self.last_flush = Instant::now();
+        }
+        Ok(())
+    }
+
+    fn finish(mut self) -> io::Result<()> {
+        self.w.flush()?;
+        if let Some((tmp, target)) = self.partial.take() {
+            drop(self.w);
+            fs::File::open(&tmp)?.sync_all()?;
+            fs::rename(&tmp, &target)?;
+        }
+        Ok(())
+    }
+}
+
+pub fn sweep(a: SweepArgs) -> Result<u8, Error> {
+    let c = load(&a.model)?;
+    let model = &c.model;
+    let curve = rate::choose_curve(model, a.curve.as_deref()).map_err(Error::Usage)?;
+    let text = fs::read_to_string(&a.sweep).map_err(|source| Error::Read {
+        path: a.sweep.clone(),
+        source,
+    })?;
+    let sw = input::sweep::load_sweep(&text, model).map_err(|diagnostics| Error::Model {
+        path: a.sweep.clone(),
+        diagnostics,
+    })?;
+    let shard = a
+        .shard
+        .as_deref()
+        .map(sweep::parse_shard)
+        .transpose()
+        .map_err(Error::Usage)?;
+    if a.jobs == Some(0) {
+        return Err(Error::Usage("--jobs must be at least 1".into()));
+    }
+    let indices = sweep::shard_indices(sw.variants.len(), shard);
+    let opts = RunOptions {
+        curve,
+        jobs: a.jobs,
+        detail: a.detail,
+    };
+    let what = a
+        .out
+        .as_ref()
+        .map_or("standard output".into(), |p| p.display().to_string());
+    let werr = |source: io::Error| Error::Write {
+        what: what.clone(),
+        source,
+    };
+    let mut sink = Sink::open(&a.out).map_err(werr)?;
+    let mut writer = report::whatif::SweepWriter::new(a.format, a.detail, model);
+    let shard_text = shard.map_or(String::new(), |(i, n)| {
+        format!(" (shard {i}/{n}: {} of them)", indices.len())
+    });
+    let progress = (std::io::stderr().is_terminal() && indices.len() >= 50).then(|| {
+        let bar = indicatif::ProgressBar::new(indices.len() as u64);
+        bar.set_style(
+            indicatif::ProgressStyle::with_template(
+                "{bar:40} {pos}/{len} variants, {per_sec}, eta {eta}",
+            )
+            .unwrap_or_else(|_| indicatif::ProgressStyle::default_bar()),
+        );
+        bar
+    });
+    let result = writer
+        .header(&mut sink.w, model, sw.variants.len(), &shard_text)
+        .and_then(|_| {
+            sweep::run(model, &sw, &indices, &opts, |row| {
+                writer.row(&mut sink.w, &row)?;
+                if let Some(p) = &progress {
+                    p.inc(1);
+                }
+                sink.tick()
+            })
+        })
+        .and_then(|_| writer.footer(&mut sink.w));
+    if let Some(p) = progress {
+        p.finish_and_clear();
+    }
+    match result {
+        Ok(()) => {
+            sink.finish().map_err(werr)?;
+            Ok(0)
+        }
+        Err(e) => {
+            let _ = sink.w.flush();
+            let kept = sink.partial.as_ref().map_or(String::new(), |(p, _)| {
+                format!("; rows so far kept in {}", p.display())
+            });
+            Err(Error::Write {
+                what: format!("{what}{kept}"),
+                source: e,
+            })
+        }
+    }
+}
+
+fn analysed(
+    path: &Path,
+    curve: Option<&str>,
+) -> Result<(input::Converted, analysis::Analysis, rate::Rating), Error> {
+    let c = load(path)?;
+    let m = &c.model;
+    let chosen = rate::choose_curve(m, curve).map_err(Error::Usage)?;
+    let a = analysis::analyse(m).map_err(|source| Error::Analysis {
+        path: path.to_path_buf(),
+        source,
+    })?;
+    let r = rate::rate(m, &a, chosen).map_err(|e| Error::Rate {
+        path: path.to_path_buf(),
+        source: e,
+    })?;
+    Ok((c, a, r))
+}
+
+pub fn redundancy(
+    path: &Path,
+    curve: Option<&str>,
+    format: Format,
+    out: &Option<PathBuf>,
+) -> Result<u8, Error> {
+    let (c, a, r) = analysed(path, curve)?;
+    let opts = RunOptions {
+        curve: r.curve,
+        jobs: None,
+        detail: false,
+    };
+    let losses = sweep::redundancy::scan(&c.model, &a, &opts)
+        .map_err(|e| Error::Usage(format!("{}: {e}", path.display())))?;
+    write(out, |w| {
+        report::whatif::redundancy(w, &c.model, &losses, format)
+    })?;
+    Ok(0)
+}
+
+pub fn sensitivity(
+    path: &Path,
+    case: Option<&str>,
+    curve: Option<&str>,
+    format: Format,
+    out: &Option<PathBuf>,
+) -> Result<u8, Error> {
+    let (c, a, r) = analysed(path, curve)?;
+    let m = &c.model;
+    let case = match case {
+        None => None,
+        Some(id) => Some(m.cases.iter().position(|x| x.id == id).ok_or_else(|| {
+            Error::Usage(format!(
+                "{}: --case \"{id}\": no such load case (cases: {})",
+                path.display(),
+                m.cases
+                    .iter()
+                    .map(|x| x.id.as_str())
+                    .collect::<Vec<_>>()
+                    .join(", ")
+            ))
+        })?),
+    };
+    let s = crate::sensitivity::sensitivity(m, &a, &r, case)
+        .map_err(|e| Error::Usage(format!("{}: {e}", path.display())))?;
+    let effect = r.effects[s.effect].id.clone();
+    write(out, |w| {
+        report::whatif::sensitivity(w, m, &s, &effect, format)
+    })?;
+    Ok(0)
+}

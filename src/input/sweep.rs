@@ -1,0 +1,532 @@
+//! Reading a sweep file (RON; schema in docs/sweeps.md): variants as a
+//! list and as the cartesian product of axes, every number converted to SI
+//! with the model's units and every id checked against the model, so a
+//! typo is reported before anything is analysed.
+
+use super::diagnostics::{Diagnostic, Diagnostics, Severity};
+use super::quantity::Quantity;
+use super::schema::{CaseKindFile, NodalLoadFile};
+use crate::model::{CaseKind, Model};
+use crate::sweep::{AddedCase, Change, DepthNodes, MaterialProps, SectionProps, Sweep, Variant};
+use crate::units::Dimension;
+use serde::Deserialize;
+
+/// Largest number of variants a sweep file may expand to.
+pub const MAX_VARIANTS: usize = 1_000_000;
+
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct SweepFile {
+    /// The model the sweep was written for (informational).
+    #[serde(default)]
+    pub model: Option<String>,
+    /// Run the unchanged model first, as variant 0 (default true).
+    #[serde(default)]
+    pub include_base: Option<bool>,
+    #[serde(default)]
+    pub variants: Vec<ChangesFile>,
+    #[serde(default)]
+    pub axes: Vec<AxisFile>,
+}
+
+#[derive(Debug, Deserialize, Default)]
+#[serde(deny_unknown_fields)]
+pub struct ChangesFile {
+    #[serde(default)]
+    pub name: Option<String>,
+    /// `[("crowd", 1.25)]`: multiply a case's loads.
+    #[serde(default)]
+    pub scale: Vec<(String, f64)>,
+    #[serde(default)]
+    pub add_cases: Vec<AddCaseFile>,
+    #[serde(default)]
+    pub moves: Vec<MoveFile>,
+    #[serde(default)]
+    pub depth: Option<DepthFile>,
+    /// `[("U1-L2", "post")]`: member → existing section.
+    #[serde(default)]
+    pub sections: Vec<(String, String)>,
+    /// `[("U1-L2", "new-steel")]`: member → existing material.
+    #[serde(default)]
+    pub materials: Vec<(String, String)>,
+    #[serde(default)]
+    pub section_properties: Vec<SectionPropsFile>,
+    #[serde(default)]
+    pub material_properties: Vec<MaterialPropsFile>,
+    /// Member ids to remove.
+    #[serde(default)]
+    pub remove: Vec<String>,
+}
+
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct AddCaseFile {
+    pub id: String,
+    #[serde(default)]
+    pub kind: Option<CaseKindFile>,
+    #[serde(default)]
+    pub impact: Option<f64>,
+    #[serde(default)]
+    pub loads: Vec<NodalLoadFile>,
+}
+
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct MoveFile {
+    pub node: String,
+    #[serde(default)]
+    pub x: Option<Quantity>,
+    #[serde(default)]
+    pub y: Option<Quantity>,
+    #[serde(default)]
+    pub dx: Option<Quantity>,
+    #[serde(default)]
+    pub dy: Option<Quantity>,
+}
+
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct DepthFile {
+    pub dy: Quantity,
+    /// Move nodes whose id starts with this (default "U").
+    #[serde(default)]
+    pub prefix: Option<String>,
+    /// Move every node above the lowest support instead.
+    #[serde(default)]
+    pub above_supports: Option<bool>,
+}
+
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct SectionPropsFile {
+    pub section: String,
+    #[serde(default)]
+    pub area: Option<Quantity>,
+    #[serde(default)]
+    pub i_in: Option<Quantity>,
+    #[serde(default)]
+    pub i_out: Option<Quantity>,
+    #[serde(default)]
+    pub net_area: Option<Quantity>,
+}
+
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct MaterialPropsFile {
+    pub material: String,
+    #[serde(default)]
+    pub e: Option<Quantity>,
+    #[serde(default)]
+    pub fy: Option<Quantity>,
+    #[serde(default)]
+    pub fu: Option<Quantity>,
+}
+
+/// One axis of the cartesian product: general `steps`, or the shorthands
+/// `scale: "case"` / `depth: "U"` (or `"above-supports"`) with `values`.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct AxisFile {
+    pub name: String,
+    #[serde(default)]
+    pub steps: Vec<ChangesFile>,
+    #[serde(default)]
+    pub scale: Option<String>,
+    #[serde(default)]
+    pub depth: Option<String>,
+    #[serde(default)]
+    pub values: Vec<Quantity>,
+}
+
+struct Ctx<'a> {
+    model: &'a Model,
+    errors: Vec<Diagnostic>,
+}
+
+impl Ctx<'_> {
+    fn error(&mut self, message: String) {
+        if self.errors.len() < 200 {
+            self.errors.push(Diagnostic {
+                severity: Severity::Error,
+                message,
+                location: None,
+            });
+        }
+    }
+
+    fn si(&mut self, q: &Quantity, dim: Dimension, what: &str) -> f64 {
+        match q.to_si(dim, self.model.units.factor_for(dim)) {
+            Ok(v) => v,
+            Err(e) => {
+                self.error(format!("{what}: {e}"));
+                0.0
+            }
+        }
+    }
+
+    fn opt(&mut self, q: &Option<Quantity>, dim: Dimension, what: &str) -> Option<f64> {
+        q.as_ref().map(|q| self.si(q, dim, what))
+    }
+
+    fn has(&mut self, what: &str, id: &str, known: bool, at: &str) {
+        if !known {
+            self.error(format!("{at}: no {what} \"{id}\" in the model"));
+        }
+    }
+
+    fn node(&mut self, id: &str, at: &str) {
+        let k = self.model.nodes.iter().any(|n| n.id == id);
+        self.has("node", id, k, at);
+    }
+    fn member(&mut self, id: &str, at: &str) {
+        let k = self.model.members.iter().any(|n| n.id == id);
+        self.has("member", id, k, at);
+    }
+    fn section(&mut self, id: &str, at: &str) {
+        let k = self.model.sections.iter().any(|n| n.id == id);
+        self.has("section", id, k, at);
+    }
+    fn material(&mut self, id: &str, at: &str) {
+        let k = self.model.materials.iter().any(|n| n.id == id);
+        self.has("material", id, k, at);
+    }
+    fn case(&mut self, id: &str, at: &str) {
+        let k = self.model.cases.iter().any(|n| n.id == id);
+        self.has("load case", id, k, at);
+    }
+}
+
+fn kind(k: Option<CaseKindFile>) -> CaseKind {
+    match k {
+        Some(CaseKindFile::Dead) => CaseKind::Dead,
+        Some(CaseKindFile::Live) => CaseKind::Live,
+        _ => CaseKind::Other,
+    }
+}
+
+fn show(q: &Option<Quantity>) -> Option<String> {
+    q.as_ref().map(|q| q.show().trim_matches('"').to_string())
+}
+
+/// The changes of one list entry or axis step, with a description of each.
+fn changes(ctx: &mut Ctx, f: &ChangesFile, at: &str) -> (Vec<Change>, Vec<(String, String)>) {
+    let mut out = Vec::new();
+    let mut params = Vec::new();
+    for (case, factor) in &f.scale {
+        ctx.case(case, at);
+        if !factor.is_finite() {
+            ctx.error(format!("{at}: scale factor of \"{case}\" is not finite"));
+        }
+        out.push(Change::ScaleCase {
+            case: case.clone(),
+            factor: *factor,
+        });
+        params.push((format!("scale {case}"), format!("{factor}")));
+    }
+    for add in &f.add_cases {
+        let mut loads = Vec::new();
+        for l in &add.loads {
+            ctx.node(&l.node, at);
+            let w = format!("{at}: added case \"{}\" at \"{}\"", add.id, l.node);
+            let fx = ctx.opt(&l.fx, Dimension::Force, &w).unwrap_or(0.0);
+            let fy = ctx.opt(&l.fy, Dimension::Force, &w).unwrap_or(0.0);
+            loads.push((l.node.clone(), fx, fy));
+        }
+        if let Some(i) = add.impact {
+            if !(i.is_finite() && i >= 0.0) {
+                ctx.error(format!("{at}: impact of \"{}\" must be ≥ 0", add.id));
+            }
+        }
+        out.push(Change::AddCase(AddedCase {
+            id: add.id.clone(),
+            kind: kind(add.kind),
+            impact: add.impact.unwrap_or(0.0),
+            loads,
+        }));
+        params.push(("add case".into(), add.id.clone()));
+    }
+    for mv in &f.moves {
+        ctx.node(&mv.node, at);
+        let w = format!("{at}: move of \"{}\"", mv.node);
+        let x = ctx.opt(&mv.x, Dimension::Length, &w);
+        let y = ctx.opt(&mv.y, Dimension::Length, &w);
+        let dx = ctx.opt(&mv.dx, Dimension::Length, &w).unwrap_or(0.0);
+        let dy = ctx.opt(&mv.dy, Dimension::Length, &w).unwrap_or(0.0);
+        let text: Vec<String> = [
+            ("x", show(&mv.x)),
+            ("y", show(&mv.y)),
+            ("dx", show(&mv.dx)),
+            ("dy", show(&mv.dy)),
+        ]
+        .into_iter()
+        .filter_map(|(k, v)| v.map(|v| format!("{k} {v}")))
+        .collect();
+        out.push(Change::MoveNode {
+            node: mv.node.clone(),
+            x,
+            y,
+            dx,
+            dy,
+        });
+        params.push((format!("move {}", mv.node), text.join(" ")));
+    }
+    if let Some(d) = &f.depth {
+        let dy = ctx.si(&d.dy, Dimension::Length, &format!("{at}: depth dy"));
+        let nodes = if d.above_supports == Some(true) {
+            DepthNodes::AboveSupports
+        } else {
+            DepthNodes::Prefix(d.prefix.clone().unwrap_or_else(|| "U".into()))
+        };
+        out.push(Change::Depth { nodes, dy });
+        params.push((
+            "depth".into(),
+            format!("+{}", d.dy.show().trim_matches('"')),
+        ));
+    }
+    for (member, section) in &f.sections {
+        ctx.member(member, at);
+        ctx.section(section, at);
+        out.push(Change::MemberSection {
+            member: member.clone(),
+            section: section.clone(),
+        });
+        params.push((format!("section {member}"), section.clone()));
+    }
+    for (member, material) in &f.materials {
+        ctx.member(member, at);
+        ctx.material(material, at);
+        out.push(Change::MemberMaterial {
+            member: member.clone(),
+            material: material.clone(),
+        });
+        params.push((format!("material {member}"), material.clone()));
+    }
+    for s in &f.section_properties {
+        ctx.section(&s.section, at);
+        let w = format!("{at}: section \"{}\"", s.section);
+        let props = SectionProps {
+            area: ctx.opt(&s.area, Dimension::Area, &w),
+            i_in: ctx.opt(&s.i_in, Dimension::SecondMoment, &w),
+            i_out: ctx.opt(&s.i_out, Dimension::SecondMoment, &w),
+            net_area: ctx.opt(&s.net_area, Dimension::Area, &w),
+        };
+        let text: Vec<String> = [
+            ("area", show(&s.area)),
+            ("i_in", show(&s.i_in)),
+            ("i_out", show(&s.i_out)),
+            ("net_area", show(&s.net_area)),
+        ]
+        .into_iter()
+        .filter_map(|(k, v)| v.map(|v| format!("{k} {v}")))
+        .collect();
+        out.push(Change::SectionProperties {
+            section: s.section.clone(),
+            props,
+        });
+        params.push((format!("props {}", s.section), text.join(" ")));
+    }
+    for m in &f.material_properties {
+        ctx.material(&m.material, at);
+        let w = format!("{at}: material \"{}\"", m.material);
+        let props = MaterialProps {
+            e: ctx.opt(&m.e, Dimension::Stress, &w),
+            fy: ctx.opt(&m.fy, Dimension::Stress, &w),
+            fu: ctx.opt(&m.fu, Dimension::Stress, &w),
+        };
+        let text: Vec<String> = [("e", show(&m.e)), ("fy", show(&m.fy)), ("fu", show(&m.fu))]
+            .into_iter()
+            .filter_map(|(k, v)| v.map(|v| format!("{k} {v}")))
+            .collect();
+        out.push(Change::MaterialProperties {
+            material: m.material.clone(),
+            props,
+        });
+        params.push((format!("props {}", m.material), text.join(" ")));
+    }
+    for member in &f.remove {
+        ctx.member(member, at);
+        out.push(Change::RemoveMember {
+            member: member.clone(),
+        });
+        params.push(("remove".into(), member.clone()));
+    }
+    (out, params)
+}
+
+/// The steps of one axis: (label, changes).
+fn axis_steps(ctx: &mut Ctx, a: &AxisFile) -> Vec<(String, Vec<Change>)> {
+    let at = format!("axis \"{}\"", a.name);
+    let forms = [!a.steps.is_empty(), a.scale.is_some(), a.depth.is_some()]
+        .iter()
+        .filter(|b| **b)
+        .count();
+    if forms != 1 {
+        ctx.error(format!(
+            "{at}: give exactly one of steps, scale (with values) or depth (with values)"
+        ));
+        return vec![];
+    }
+    if !a.steps.is_empty() {
+        if !a.values.is_empty() {
+            ctx.error(format!(
+                "{at}: values go with scale or depth, not with steps"
+            ));
+        }
+        return a
+            .steps
+            .iter()
+            .enumerate()
+            .map(|(i, s)| {
+                let (c, p) = changes(ctx, s, &format!("{at} step {}", i + 1));
+                let label = s.name.clone().unwrap_or_else(|| {
+                    if p.is_empty() {
+                        "base".into()
+                    } else {
+                        p.iter()
+                            .map(|(k, v)| format!("{k} {v}"))
+                            .collect::<Vec<_>>()
+                            .join(", ")
+                    }
+                });
+                (label, c)
+            })
+            .collect();
+    }
+    if a.values.is_empty() {
+        ctx.error(format!("{at}: values is empty"));
+        return vec![];
+    }
+    if let Some(case) = &a.scale {
+        ctx.case(case, &at);
+        return a
+            .values
+            .iter()
+            .map(|v| {
+                let f = match v {
+                    Quantity::Number(f) if f.is_finite() => *f,
+                    other => {
+                        ctx.error(format!(
+                            "{at}: scale factor {} must be a plain number",
+                            other.show()
+                        ));
+                        1.0
+                    }
+                };
+                let change = Change::ScaleCase {
+                    case: case.clone(),
+                    factor: f,
+                };
+                (v.show().trim_matches('"').to_string(), vec![change])
+            })
+            .collect();
+    }
+    let prefix = a.depth.clone().unwrap_or_default();
+    let nodes = if prefix == "above-supports" {
+        DepthNodes::AboveSupports
+    } else {
+        DepthNodes::Prefix(prefix)
+    };
+    a.values
+        .iter()
+        .map(|v| {
+            let dy = ctx.si(v, Dimension::Length, &at);
+            let change = Change::Depth {
+                nodes: nodes.clone(),
+                dy,
+            };
+            (v.show().trim_matches('"').to_string(), vec![change])
+        })
+        .collect()
+}
+
+/// Parse and check sweep text against `model`.
+pub fn load_sweep(text: &str, model: &Model) -> Result<Sweep, Diagnostics> {
+    let options = ron::Options::default()
+        .with_default_extension(ron::extensions::Extensions::IMPLICIT_SOME)
+        .with_recursion_limit(64);
+    let file: SweepFile = options.from_str(text).map_err(|e| Diagnostics {
+        errors: vec![Diagnostic {
+            severity: Severity::Error,
+            message: format!("syntax: {}", e.code),
+            location: Some((e.span.start.line, e.span.start.col)),
+        }],
+    })?;
+    let mut ctx = Ctx {
+        model,
+        errors: Vec::new(),
+    };
+    let mut sweep = Sweep::default();
+    if file.include_base.unwrap_or(true) {
+        sweep.variants.push(Variant {
+            name: "base".into(),
+            parameters: vec![],
+            changes: vec![],
+        });
+    }
+    for (i, v) in file.variants.iter().enumerate() {
+        let name = v
+            .name
+            .clone()
+            .unwrap_or_else(|| format!("variant {}", i + 1));
+        let (changes, parameters) = changes(&mut ctx, v, &format!("variant \"{name}\""));
+        sweep.variants.push(Variant {
+            name,
+            parameters,
+            changes,
+        });
+    }
+    if !file.axes.is_empty() {
+        let axes: Vec<Axis> = file
+            .axes
+            .iter()
+            .map(|a| (a.name.clone(), axis_steps(&mut ctx, a)))
+            .collect();
+        let total = axes
+            .iter()
+            .try_fold(1usize, |acc, (_, s)| acc.checked_mul(s.len()))
+            .filter(|&t| t <= MAX_VARIANTS);
+        match total {
+            None => ctx.error(format!(
+                "the axes expand to more than {MAX_VARIANTS} variants; split the sweep"
+            )),
+            Some(_) if ctx.errors.is_empty() => product(&axes, &mut sweep),
+            Some(_) => {}
+        }
+    }
+    if sweep.variants.is_empty() {
+        ctx.error("the sweep has no variants (give variants or axes)".into());
+    }
+    if ctx.errors.is_empty() {
+        Ok(sweep)
+    } else {
+        Err(Diagnostics { errors: ctx.errors })
+    }
+}
+
+/// An axis: its name and its steps (label, changes).
+type Axis = (String, Vec<(String, Vec<Change>)>);
+
+/// Every combination of axis steps, the last axis varying fastest.
+fn product(axes: &[Axis], sweep: &mut Sweep) {
+    let total: usize = axes.iter().map(|(_, s)| s.len()).product();
+    for mut k in 0..total {
+        let mut pick = vec![0; axes.len()];
+        for (a, (_, steps)) in axes.iter().enumerate().rev() {
+            pick[a] = k % steps.len();
+            k /= steps.len();
+        }
+        let mut v = Variant::default();
+        for (a, (name, steps)) in axes.iter().enumerate() {
+            let (label, changes) = &steps[pick[a]];
+            v.parameters.push((name.clone(), label.clone()));
+            v.changes.extend(changes.iter().cloned());
+        }
+        v.name = v
+            .parameters
+            .iter()
+            .map(|(_, l)| l.as_str())
+            .collect::<Vec<_>>()
+            .join(" / ");
+        sweep.variants.push(v);
+    }
+}
