@@ -4,13 +4,16 @@
 
 pub mod atomic;
 pub mod csv;
+pub mod html;
 pub mod json;
 pub mod rate_csv;
 pub mod rate_json;
 pub mod rate_rows;
 pub mod rate_text;
 pub mod section_svg;
+pub mod svg;
 pub mod table;
+pub mod term;
 pub mod text;
 
 use crate::model::Model;
