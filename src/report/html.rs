@@ -29,6 +29,7 @@ h3 { font-size: 15.5px; margin: 22px 0 6px; }
 .meta { color: #3d4653; margin: 2px 0; }
 nav ol { columns: 2; margin: 6px 0; }
 nav a, a { color: var(--accent); }
+.wide { overflow-x: auto; max-width: 100%; }
 table { border-collapse: collapse; margin: 6px 0 12px; font-size: 12.5px; }
 th, td { border: 1px solid var(--rule); padding: 3px 7px; vertical-align: top; }
 th { text-align: left; border-bottom: 2px solid var(--ink); }
@@ -56,6 +57,7 @@ footer { margin-top: 30px; border-top: 1px solid var(--ink); padding-top: 8px; f
 @media print {
   body { max-width: none; padding: 0; font-size: 11px; }
   nav { display: none; }
+  .wide { overflow: visible; }
   section.major { break-before: page; page-break-before: always; }
   h2, h3 { break-after: avoid; page-break-after: avoid; }
   table { font-size: 9.5px; }
@@ -87,7 +89,7 @@ impl HTable {
         self.rows.push((class.to_string(), cells));
     }
     fn html(&self, out: &mut String) {
-        out.push_str("<table>\n<thead><tr>");
+        out.push_str("<div class=\"wide\"><table>\n<thead><tr>");
         for h in &self.head {
             let _ = write!(out, "<th>{h}</th>");
         }
@@ -107,7 +109,7 @@ impl HTable {
             }
             out.push_str("</tr>\n");
         }
-        out.push_str("</tbody>\n</table>\n");
+        out.push_str("</tbody>\n</table></div>\n");
     }
 }
 

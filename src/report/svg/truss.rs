@@ -198,9 +198,9 @@ pub fn render(d: &Drawing) -> String {
         frame.top = title_h + 34.0;
     }
     let below = match (d.show == Show::Forces, hanging) {
-        (true, true) => 150.0,
+        (true, true) => 160.0,
         (true, false) => 118.0,
-        (false, true) => LOAD_LEN + 60.0,
+        (false, true) => LOAD_LEN + 80.0,
         (false, false) => 70.0,
     };
     let truss_bottom = frame.top + sy * scale;
@@ -368,7 +368,7 @@ pub fn render(d: &Drawing) -> String {
             let n = &model.nodes[i];
             let p = frame.p(n.x + mag * u[0], n.y + mag * u[1]);
             let t = format!(
-                "{}: ux {} , uy {} {}",
+                "{}: ux {}, uy {} {}",
                 n.id,
                 sig(u[0] / sc.disp, 3),
                 sig(u[1] / sc.disp, 3),
@@ -696,7 +696,8 @@ fn loads(svg: &mut Svg, frame: &Frame, model: &Model, e: &Effect, sc: &Scale) {
             let tail = (tip.0 - ux * LOAD_LEN, tip.1 - uy * LOAD_LEN);
             (tail, tip, tail, -1.0)
         } else {
-            let tail = (p.0 + ux * 5.0, p.1 + uy * 5.0);
+            // Start clear of the node's own label, which sits on this side.
+            let tail = (p.0 + ux * 24.0, p.1 + uy * 24.0);
             let tip = (tail.0 + ux * LOAD_LEN, tail.1 + uy * LOAD_LEN);
             (tail, tip, tip, 1.0)
         };
