@@ -24,6 +24,15 @@ pub enum FormatArg {
     Csv,
 }
 
+/// What `panelpoint draw` shows.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
+pub enum ShowArg {
+    Forces,
+    Utilization,
+    Deflection,
+    Model,
+}
+
 #[derive(Subcommand, Debug)]
 pub enum Command {
     /// Check a model file and list every problem found, without analysing it.
@@ -165,6 +174,33 @@ pub enum Command {
         format: FormatArg,
         #[arg(long)]
         out: Option<PathBuf>,
+    },
+    /// Draw the truss as SVG: geometry to scale with labels, supports and
+    /// loads, and member forces, utilization or the deflected shape.
+    Draw {
+        model: PathBuf,
+        /// Write to this file (atomically) instead of standard output.
+        #[arg(short = 'o', long = "out")]
+        out: Option<PathBuf>,
+        /// Load case or combination to draw (default: the first load case).
+        #[arg(long)]
+        case: Option<String>,
+        #[arg(long, value_enum, default_value_t = ShowArg::Forces)]
+        show: ShowArg,
+        /// Column curve for --show utilization (as for `rate`).
+        #[arg(long)]
+        curve: Option<String>,
+    },
+    /// Write one self-contained HTML report: summary, model tables, results
+    /// per case, capacity checks with clauses and formulas, drawings, cautions.
+    Report {
+        model: PathBuf,
+        /// Write to this file (atomically) instead of standard output.
+        #[arg(short = 'o', long = "out")]
+        out: Option<PathBuf>,
+        /// Column curve (as for `rate`).
+        #[arg(long)]
+        curve: Option<String>,
     },
 }
 

@@ -4,6 +4,7 @@
 
 pub mod atomic;
 pub mod csv;
+pub mod html;
 pub mod influence_csv;
 pub mod influence_json;
 pub mod influence_text;
@@ -14,7 +15,9 @@ pub mod rate_rows;
 pub mod rate_text;
 pub mod section_svg;
 pub mod sections;
+pub mod svg;
 pub mod table;
+pub mod term;
 pub mod text;
 pub mod whatif;
 

@@ -4,6 +4,7 @@
 
 use super::rate_rows::{by_utilization, check_row};
 use super::table::{sig, Table};
+use super::term::{Mark, Term};
 use super::text::header;
 use super::Scale;
 use crate::analysis::Analysis;
@@ -24,15 +25,38 @@ pub fn rate(
     warnings: &[Diagnostic],
     all_rows: bool,
 ) -> io::Result<()> {
+    rate_term(
+        w,
+        model,
+        analysis,
+        rating,
+        warnings,
+        all_rows,
+        &Term::plain(),
+    )
+}
+
+/// `panelpoint rate` as text for `term`: the controlling verdict and rows
+/// over capacity emphasised when it takes colour; on a narrow terminal the
+/// check table leaves out, in order, Fe, Fcr, axis, margin, KL/r, regime.
+pub fn rate_term(
+    w: &mut dyn Write,
+    model: &Model,
+    analysis: &Analysis,
+    rating: &Rating,
+    warnings: &[Diagnostic],
+    all_rows: bool,
+    term: &Term,
+) -> io::Result<()> {
     header(w, model, "rate", warnings, &analysis.warnings)?;
     let s = Scale::of(model);
     writeln!(w, "Column curve: {}", rating.curve.name())?;
     if let Some(i) = rating.controlling {
         let r = check_row(model, rating, &rating.checks[i]);
         let verdict = if r.utilization > 1.0 {
-            "FAILS"
+            term.paint("FAILS", Mark::Fail)
         } else {
-            "passes"
+            term.paint("passes", Mark::Strong)
         };
         writeln!(
             w,
@@ -67,7 +91,8 @@ pub fn rate(
     }
     let failing = rating.checks.iter().filter(|c| c.utilization > 1.0).count();
     if failing > 0 {
-        writeln!(w, "{failing} check(s) exceed capacity (utilization > 1).")?;
+        let line = format!("{failing} check(s) exceed capacity (utilization > 1).");
+        writeln!(w, "{}", term.paint(&line, Mark::Fail))?;
     }
 
     writeln!(w, "\n== Checks, highest utilization first ==")?;
@@ -84,24 +109,35 @@ pub fn rate(
     } else {
         order.len().min(40)
     };
-    for &i in &order[..limit] {
+    for (k, &i) in order[..limit].iter().enumerate() {
         let r = check_row(model, rating, &rating.checks[i]);
-        t.row(vec![
-            r.member.into(),
-            r.case.into(),
-            sig(r.force, 4),
-            r.axis.into(),
-            sig(r.slenderness, 4),
-            sig(r.euler_stress, 4),
-            sig(r.critical_stress, 4),
-            r.regime.into(),
-            sig(r.capacity, 4),
-            sig(r.utilization, 3),
-            opt(r.margin, 3),
-            opt(r.rating_factor, 3),
-        ]);
+        let mark = if r.utilization > 1.0 {
+            Mark::Fail
+        } else if k == 0 {
+            Mark::Strong
+        } else {
+            Mark::Plain
+        };
+        t.row_marked(
+            vec![
+                r.member.into(),
+                r.case.into(),
+                sig(r.force, 4),
+                r.axis.into(),
+                sig(r.slenderness, 4),
+                sig(r.euler_stress, 4),
+                sig(r.critical_stress, 4),
+                r.regime.into(),
+                sig(r.capacity, 4),
+                sig(r.utilization, 3),
+                opt(r.margin, 3),
+                opt(r.rating_factor, 3),
+            ],
+            mark,
+        );
     }
-    write!(w, "{}", t.render())?;
+    t.optional(&[eu.as_str(), cu.as_str(), "axis", "margin", "KL/r", "regime"]);
+    write!(w, "{}", t.render_for(term))?;
     if limit < order.len() {
         writeln!(
             w,
@@ -146,7 +182,7 @@ pub fn rate(
                 opt(r.operating, 3),
             ]);
         }
-        write!(w, "{}", t.render())?;
+        write!(w, "{}", t.render_for(term))?;
     }
     if !rating.notes.is_empty() {
         writeln!(w, "\nNotes:")?;

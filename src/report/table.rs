@@ -1,9 +1,18 @@
-//! Plain-text tables with aligned columns, for terminal reports.
+//! Plain-text tables with aligned columns, for terminal reports. On a
+//! narrow terminal, columns marked optional are left out (lowest priority
+//! first) and a line says which; rows can be emphasised (bold, or bold red
+//! for over capacity) when the terminal takes colour.
+
+use super::term::{Mark, Term};
 
 /// A table: header row, then data rows; numeric columns right-aligned.
 pub struct Table {
     pub headers: Vec<String>,
     pub rows: Vec<Vec<String>>,
+    /// Emphasis per row (missing entries: plain).
+    pub marks: Vec<Mark>,
+    /// Column indices that may be left out to fit, first dropped first.
+    pub optional: Vec<usize>,
 }
 
 impl Table {
@@ -11,6 +20,8 @@ impl Table {
         Table {
             headers: headers.iter().map(|h| h.to_string()).collect(),
             rows: Vec::new(),
+            marks: Vec::new(),
+            optional: Vec::new(),
         }
     }
 
@@ -18,7 +29,75 @@ impl Table {
         self.rows.push(cells);
     }
 
+    /// A row with emphasis.
+    pub fn row_marked(&mut self, cells: Vec<String>, mark: Mark) {
+        self.marks.resize(self.rows.len(), Mark::Plain);
+        self.marks.push(mark);
+        self.rows.push(cells);
+    }
+
+    /// Let the columns with these headers be left out on a narrow
+    /// terminal, in this order.
+    pub fn optional(&mut self, headers: &[&str]) {
+        for h in headers {
+            if let Some(i) = self.headers.iter().position(|x| x == h) {
+                self.optional.push(i);
+            }
+        }
+    }
+
     pub fn render(&self) -> String {
+        self.render_for(&Term::plain())
+    }
+
+    /// Render for `term`: drop optional columns while the table is wider
+    /// than the terminal, then emphasise marked rows if colour is on.
+    pub fn render_for(&self, term: &Term) -> String {
+        let width = self.widths();
+        let total = |keep: &[bool]| -> usize {
+            let cols: Vec<usize> = (0..width.len()).filter(|&i| keep[i]).collect();
+            cols.iter().map(|&i| width[i]).sum::<usize>() + 2 * cols.len().saturating_sub(1)
+        };
+        let mut keep = vec![true; self.headers.len()];
+        let mut dropped = Vec::new();
+        if let Some(limit) = term.width {
+            for &i in &self.optional {
+                if total(&keep) <= limit {
+                    break;
+                }
+                keep[i] = false;
+                dropped.push(self.headers[i].clone());
+            }
+        }
+        let mut out = if dropped.is_empty() {
+            self.render_all(term)
+        } else {
+            let pick = |v: &Vec<String>| -> Vec<String> {
+                v.iter()
+                    .enumerate()
+                    .filter(|(i, _)| keep.get(*i).copied().unwrap_or(true))
+                    .map(|(_, c)| c.clone())
+                    .collect()
+            };
+            let narrow = Table {
+                headers: pick(&self.headers),
+                rows: self.rows.iter().map(pick).collect(),
+                marks: self.marks.clone(),
+                optional: Vec::new(),
+            };
+            narrow.render_all(term)
+        };
+        if !dropped.is_empty() {
+            out.push_str(&format!(
+                "(left out to fit {} columns: {}; widen the terminal, set COLUMNS, or use --format csv)\n",
+                term.width.unwrap_or(0),
+                dropped.join(", ")
+            ));
+        }
+        out
+    }
+
+    fn widths(&self) -> Vec<usize> {
         let n = self.headers.len();
         let mut width: Vec<usize> = self.headers.iter().map(|h| h.chars().count()).collect();
         for r in &self.rows {
@@ -26,6 +105,12 @@ impl Table {
                 width[i] = width[i].max(c.chars().count());
             }
         }
+        width
+    }
+
+    fn render_all(&self, term: &Term) -> String {
+        let n = self.headers.len();
+        let width = self.widths();
         let numeric: Vec<bool> = (0..n)
             .map(|i| {
                 self.rows.iter().all(|r| {
@@ -62,8 +147,16 @@ impl Table {
         let rule: Vec<String> = width.iter().map(|&w| "-".repeat(w)).collect();
         out.push_str(&rule.join("  "));
         out.push('\n');
-        for r in &self.rows {
-            line(r, &mut out);
+        for (k, r) in self.rows.iter().enumerate() {
+            let mark = self.marks.get(k).copied().unwrap_or_default();
+            if mark == Mark::Plain || !term.colour {
+                line(r, &mut out);
+            } else {
+                let mut one = String::new();
+                line(r, &mut one);
+                out.push_str(&term.paint(one.trim_end_matches('\n'), mark));
+                out.push('\n');
+            }
         }
         out
     }
@@ -110,5 +203,45 @@ mod tests {
         // Numbers right-aligned under a wider header, text left-aligned.
         assert!(s.contains("\nA         1.5\n"), "{s}");
         assert!(s.contains("\nBB     -10.25\n"), "{s}");
+    }
+
+    #[test]
+    fn narrow_terminal_drops_optional_columns_and_says_so() {
+        let mut t = Table::new(&["member", "detail", "util"]);
+        t.row(vec![
+            "A".into(),
+            "a long column of detail".into(),
+            "0.5".into(),
+        ]);
+        t.row_marked(vec!["B".into(), "x".into(), "1.2".into()], Mark::Fail);
+        t.optional(&["detail"]);
+        let wide = t.render_for(&Term {
+            colour: false,
+            width: Some(80),
+        });
+        assert!(
+            wide.contains("detail") && !wide.contains("left out"),
+            "{wide}"
+        );
+        let narrow = t.render_for(&Term {
+            colour: false,
+            width: Some(20),
+        });
+        assert!(!narrow.contains("a long column"), "{narrow}");
+        assert!(
+            narrow.contains("left out to fit 20 columns: detail"),
+            "{narrow}"
+        );
+        assert!(
+            narrow.lines().take(4).all(|l| l.chars().count() <= 20),
+            "{narrow}"
+        );
+        // Colour only when the terminal takes it; the failing row is red.
+        assert!(!narrow.contains('\x1b'));
+        let c = t.render_for(&Term {
+            colour: true,
+            width: None,
+        });
+        assert!(c.contains("\x1b[1;31mB"), "{c:?}");
     }
 }

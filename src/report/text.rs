@@ -1,6 +1,7 @@
 //! Text reports for the terminal: aligned tables, units in every header.
 
 use super::table::{sig, Table};
+use super::term::Term;
 use super::{Scale, CAUTION};
 use crate::analysis::Analysis;
 use crate::input::Diagnostic;
@@ -58,6 +59,18 @@ pub fn solve(
     analysis: &Analysis,
     warnings: &[Diagnostic],
 ) -> io::Result<()> {
+    solve_term(w, model, analysis, warnings, &Term::plain())
+}
+
+/// `panelpoint solve` as text for `term`: tables fitted to its width (the
+/// start and end node columns go first, then stress).
+pub fn solve_term(
+    w: &mut dyn Write,
+    model: &Model,
+    analysis: &Analysis,
+    warnings: &[Diagnostic],
+    term: &Term,
+) -> io::Result<()> {
     header(w, model, "solve", warnings, &analysis.warnings)?;
     let s = Scale::of(model);
     for case in &analysis.cases {
@@ -93,7 +106,9 @@ pub fn solve(
                 sense.into(),
             ]);
         }
-        write!(w, "{}", t.render())?;
+        let su = format!("stress {}", s.stress_name);
+        t.optional(&["start", "end", su.as_str()]);
+        write!(w, "{}", t.render_for(term))?;
         writeln!(w)?;
         let mut t = Table::new(&[
             "support",
@@ -110,7 +125,7 @@ pub fn solve(
                 clean(r[1] / s.force, rmax, 5),
             ]);
         }
-        write!(w, "{}", t.render())?;
+        write!(w, "{}", t.render_for(term))?;
         writeln!(w)?;
         let mut t = Table::new(&[
             "node",
@@ -125,7 +140,7 @@ pub fn solve(
                 clean(u[1] / s.disp, umax, 4),
             ]);
         }
-        write!(w, "{}", t.render())?;
+        write!(w, "{}", t.render_for(term))?;
         writeln!(
             w,
             "Equilibrium: largest |K·u − f| = {} {} ({} of the largest force); loads ({}, {}) {f}, reactions ({}, {}) {f}",

@@ -12,6 +12,8 @@ pub const FOUR_PANEL: &str = include_str!("../data/four_panel.ron");
 pub fn run(args: &[&str]) -> (i32, String, String) {
     let out = Command::new(env!("CARGO_BIN_EXE_panelpoint"))
         .args(args)
+        // Text tables fit COLUMNS when it is set; keep the tests' tables whole.
+        .env_remove("COLUMNS")
         .output()
         .expect("run panelpoint");
     (

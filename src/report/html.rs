@@ -1,0 +1,972 @@
+//! `panelpoint report`: one self-contained HTML file a person reads and
+//! prints. Inline CSS and inline SVG only (no scripts, no network, no
+//! external assets); markup kept XHTML-compatible (every element closed,
+//! attributes quoted) so it can be checked with an XML parser.
+//!
+//! Order: summary, drawings, model tables, results per effect, capacity
+//! checks with clause, formula and inputs, rating factors, sections,
+//! cautions.
+
+use super::rate_rows::{by_utilization, check_row};
+use super::svg::{self, esc, Drawing, Effect, Show};
+use super::table::sig;
+use super::{Scale, CAUTION};
+use crate::analysis::Analysis;
+use crate::capacity::Regime;
+use crate::input::Diagnostic;
+use crate::model::{CaseKind, Model, Restraint};
+use crate::rate::Rating;
+use std::fmt::Write;
+
+const STYLE: &str = r#"
+:root { --ink:#1d2430; --faint:#9aa3ad; --rule:#d5dae0; --band:#f4f6f8; --fail:#d0451b; --ok:#2f6f4f; --accent:#1b4482; }
+* { box-sizing: border-box; }
+body { font-family: "DejaVu Sans", Arial, Helvetica, sans-serif; color: var(--ink); margin: 0 auto; max-width: 1120px; padding: 18px 26px 40px; line-height: 1.4; font-size: 14px; background: #fff; }
+h1 { font-size: 24px; margin: 4px 0 6px; }
+h2 { font-size: 19px; border-bottom: 2px solid var(--ink); padding-bottom: 3px; margin-top: 34px; }
+h3 { font-size: 15.5px; margin: 22px 0 6px; }
+.caution { border: 2px solid var(--ink); padding: 8px 12px; font-weight: bold; margin: 10px 0; }
+.meta { color: #3d4653; margin: 2px 0; }
+nav ol { columns: 2; margin: 6px 0; }
+nav a, a { color: var(--accent); }
+.wide { overflow-x: auto; max-width: 100%; }
+table { border-collapse: collapse; margin: 6px 0 12px; font-size: 12.5px; }
+th, td { border: 1px solid var(--rule); padding: 3px 7px; vertical-align: top; }
+th { text-align: left; border-bottom: 2px solid var(--ink); }
+td.n { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
+tbody tr:nth-child(even) { background: var(--band); }
+tr.fails td { font-weight: bold; }
+tr.fails td.flag { color: var(--fail); }
+tr.controlling td { border-top: 2px solid var(--ink); border-bottom: 2px solid var(--ink); }
+.verdict { font-size: 17px; font-weight: bold; padding: 8px 12px; border-left: 8px solid var(--ok); margin: 8px 0; }
+.verdict.fails { border-left-color: var(--fail); }
+dl.facts { display: grid; grid-template-columns: max-content 1fr; gap: 3px 16px; margin: 8px 0; }
+dl.facts dt { font-weight: bold; }
+dl.facts dd { margin: 0; }
+.ubar { display: inline-block; position: relative; width: 120px; height: 10px; border: 1px solid var(--ink); vertical-align: middle; margin-right: 6px; }
+.ubar span { position: absolute; left: 0; top: 0; bottom: 0; background: var(--accent); }
+.ubar.fails span { background: var(--fail); }
+.ubar i { position: absolute; top: -3px; bottom: -3px; border-left: 2px solid var(--ink); }
+.ubar.big { width: 420px; height: 16px; }
+figure { margin: 12px 0 20px; }
+figure svg { max-width: 100%; height: auto; border: 1px solid var(--rule); }
+figcaption { font-size: 12.5px; color: #3d4653; margin-top: 3px; }
+code, .formula { font-family: "DejaVu Sans Mono", Consolas, monospace; font-size: 12px; }
+.note { color: #3d4653; }
+footer { margin-top: 30px; border-top: 1px solid var(--ink); padding-top: 8px; font-size: 12px; }
+@media print {
+  body { max-width: none; padding: 0; font-size: 11px; }
+  nav { display: none; }
+  .wide { overflow: visible; }
+  section.major { break-before: page; page-break-before: always; }
+  h2, h3 { break-after: avoid; page-break-after: avoid; }
+  table { font-size: 9.5px; }
+  thead { display: table-header-group; }
+  tr, figure, .verdict, dl.facts { break-inside: avoid; page-break-inside: avoid; }
+  tbody tr:nth-child(even) { background: none; }
+  .ubar span { background: none; border-right: 2px solid #000; }
+  .ubar.fails span { background: none; border-right: 4px double #000; }
+  a { color: inherit; text-decoration: none; }
+  figure svg { border: none; }
+}
+"#;
+
+/// A table under construction: header cells, then rows of (class, cells);
+/// a cell is (is_number, already-escaped HTML).
+struct HTable {
+    head: Vec<String>,
+    rows: Vec<(String, Vec<(bool, String)>)>,
+}
+
+impl HTable {
+    fn new(head: &[&str]) -> HTable {
+        HTable {
+            head: head.iter().map(|h| esc(h)).collect(),
+            rows: Vec::new(),
+        }
+    }
+    fn row(&mut self, class: &str, cells: Vec<(bool, String)>) {
+        self.rows.push((class.to_string(), cells));
+    }
+    fn html(&self, out: &mut String) {
+        out.push_str("<div class=\"wide\"><table>\n<thead><tr>");
+        for h in &self.head {
+            let _ = write!(out, "<th>{h}</th>");
+        }
+        out.push_str("</tr></thead>\n<tbody>\n");
+        for (class, cells) in &self.rows {
+            if class.is_empty() {
+                out.push_str("<tr>");
+            } else {
+                let _ = write!(out, r#"<tr class="{class}">"#);
+            }
+            for (num, c) in cells {
+                if *num {
+                    let _ = write!(out, r#"<td class="n">{c}</td>"#);
+                } else {
+                    let _ = write!(out, "<td>{c}</td>");
+                }
+            }
+            out.push_str("</tr>\n");
+        }
+        out.push_str("</tbody>\n</table></div>\n");
+    }
+}
+
+fn t(s: &str) -> (bool, String) {
+    (false, esc(s))
+}
+fn n(v: f64, d: usize) -> (bool, String) {
+    (true, esc(&sig(v, d)))
+}
+fn on(v: Option<f64>, d: usize) -> (bool, String) {
+    (true, v.map_or("-".into(), |v| esc(&sig(v, d))))
+}
+
+/// A utilization bar with its value; the tick marks 1.0 on a 0–1.5 scale.
+fn ubar(u: f64, big: bool) -> String {
+    let frac = if u.is_finite() {
+        (u / 1.5).clamp(0.0, 1.0)
+    } else {
+        0.0
+    };
+    format!(
+        r#"<span class="ubar{}{}"><span style="width:{:.1}%"></span><i style="left:66.7%"></i></span>{}{}"#,
+        if big { " big" } else { "" },
+        if u > 1.0 { " fails" } else { "" },
+        frac * 100.0,
+        esc(&sig(u, 3)),
+        if u > 1.0 { " FAILS" } else { "" }
+    )
+}
+
+fn clean(v: f64, largest: f64, d: usize) -> (bool, String) {
+    if v.abs() <= 1e-10 * largest {
+        (true, "0".into())
+    } else {
+        n(v, d)
+    }
+}
+
+/// Inline SVG for HTML: the namespace is implied there, so the attribute
+/// (a URI) is dropped and the report holds no outside address at all.
+fn inline(svg: &str) -> String {
+    svg.replacen(r#" xmlns="http://www.w3.org/2000/svg""#, "", 1)
+}
+
+/// The whole report as one HTML string. `rating` is the rating, or why
+/// the capacity checks could not be made.
+pub fn report(
+    model: &Model,
+    analysis: &Analysis,
+    rating: Result<&Rating, String>,
+    warnings: &[Diagnostic],
+) -> String {
+    let s = Scale::of(model);
+    let effects = svg::effects(model, analysis);
+    let title = if model.title.is_empty() {
+        "(untitled model)".to_string()
+    } else {
+        model.title.clone()
+    };
+    let mut h = String::with_capacity(1 << 18);
+    h.push_str("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n");
+    h.push_str("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\"/>\n");
+    let _ = writeln!(h, "<title>{} — panelpoint report</title>", esc(&title));
+    let _ = writeln!(h, "<style>{STYLE}</style>\n</head>\n<body>");
+
+    // Header.
+    h.push_str("<header>\n");
+    let _ = writeln!(h, "<h1>{}</h1>", esc(&title));
+    let _ = writeln!(h, r#"<p class="caution">CAUTION: {}</p>"#, esc(CAUTION));
+    let _ = writeln!(
+        h,
+        r#"<p class="meta">panelpoint {} report. Units: lengths {}, forces {}, sections and displacements {}, stresses {}.</p>"#,
+        env!("CARGO_PKG_VERSION"),
+        esc(s.length_name),
+        esc(s.force_name),
+        esc(s.disp_name),
+        esc(s.stress_name)
+    );
+    let _ = writeln!(
+        h,
+        r#"<p class="meta">{} nodes, {} members, {} supports, {} load cases, {} combinations. Determinacy: {}.</p>"#,
+        model.nodes.len(),
+        model.members.len(),
+        model.supports.len(),
+        model.cases.len(),
+        model.combinations.len(),
+        esc(&model.determinacy().describe())
+    );
+    h.push_str("</header>\n<nav><strong>Contents</strong><ol>");
+    for (id, name) in [
+        ("summary", "Summary"),
+        ("drawings", "Drawings"),
+        ("model", "Model"),
+        ("results", "Results per load case and combination"),
+        ("checks", "Capacity checks"),
+        ("ratings", "Rating factors"),
+        ("sections", "Sections"),
+        ("cautions", "Cautions"),
+    ] {
+        let _ = write!(h, r##"<li><a href="#{id}">{name}</a></li>"##);
+    }
+    h.push_str("</ol></nav>\n");
+
+    summary(&mut h, model, analysis, &rating, warnings, &s);
+    drawings(&mut h, model, &effects, rating.as_ref().ok().copied());
+    model_tables(&mut h, model, &s);
+    results(&mut h, model, analysis, &effects, &s);
+    checks(&mut h, model, &rating, &s);
+    ratings(&mut h, model, &rating, &s);
+    sections(&mut h, model, &s);
+
+    h.push_str(r#"<section class="major" id="cautions"><h2>Cautions</h2>"#);
+    let _ = writeln!(h, "<p><strong>{}</strong></p>", esc(CAUTION));
+    h.push_str("<ul>\n<li>These are screening results for review by a qualified engineer; they are not a load rating or an approval by themselves.</li>\n");
+    h.push_str("<li>The analysis assumes an ideal pin-jointed plane truss: axial members, loads at panel points, small displacements, linear elastic material.</li>\n");
+    h.push_str("<li>Section properties, material strengths, condition and effective lengths are as entered in the model file; verify them against the structure as found.</li>\n");
+    h.push_str("<li>Connections, gusset plates, pins, bearings, fatigue, fracture toughness, out-of-plane stability of the whole truss and deck, and local buckling of built-up parts are not checked here.</li>\n");
+    h.push_str("<li>Local codes, the owner's rating rules and licensed practice govern.</li>\n</ul>\n</section>\n");
+    let _ = writeln!(
+        h,
+        "<footer>Generated by panelpoint {}. {}</footer>\n</body>\n</html>",
+        env!("CARGO_PKG_VERSION"),
+        esc(CAUTION)
+    );
+    h
+}
+
+fn summary(
+    h: &mut String,
+    model: &Model,
+    analysis: &Analysis,
+    rating: &Result<&Rating, String>,
+    warnings: &[Diagnostic],
+    s: &Scale,
+) {
+    h.push_str(r#"<section id="summary"><h2>Summary</h2>"#);
+    match rating {
+        Err(why) => {
+            let _ = writeln!(
+                h,
+                r#"<p class="verdict fails">Capacity checks not made: {}</p>"#,
+                esc(why)
+            );
+        }
+        Ok(r) => {
+            let failing: Vec<usize> = by_utilization(r)
+                .into_iter()
+                .filter(|&i| r.checks[i].utilization > 1.0)
+                .collect();
+            if failing.is_empty() {
+                let _ = writeln!(
+                    h,
+                    r#"<p class="verdict">All {} checks within capacity (utilization ≤ 1).</p>"#,
+                    r.checks.len()
+                );
+            } else {
+                let _ = writeln!(
+                    h,
+                    r#"<p class="verdict fails">{} of {} checks exceed capacity (utilization &gt; 1).</p>"#,
+                    failing.len(),
+                    r.checks.len()
+                );
+            }
+            h.push_str(r#"<dl class="facts">"#);
+            let _ = write!(h, "<dt>Column curve</dt><dd>{}</dd>", esc(&r.curve.name()));
+            if let Some(i) = r.lowest {
+                let mr = &r.ratings[i];
+                let _ = write!(
+                    h,
+                    "<dt>Lowest rating factor</dt><dd><strong>{}</strong> inventory, {} operating — member <strong>{}</strong> for live case “{}”</dd>",
+                    esc(&mr.inventory.map_or("-".into(), |v| sig(v, 3))),
+                    esc(&mr.operating.map_or("-".into(), |v| sig(v, 3))),
+                    esc(&model.members[mr.member].id),
+                    esc(&mr.live_id)
+                );
+            } else {
+                h.push_str(
+                    "<dt>Rating factors</dt><dd>none: the model declares no Live load case</dd>",
+                );
+            }
+            if let Some(i) = r.controlling {
+                let c = check_row(model, r, &r.checks[i]);
+                let _ = write!(
+                    h,
+                    "<dt>Controlling</dt><dd>member <strong>{}</strong> under “{}”: {} {} against a capacity of {} {} ({}, {})</dd><dt>Highest utilization</dt><dd>{}</dd>",
+                    esc(c.member),
+                    esc(c.case),
+                    esc(&sig(c.force, 4)),
+                    esc(s.force_name),
+                    esc(&sig(c.capacity, 4)),
+                    esc(s.force_name),
+                    esc(c.regime),
+                    esc(c.clause),
+                    ubar(c.utilization, true)
+                );
+            }
+            h.push_str("</dl>\n");
+            if !failing.is_empty() {
+                h.push_str("<h3>Checks that fail</h3>\n");
+                let fu = format!("force {}", s.force_name);
+                let cu = format!("capacity {}", s.force_name);
+                let mut tb = HTable::new(&[
+                    "member",
+                    "case",
+                    &fu,
+                    &cu,
+                    "regime",
+                    "utilization",
+                    "clause",
+                ]);
+                for &i in failing.iter().take(60) {
+                    let c = check_row(model, r, &r.checks[i]);
+                    tb.row(
+                        "fails",
+                        vec![
+                            t(c.member),
+                            t(c.case),
+                            n(c.force, 4),
+                            n(c.capacity, 4),
+                            t(c.regime),
+                            (true, ubar(c.utilization, false)),
+                            t(c.clause),
+                        ],
+                    );
+                }
+                tb.html(h);
+                if failing.len() > 60 {
+                    let _ = writeln!(
+                        h,
+                        r#"<p class="note">… and {} more; all are in the checks table.</p>"#,
+                        failing.len() - 60
+                    );
+                }
+            }
+            if !r.notes.is_empty() {
+                h.push_str("<h3>Notes</h3>\n<ul>");
+                for note in &r.notes {
+                    let _ = write!(h, "<li>{}</li>", esc(note));
+                }
+                h.push_str("</ul>\n");
+            }
+        }
+    }
+    if !warnings.is_empty() || !analysis.warnings.is_empty() {
+        h.push_str("<h3>Warnings</h3>\n<ul>");
+        for w in warnings {
+            let _ = write!(h, "<li>{}</li>", esc(&w.to_string()));
+        }
+        for w in &analysis.warnings {
+            let _ = write!(h, "<li>{}</li>", esc(w));
+        }
+        h.push_str("</ul>\n");
+    }
+    h.push_str("</section>\n");
+}
+
+fn figure(h: &mut String, svg_text: &str, caption: &str) {
+    let _ = writeln!(
+        h,
+        "<figure>\n{}\n<figcaption>{}</figcaption>\n</figure>",
+        inline(svg_text),
+        esc(caption)
+    );
+}
+
+fn drawings(h: &mut String, model: &Model, effects: &[Effect], rating: Option<&Rating>) {
+    h.push_str(r#"<section class="major" id="drawings"><h2>Drawings</h2>"#);
+    let mut d = Drawing::new(model, Show::Model);
+    d.effect = effects.first();
+    figure(
+        h,
+        &svg::draw(&d),
+        "The model to scale: node and member labels, supports, and the loads of the first load case.",
+    );
+    h.push_str("<h3>Member forces</h3>\n");
+    for e in effects {
+        let mut d = Drawing::new(model, Show::Forces);
+        d.effect = Some(e);
+        figure(
+            h,
+            &svg::draw(&d),
+            &format!(
+                "Member forces, {} “{}”: compression solid amber, tension blue double line, width in proportion to the force.",
+                if e.combination { "combination" } else { "load case" },
+                e.id
+            ),
+        );
+    }
+    if let Some(r) = rating {
+        h.push_str("<h3>Utilization</h3>\n");
+        let mut d = Drawing::new(model, Show::Utilization);
+        d.rating = Some(r);
+        figure(
+            h,
+            &svg::draw(&d),
+            "Utilization, the highest of every load case and combination for each member.",
+        );
+    }
+    h.push_str("<h3>Deflected shape</h3>\n");
+    for e in effects {
+        let mut d = Drawing::new(model, Show::Deflection);
+        d.effect = Some(e);
+        figure(
+            h,
+            &svg::draw(&d),
+            &format!(
+                "Deflected shape, {} “{}”, magnified as stated on the drawing.",
+                if e.combination {
+                    "combination"
+                } else {
+                    "load case"
+                },
+                e.id
+            ),
+        );
+    }
+    h.push_str("</section>\n");
+}
+
+fn model_tables(h: &mut String, model: &Model, s: &Scale) {
+    h.push_str(r#"<section class="major" id="model"><h2>Model</h2>"#);
+    h.push_str("<h3>Nodes</h3>\n");
+    let xu = format!("x {}", s.length_name);
+    let yu = format!("y {}", s.length_name);
+    let mut tb = HTable::new(&["node", &xu, &yu]);
+    for nd in &model.nodes {
+        tb.row(
+            "",
+            vec![t(&nd.id), n(nd.x / s.length, 6), n(nd.y / s.length, 6)],
+        );
+    }
+    tb.html(h);
+
+    h.push_str("<h3>Members</h3>\n");
+    let lu = format!("length {}", s.length_name);
+    let ui = format!("unbraced in {}", s.length_name);
+    let uo = format!("unbraced out {}", s.length_name);
+    let mut tb = HTable::new(&[
+        "member", "start", "end", "section", "material", &lu, "K in", "K out", &ui, &uo,
+    ]);
+    for (m, mem) in model.members.iter().enumerate() {
+        tb.row(
+            "",
+            vec![
+                t(&mem.id),
+                t(&model.nodes[mem.start].id),
+                t(&model.nodes[mem.end].id),
+                t(&model.sections[mem.section].id),
+                t(&model.materials[mem.material].id),
+                n(model.length(m) / s.length, 5),
+                n(mem.k_in, 3),
+                n(mem.k_out, 3),
+                on(mem.unbraced_in.map(|v| v / s.length), 4),
+                on(mem.unbraced_out.map(|v| v / s.length), 4),
+            ],
+        );
+    }
+    tb.html(h);
+    h.push_str(r#"<p class="note">Unbraced length “-”: the member length.</p>"#);
+
+    h.push_str("<h3>Materials</h3>\n");
+    let eu = format!("E {}", s.stress_name);
+    let fyu = format!("Fy {}", s.stress_name);
+    let fuu = format!("Fu {}", s.stress_name);
+    let mut tb = HTable::new(&["material", &eu, &fyu, &fuu, "density N/m³", "α per degree"]);
+    for mat in &model.materials {
+        tb.row(
+            "",
+            vec![
+                t(&mat.id),
+                n(mat.e / s.stress, 5),
+                on(mat.fy.map(|v| v / s.stress), 4),
+                on(mat.fu.map(|v| v / s.stress), 4),
+                on(mat.density, 4),
+                on(mat.alpha, 3),
+            ],
+        );
+    }
+    tb.html(h);
+
+    h.push_str("<h3>Supports</h3>\n");
+    let mut tb = HTable::new(&["node", "kind", "held", "surface angle °"]);
+    for sup in &model.supports {
+        let (held, angle) = match sup.restraint {
+            Restraint::Pin => ("x and y", None),
+            Restraint::Roller => ("y", None),
+            Restraint::InclinedRoller { angle } => {
+                ("normal to the surface", Some(angle.to_degrees()))
+            }
+        };
+        tb.row(
+            "",
+            vec![
+                t(&model.nodes[sup.node].id),
+                t(sup.restraint.name()),
+                t(held),
+                on(angle, 4),
+            ],
+        );
+    }
+    tb.html(h);
+
+    h.push_str("<h3>Load cases</h3>\n");
+    for case in &model.cases {
+        let kind = match case.kind {
+            CaseKind::Dead => "dead",
+            CaseKind::Live => "live",
+            CaseKind::Other => "other",
+        };
+        let _ = writeln!(
+            h,
+            "<p><strong>“{}”</strong> — {kind}{}</p>",
+            esc(&case.id),
+            if case.kind == CaseKind::Live {
+                format!(", impact allowance {}", sig(case.impact, 3))
+            } else {
+                String::new()
+            }
+        );
+        if !case.nodal.is_empty() {
+            let fx = format!("fx {}", s.force_name);
+            let fy = format!("fy {}", s.force_name);
+            let mut tb = HTable::new(&["node", &fx, &fy]);
+            for l in &case.nodal {
+                tb.row(
+                    "",
+                    vec![
+                        t(&model.nodes[l.node].id),
+                        n(l.fx / s.force, 5),
+                        n(l.fy / s.force, 5),
+                    ],
+                );
+            }
+            tb.html(h);
+        }
+        if !case.settlements.is_empty() {
+            let dx = format!("dx {}", s.disp_name);
+            let dy = format!("dy {}", s.disp_name);
+            let mut tb = HTable::new(&["settled node", &dx, &dy]);
+            for st in &case.settlements {
+                tb.row(
+                    "",
+                    vec![
+                        t(&model.nodes[st.node].id),
+                        n(st.dx / s.disp, 4),
+                        n(st.dy / s.disp, 4),
+                    ],
+                );
+            }
+            tb.html(h);
+        }
+        if !case.elongations.is_empty() {
+            let eu = format!("initial elongation {}", s.disp_name);
+            let mut tb = HTable::new(&["member", &eu]);
+            for el in &case.elongations {
+                tb.row(
+                    "",
+                    vec![
+                        t(&model.members[el.member].id),
+                        n(el.elongation / s.disp, 4),
+                    ],
+                );
+            }
+            tb.html(h);
+        }
+    }
+    if !model.combinations.is_empty() {
+        h.push_str("<h3>Combinations</h3>\n");
+        let mut tb = HTable::new(&["combination", "Σ factor × case (live cases × (1 + impact))"]);
+        for c in &model.combinations {
+            let terms: Vec<String> = c
+                .factors
+                .iter()
+                .map(|&(ci, f)| format!("{} × “{}”", sig(f, 4), model.cases[ci].id))
+                .collect();
+            tb.row("", vec![t(&c.id), t(&terms.join(" + "))]);
+        }
+        tb.html(h);
+    }
+    h.push_str("<h3>Rating settings</h3>\n");
+    let r = &model.rating;
+    let _ = writeln!(
+        h,
+        r#"<dl class="facts"><dt>Column curve in the model</dt><dd>{}</dd><dt>Condition factor φc</dt><dd>{}</dd><dt>System factor φs</dt><dd>{}</dd><dt>Inventory</dt><dd>γD = {}, γL = {}</dd><dt>Operating</dt><dd>γD = {}, γL = {}</dd></dl>"#,
+        esc(r
+            .curve
+            .as_deref()
+            .unwrap_or("(not set: the default or --curve)")),
+        sig(r.condition_factor, 3),
+        sig(r.system_factor, 3),
+        sig(r.inventory.gamma_dead, 3),
+        sig(r.inventory.gamma_live, 3),
+        sig(r.operating.gamma_dead, 3),
+        sig(r.operating.gamma_live, 3)
+    );
+    h.push_str("</section>\n");
+}
+
+fn results(h: &mut String, model: &Model, analysis: &Analysis, effects: &[Effect], s: &Scale) {
+    h.push_str(
+        r#"<section class="major" id="results"><h2>Results per load case and combination</h2>"#,
+    );
+    for (k, e) in effects.iter().enumerate() {
+        let _ = writeln!(
+            h,
+            "<h3>{} “{}”</h3>",
+            if e.combination {
+                "Combination"
+            } else {
+                "Load case"
+            },
+            esc(&e.id)
+        );
+        let fmax = e.forces.iter().fold(0.0f64, |a, f| a.max(f.abs()));
+        let fu = format!("force {}", s.force_name);
+        let su = format!("stress {}", s.stress_name);
+        let mut tb = HTable::new(&["member", &fu, &su, "sense"]);
+        for (m, mem) in model.members.iter().enumerate() {
+            let f = e.forces[m];
+            let area = model.sections[mem.section].area;
+            let sense = if f.abs() <= 1e-10 * fmax {
+                "zero"
+            } else if f > 0.0 {
+                "tension"
+            } else {
+                "compression"
+            };
+            tb.row(
+                "",
+                vec![
+                    t(&mem.id),
+                    clean(f / s.force, fmax / s.force, 5),
+                    clean(f / area / s.stress, fmax / area / s.stress, 4),
+                    t(sense),
+                ],
+            );
+        }
+        tb.html(h);
+        let rx = format!("Rx {}", s.force_name);
+        let ry = format!("Ry {}", s.force_name);
+        let rmax = e
+            .reactions
+            .iter()
+            .flatten()
+            .fold(fmax, |a, r| a.max(r.abs()));
+        let mut tb = HTable::new(&["support", "kind", &rx, &ry]);
+        for (sup, r) in model.supports.iter().zip(&e.reactions) {
+            tb.row(
+                "",
+                vec![
+                    t(&model.nodes[sup.node].id),
+                    t(sup.restraint.name()),
+                    clean(r[0] / s.force, rmax / s.force, 5),
+                    clean(r[1] / s.force, rmax / s.force, 5),
+                ],
+            );
+        }
+        tb.html(h);
+        let ux = format!("ux {}", s.disp_name);
+        let uy = format!("uy {}", s.disp_name);
+        let umax = e
+            .displacements
+            .iter()
+            .flatten()
+            .fold(0.0f64, |a, u| a.max(u.abs()));
+        let mut tb = HTable::new(&["node", &ux, &uy]);
+        for (nd, u) in model.nodes.iter().zip(&e.displacements) {
+            tb.row(
+                "",
+                vec![
+                    t(&nd.id),
+                    clean(u[0] / s.disp, umax / s.disp, 4),
+                    clean(u[1] / s.disp, umax / s.disp, 4),
+                ],
+            );
+        }
+        tb.html(h);
+        if let Some(c) = (!e.combination).then(|| analysis.cases.get(k)).flatten() {
+            let _ = writeln!(
+                h,
+                r#"<p class="note">Equilibrium: largest |K·u − f| = {} {} ({} of the largest force); loads ({}, {}) {f}, reactions ({}, {}) {f}.</p>"#,
+                esc(&sig(c.residual / s.force, 2)),
+                esc(s.force_name),
+                esc(&sig(c.relative_residual, 2)),
+                esc(&sig(c.load_sum[0] / s.force, 5)),
+                esc(&sig(c.load_sum[1] / s.force, 5)),
+                esc(&sig(c.reaction_sum[0] / s.force, 5)),
+                esc(&sig(c.reaction_sum[1] / s.force, 5)),
+                f = esc(s.force_name)
+            );
+        }
+    }
+    h.push_str("</section>\n");
+}
+
+fn checks(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: &Scale) {
+    h.push_str(r#"<section class="major" id="checks"><h2>Capacity checks</h2>"#);
+    let r = match rating {
+        Ok(r) => *r,
+        Err(why) => {
+            let _ = writeln!(h, "<p>Not made: {}</p></section>", esc(why));
+            return;
+        }
+    };
+    let _ = writeln!(
+        h,
+        "<p>Column curve: <strong>{}</strong>. Each member is checked on its governing axis (the larger of KL/r in and out of plane) in compression, and on gross-section yield and net-section fracture in tension.</p>",
+        esc(&r.curve.name())
+    );
+    h.push_str("<h3>Capacity of each member: inputs, formula and clause</h3>\n");
+    let au = format!("A {}²", s.disp_name);
+    let anu = format!("An {}²", s.disp_name);
+    let fyu = format!("Fy {}", s.stress_name);
+    let eu = format!("E {}", s.stress_name);
+    let feu = format!("Fe {}", s.stress_name);
+    let fcu = format!("Fcr {}", s.stress_name);
+    let pcu = format!("compression capacity {}", s.force_name);
+    let ptu = format!("tension capacity {}", s.force_name);
+    let mut tb = HTable::new(&[
+        "member",
+        &au,
+        &anu,
+        &fyu,
+        &eu,
+        "KL/r in",
+        "KL/r out",
+        "axis",
+        &feu,
+        &fcu,
+        "regime",
+        "compression formula",
+        "compression clause",
+        &pcu,
+        &ptu,
+        "tension governs",
+        "tension clause",
+    ]);
+    for (m, cap) in r.members.iter().enumerate() {
+        let sec = &model.sections[model.members[m].section];
+        tb.row(
+            "",
+            vec![
+                t(&model.members[m].id),
+                n(sec.area / s.area, 4),
+                n(sec.net_area / s.area, 4),
+                n(cap.fy / s.stress, 4),
+                n(cap.e / s.stress, 5),
+                n(cap.slenderness_in, 4),
+                n(cap.slenderness_out, 4),
+                t(cap.axis.as_str()),
+                n(cap.compression.euler_stress / s.stress, 4),
+                n(cap.compression.critical_stress / s.stress, 4),
+                t(cap.compression.regime.as_str()),
+                (
+                    false,
+                    format!(
+                        r#"<span class="formula">{}</span>"#,
+                        esc(cap.compression.check.formula)
+                    ),
+                ),
+                t(cap.compression.check.clause),
+                n(cap.compression.capacity / s.force, 4),
+                n(cap.tension_capacity / s.force, 4),
+                t(cap.tension.governs),
+                t(cap.tension.clause),
+            ],
+        );
+    }
+    tb.html(h);
+    let _ = writeln!(
+        h,
+        r#"<p class="note">Fe = π²E/(KL/r)² (Euler). Fcr is the curve's nominal critical stress; the design capacity applies the curve's resistance or safety factor to Fcr·A. Tension: min(yield on gross area, fracture on net area), with the factors of the clause shown. Capacities before the condition and system factors, which enter the rating factors only.</p>"#
+    );
+
+    h.push_str("<h3>Every check, highest utilization first</h3>\n");
+    let fu = format!("force {}", s.force_name);
+    let su = format!("stress {}", s.stress_name);
+    let cu = format!("capacity {}", s.force_name);
+    let fcu = format!("Fcr or Ft {}", s.stress_name);
+    let mut tb = HTable::new(&[
+        "member",
+        "case",
+        &fu,
+        &su,
+        "KL/r",
+        &fcu,
+        "regime",
+        &cu,
+        "utilization",
+        "margin",
+        "RF inv",
+        "clause",
+        "formula",
+    ]);
+    for (k, &i) in by_utilization(r).iter().enumerate() {
+        let c = check_row(model, r, &r.checks[i]);
+        let class = match (k == 0, c.utilization > 1.0) {
+            (true, true) => "controlling fails",
+            (true, false) => "controlling",
+            (false, true) => "fails",
+            (false, false) => "",
+        };
+        tb.row(
+            class,
+            vec![
+                t(c.member),
+                t(c.case),
+                n(c.force, 4),
+                n(c.stress, 4),
+                if r.checks[i].regime == Regime::Tension {
+                    t("-")
+                } else {
+                    n(c.slenderness, 4)
+                },
+                n(c.critical_stress, 4),
+                t(c.regime),
+                n(c.capacity, 4),
+                (true, ubar(c.utilization, false)),
+                on(c.margin, 3),
+                on(c.rating_factor, 3),
+                t(c.clause),
+                (
+                    false,
+                    format!(r#"<span class="formula">{}</span>"#, esc(c.formula)),
+                ),
+            ],
+        );
+    }
+    tb.html(h);
+    h.push_str(r#"<p class="note">utilization = |force| / design capacity; margin = critical stress / |stress|; the first row controls.</p>"#);
+    h.push_str("</section>\n");
+}
+
+fn ratings(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: &Scale) {
+    h.push_str(r#"<section class="major" id="ratings"><h2>Rating factors</h2>"#);
+    let r = match rating {
+        Ok(r) => *r,
+        Err(why) => {
+            let _ = writeln!(h, "<p>Not computed: {}</p></section>", esc(why));
+            return;
+        }
+    };
+    if r.ratings.is_empty() {
+        h.push_str("<p>None: the model declares no Live load case (set kind: Live, and kind: Dead on dead cases).</p></section>\n");
+        return;
+    }
+    h.push_str("<p>RF = (φc·φs·C − γD·D) / (γL·(L + IM)), C the design capacity in the sense of the live force, D the sum of the Dead cases.</p>\n");
+    let mut idx: Vec<usize> = (0..r.ratings.len()).collect();
+    idx.sort_by(|&a, &b| {
+        let key = |i: usize| r.ratings[i].inventory.unwrap_or(f64::INFINITY);
+        key(a).total_cmp(&key(b))
+    });
+    let du = format!("dead {}", s.force_name);
+    let lu = format!("live + IM {}", s.force_name);
+    let cu = format!("capacity {}", s.force_name);
+    let mut tb = HTable::new(&[
+        "member",
+        "live case",
+        &du,
+        &lu,
+        &cu,
+        "RF inventory",
+        "RF operating",
+    ]);
+    for &i in &idx {
+        let mr = &r.ratings[i];
+        let class = if mr.inventory.is_some_and(|v| v < 1.0) {
+            "fails"
+        } else {
+            ""
+        };
+        tb.row(
+            class,
+            vec![
+                t(&model.members[mr.member].id),
+                t(&mr.live_id),
+                n(mr.dead / s.force, 4),
+                n(mr.live / s.force, 4),
+                n(mr.capacity / s.force, 4),
+                on(mr.inventory, 3),
+                on(mr.operating, 3),
+            ],
+        );
+    }
+    tb.html(h);
+    h.push_str("</section>\n");
+}
+
+fn sections(h: &mut String, model: &Model, s: &Scale) {
+    h.push_str(r#"<section class="major" id="sections"><h2>Sections</h2>"#);
+    h.push_str("<p>Section properties used by the checks (built-up sections after the recorded section loss):</p>\n");
+    let au = format!("A {}²", s.disp_name);
+    let anu = format!("An {}²", s.disp_name);
+    let iin = format!("I in {}⁴", s.disp_name);
+    let iout = format!("I out {}⁴", s.disp_name);
+    let rin = format!("r in {}", s.disp_name);
+    let rout = format!("r out {}", s.disp_name);
+    let mut tb = HTable::new(&["section", &au, &anu, &iin, &iout, &rin, &rout, "used by"]);
+    let i4 = s.disp.powi(4);
+    for (k, sec) in model.sections.iter().enumerate() {
+        let used: Vec<&str> = model
+            .members
+            .iter()
+            .filter(|m| m.section == k)
+            .map(|m| m.id.as_str())
+            .collect();
+        let used = if used.len() > 12 {
+            format!("{} members", used.len())
+        } else {
+            used.join(", ")
+        };
+        tb.row(
+            "",
+            vec![
+                t(&sec.id),
+                n(sec.area / s.area, 4),
+                n(sec.net_area / s.area, 4),
+                n(sec.i_in / i4, 4),
+                n(sec.i_out / i4, 4),
+                n(sec.r_in() / s.disp, 4),
+                n(sec.r_out() / s.disp, 4),
+                t(&used),
+            ],
+        );
+    }
+    tb.html(h);
+    // Built-up sections: as built against after the recorded loss, and the parts drawn.
+    for sec in model.sections.iter().filter(|x| x.built_up.is_some()) {
+        let b = sec.built_up.as_ref().unwrap();
+        let g = |v: f64| super::table::sig(v, 4);
+        h.push_str(&format!(
+            "<h3>Built-up section {}</h3><p>Area {} {u}² as built, {} {u}² after section loss; Ix {} → {} {u}⁴, Iy {} → {} {u}⁴; net area {} {u}²; balance I_minor/I_major {}.</p>\n",
+            esc(&sec.id),
+            g(b.original.area / s.area),
+            g(b.reduced.area / s.area),
+            g(b.original.ix / i4),
+            g(b.reduced.ix / i4),
+            g(b.original.iy / i4),
+            g(b.reduced.iy / i4),
+            g(sec.net_area / s.area),
+            super::table::sig(b.reduced.balance, 3),
+            u = esc(s.disp_name),
+        ));
+        let mut svg = Vec::new();
+        if super::sections::svg(&mut svg, model, sec).is_ok() {
+            let svg = String::from_utf8_lossy(&svg);
+            // Inline SVG needs neither the XML declaration nor the namespace.
+            let body = svg.replacen(r#" xmlns="http://www.w3.org/2000/svg""#, "", 1);
+            let body = body.trim_start();
+            let body = match body.strip_prefix("<?xml") {
+                Some(rest) => rest.split_once("?>").map_or(rest, |(_, b)| b),
+                None => body,
+            };
+            h.push_str("<div class=\"figure section-drawing\">");
+            h.push_str(body.trim());
+            h.push_str("</div>\n");
+        }
+    }
+    h.push_str("</section>\n");
+}
