@@ -304,8 +304,10 @@ fn report_is_well_formed_self_contained_and_complete() {
         );
     }
     let svgs = doc.descendants().filter(|n| n.has_tag_name("svg")).count();
-    // Model, forces for 2 cases + 1 combination, utilization, 3 deflections.
-    assert_eq!(svgs, 8);
+    // Model, forces and deflections per case and combination, utilization,
+    // and a drawing of each of the demo's three built-up sections.
+    assert!(svgs >= 8, "{svgs} drawings");
+    assert_eq!(html.matches("section-drawing").count(), 3);
     for id in [
         "summary", "drawings", "model", "results", "checks", "ratings", "sections", "cautions",
     ] {
@@ -395,13 +397,14 @@ fn draw_command_writes_svg_and_refuses_an_unknown_case() {
         "--show",
         "utilization",
         "--case",
-        "strength",
+        "strength-crowd",
     ]);
     assert_eq!(code, 0, "{err}");
     let s = std::fs::read_to_string(&out).unwrap();
     roxmltree::Document::parse(&s).unwrap();
     assert!(
-        s.contains("combination \"strength\"") || s.contains("combination &quot;strength&quot;")
+        s.contains("combination \"strength-crowd\"")
+            || s.contains("combination &quot;strength-crowd&quot;")
     );
     let bad = dir.join("bad.svg");
     let (code, _, err) = run(&[
@@ -422,7 +425,7 @@ fn draw_command_writes_svg_and_refuses_an_unknown_case() {
 
 #[test]
 fn rate_text_fits_a_narrow_terminal_and_has_no_colour_in_a_pipe() {
-    let model = Path::new(env!("CARGO_MANIFEST_DIR")).join("models/millrace-footbridge.ron");
+    let model = Path::new(env!("CARGO_MANIFEST_DIR")).join("tests/data/four_panel.ron");
     let out = std::process::Command::new(env!("CARGO_BIN_EXE_panelpoint"))
         .args(["rate", model.to_str().unwrap()])
         .env("COLUMNS", "72")
