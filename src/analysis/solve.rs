@@ -103,10 +103,17 @@ impl Symbolic {
         }
         match result {
             Err(faer::linalg::cholesky::llt::factor::LltError::NonPositivePivot { index }) => {
+                // faer's simplicial path reports the failing column 1-based
+                // (k + 1), its supernodal path 0-based; clamp in any case so
+                // a mechanism can never become an out-of-bounds panic.
+                let index = match self.inner.raw() {
+                    SymbolicCholeskyRaw::Simplicial(_) => index.saturating_sub(1),
+                    SymbolicCholeskyRaw::Supernodal(_) => index,
+                };
                 return Err(FactorError::Singular {
-                    dof: self.original(index),
+                    dof: self.original(index.min(n.saturating_sub(1))),
                     pivot_ratio: 0.0,
-                })
+                });
             }
             Ok(_) => {}
         }
