@@ -3,6 +3,7 @@
 //! for a mechanism, which it names by node and direction.
 
 pub mod assemble;
+pub mod conditioning;
 pub mod dofs;
 pub mod results;
 pub mod solve;

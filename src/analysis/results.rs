@@ -302,6 +302,7 @@ pub fn analyse(model: &Model) -> Result<Analysis, AnalysisError> {
             (1.0 / ratio).log10()
         ));
     }
+    warnings.extend(super::conditioning::warnings(model, &prepared));
     Ok(Analysis {
         prepared,
         cases,

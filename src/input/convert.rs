@@ -105,6 +105,25 @@ fn unit_of(ctx: &mut Ctx, name: &str, want: Dimension, field: &str) -> Unit {
     }
 }
 
+/// An id for a message: escaped, and cut short if very long.
+pub(super) fn shown(name: &str) -> String {
+    if name.chars().count() > 60 {
+        format!(
+            "{}…",
+            name.chars().take(40).collect::<String>().escape_debug()
+        )
+    } else {
+        name.escape_debug().to_string()
+    }
+}
+
+/// Largest coordinate accepted, m: far beyond any structure, still well
+/// inside the range where squared lengths stay accurate.
+pub const MAX_COORDINATE: f64 = 1e8;
+
+/// Longest id accepted, in characters: ids head table columns.
+pub const MAX_ID_CHARS: usize = 256;
+
 /// Interns ids of one kind, reporting duplicates and empty ids.
 pub(super) fn intern<'f, T>(
     ctx: &mut Ctx,
@@ -120,11 +139,31 @@ pub(super) fn intern<'f, T>(
             ctx.error(format!("{kind} number {} has an empty id", i + 1), None);
             continue;
         }
+        if name.chars().count() > MAX_ID_CHARS {
+            ctx.error(
+                format!(
+                    "{kind} number {} has an id of {} characters (\"{}…\"); ids are at most {MAX_ID_CHARS}",
+                    i + 1,
+                    name.chars().count(),
+                    name.chars().take(24).collect::<String>().escape_debug()
+                ),
+                None,
+            );
+        } else if name.chars().any(char::is_control) {
+            ctx.error(
+                format!(
+                    "{kind} number {} id \"{}\" contains a control character (newline, tab ...); ids must print on one line",
+                    i + 1,
+                    name.escape_debug()
+                ),
+                None,
+            );
+        }
         if map.insert(name, i).is_some() {
             let n = seen.entry(name).or_insert(0);
             *n += 1;
             let at = ctx.loc.field("id", name, *n);
-            ctx.error(format!("duplicate {kind} id \"{name}\""), at);
+            ctx.error(format!("duplicate {kind} id \"{}\"", shown(name)), at);
         }
     }
     map
@@ -143,7 +182,10 @@ fn reference(
         None => {
             let at = ctx.loc.field(field, name, 0);
             ctx.error(
-                format!("{owner} refers to {kind} \"{name}\", which is not defined"),
+                format!(
+                    "{owner} refers to {kind} \"{}\", which is not defined",
+                    shown(name)
+                ),
                 at,
             );
             None
@@ -238,6 +280,19 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
             &format!("node \"{}\" y", n.id),
             at(),
         );
+        for (axis, v) in [("x", x), ("y", y)] {
+            if v.is_some_and(|v| v.abs() > MAX_COORDINATE) {
+                let at = ctx.loc.field("id", &n.id, 0);
+                ctx.error(
+                    format!(
+                        "node \"{}\" coordinate {axis} = {:.3e} m is beyond ±{MAX_COORDINATE:.0e} m; check the value and the length unit",
+                        shown(&n.id),
+                        v.unwrap_or(0.0)
+                    ),
+                    at,
+                );
+            }
+        }
         nodes.push(Node {
             id: n.id.clone(),
             x: x.unwrap_or(0.0),

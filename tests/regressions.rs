@@ -1,0 +1,33 @@
+//! Replays every saved fuzz case in `tests/regressions/` through the fuzz
+//! pipeline: each must end in an error or a result, never a panic.
+
+#[path = "regressions/pipeline.rs"]
+mod pipeline;
+
+#[test]
+fn every_saved_case_runs_clean() {
+    let dir = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("tests/regressions");
+    let mut n = 0;
+    let mut entries: Vec<_> = std::fs::read_dir(&dir)
+        .unwrap()
+        .map(|e| e.unwrap().path())
+        .filter(|p| p.extension().is_some_and(|e| e == "ron" || e == "bin"))
+        .collect();
+    entries.sort();
+    for p in entries {
+        let bytes = std::fs::read(&p).unwrap();
+        let outcome = std::panic::catch_unwind(|| pipeline::fuzz_one(&bytes));
+        assert!(outcome.is_ok(), "{} panicked", p.display());
+        n += 1;
+    }
+    // The seed cases below are always present; a missing folder must fail.
+    assert!(n >= 3, "only {n} regression cases found");
+}
+
+#[test]
+fn the_pipeline_solves_the_example() {
+    // Guard against a pipeline that rejects everything: the core example
+    // reaches the reports.
+    let bytes = include_bytes!("data/four_panel.ron");
+    assert!(pipeline::fuzz_one(bytes).starts_with("solved"));
+}
