@@ -26,19 +26,21 @@ pub fn load_str(text: &str) -> Result<Converted, Diagnostics> {
     if text.len() > MAX_FILE_BYTES {
         return Err(single("the model file is larger than 2 GiB", None));
     }
+    let file = parse_str(text)?;
+    let _ = Locator::new(text);
+    convert::convert(file, text)
+}
+
+/// The syntax step of [`load_str`] alone: RON text to the schema types,
+/// nothing converted or checked (public so benchmarks can time it apart).
+pub fn parse_str(text: &str) -> Result<schema::ModelFile, Diagnostics> {
     let options = ron::Options::default()
         .with_default_extension(ron::extensions::Extensions::IMPLICIT_SOME)
         .with_recursion_limit(64);
-    let file: schema::ModelFile = match options.from_str(text) {
-        Ok(f) => f,
-        Err(e) => {
-            let pos = e.span.start;
-            let at = (pos.line, pos.col);
-            return Err(single(&format!("syntax: {}", e.code), Some(at)));
-        }
-    };
-    let _ = Locator::new(text);
-    convert::convert(file, text)
+    options.from_str(text).map_err(|e| {
+        let pos = e.span.start;
+        single(&format!("syntax: {}", e.code), Some((pos.line, pos.col)))
+    })
 }
 
 fn single(message: &str, location: Option<(usize, usize)>) -> Diagnostics {
