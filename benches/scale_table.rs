@@ -121,8 +121,9 @@ fn bare(path: &Path) {
     println!("{t_sym} {t_num} {t_solve} {}", values.len());
 }
 
-/// Wall seconds and peak RSS bytes of a child, through `/usr/bin/time`.
+/// Wall seconds (timed here) and peak RSS bytes (from `/usr/bin/time`) of a child.
 fn timed_child(args: &[&str], stdout: Stdio) -> (f64, u64, String) {
+    let t = Instant::now();
     let out = Command::new("/usr/bin/time")
         .args(["-f", "@@ %e %M"])
         .args(args)
@@ -130,11 +131,12 @@ fn timed_child(args: &[&str], stdout: Stdio) -> (f64, u64, String) {
         .stderr(Stdio::piped())
         .output()
         .expect("run /usr/bin/time");
+    let wall = t.elapsed().as_secs_f64();
     let err = String::from_utf8_lossy(&out.stderr);
     assert!(out.status.success(), "{args:?} failed: {err}");
     let line = err.lines().rev().find(|l| l.starts_with("@@")).unwrap();
     let mut it = line.split_whitespace().skip(1);
-    let wall: f64 = it.next().unwrap().parse().unwrap();
+    let _coarse_wall = it.next();
     let kb: u64 = it.next().unwrap().parse().unwrap();
     (wall, kb * 1024, String::from_utf8_lossy(&out.stdout).into())
 }

@@ -30,11 +30,11 @@ fn check(side: usize) {
     let p = &a.prepared;
     let n = p.n();
     let mut q = vec![0.0; n];
-    for d in 0..n {
+    for (d, qd) in q.iter_mut().enumerate() {
         let node = p.dofs.node[d] as usize;
         let dir = p.dofs.direction[d];
         let u = case.displacements[node];
-        q[d] = u[0] * dir[0] + u[1] * dir[1];
+        *qd = u[0] * dir[0] + u[1] * dir[1];
     }
     let mut f = vec![0.0; n];
     p.load_vector(model, &model.cases[0], &mut f);
