@@ -58,6 +58,8 @@ pub struct Prepared {
     pub factor: Factor,
     rows: Vec<BRow>,
     stiff: Vec<f64>,
+    /// Unit vector of each member, computed once for every case recovered.
+    dirs: Vec<[f64; 2]>,
 }
 
 /// Everything `solve` reports.
@@ -103,12 +105,16 @@ impl Prepared {
         let stiff = (0..model.members.len())
             .map(|m| model.axial_stiffness(m))
             .collect();
+        let dirs = (0..model.members.len())
+            .map(|m| model.direction(m))
+            .collect();
         Ok(Prepared {
             dofs,
             k,
             factor,
             rows,
             stiff,
+            dirs,
         })
     }
 
@@ -138,7 +144,7 @@ impl Prepared {
         let mut e = vec![0.0; model.members.len()];
         if !case.settlements.is_empty() {
             for (m, mem) in model.members.iter().enumerate() {
-                let c = model.direction(m);
+                let c = self.dirs[m];
                 let (a, b) = (delta[mem.start], delta[mem.end]);
                 e[m] = c[0] * (b[0] - a[0]) + c[1] * (b[1] - a[1]);
             }
@@ -200,7 +206,13 @@ impl Prepared {
     ) -> Result<CaseResult, AnalysisError> {
         let nn = model.nodes.len();
         let delta = self.settlement(model, case);
-        let imposed = self.imposed(model, case, &delta);
+        // Plain nodal loads (the usual case, and every variant of a sweep)
+        // impose no elongation: skip the per-member pass.
+        let imposed = if case.settlements.is_empty() && case.elongations.is_empty() {
+            None
+        } else {
+            Some(self.imposed(model, case, &delta))
+        };
         let mut displacements = delta;
         for (d, &v) in q.iter().enumerate() {
             let node = self.dofs.node[d] as usize;
@@ -213,7 +225,8 @@ impl Prepared {
         let mut net = vec![[0.0f64; 2]; nn];
         let mut largest: f64 = 0.0;
         for (m, mem) in model.members.iter().enumerate() {
-            let e: f64 = self.rows[m].iter().map(|(d, b)| b * q[d]).sum::<f64>() + imposed[m];
+            let e: f64 = self.rows[m].iter().map(|(d, b)| b * q[d]).sum::<f64>()
+                + imposed.as_ref().map_or(0.0, |v| v[m]);
             let force = self.stiff[m] * e;
             forces.push(force);
             // The imposed part enters the nodal sums too; its size sets the
@@ -221,8 +234,8 @@ impl Prepared {
             // thermal expansion of a determinate truss).
             largest = largest
                 .max(force.abs())
-                .max((self.stiff[m] * imposed[m]).abs());
-            let c = model.direction(m);
+                .max((self.stiff[m] * imposed.as_ref().map_or(0.0, |v| v[m])).abs());
+            let c = self.dirs[m];
             net[mem.start][0] += force * c[0];
             net[mem.start][1] += force * c[1];
             net[mem.end][0] -= force * c[0];

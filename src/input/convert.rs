@@ -16,6 +16,9 @@ pub struct Converted {
     pub warnings: Vec<Diagnostic>,
 }
 
+/// Errors kept per model: a file with a million bad rows needs the first few.
+pub const ERROR_LIMIT: usize = 200;
+
 pub(super) struct Ctx<'a> {
     pub loc: Locator<'a>,
     pub errors: Vec<Diagnostic>,
@@ -25,12 +28,22 @@ pub(super) struct Ctx<'a> {
 impl<'a> Ctx<'a> {
     pub fn error(&mut self, message: String, location: Option<(usize, usize)>) {
         // Bound the list: a file with a million bad rows needs the first few.
-        if self.errors.len() < 200 {
+        if self.errors.len() < ERROR_LIMIT {
             self.errors.push(Diagnostic {
                 severity: Severity::Error,
                 message,
                 location,
             });
+        }
+    }
+
+    /// Where `key: "value"` sits in the text, as [`Locator::field`]; `None`
+    /// once the error list is full, since each search reads the whole text.
+    pub fn locate(&self, key: &str, value: &str, nth: usize) -> Option<(usize, usize)> {
+        if self.errors.len() < ERROR_LIMIT {
+            self.loc.field(key, value, nth)
+        } else {
+            None
         }
     }
 
@@ -162,7 +175,7 @@ pub(super) fn intern<'f, T>(
         if map.insert(name, i).is_some() {
             let n = seen.entry(name).or_insert(0);
             *n += 1;
-            let at = ctx.loc.field("id", name, *n);
+            let at = ctx.locate("id", name, *n);
             ctx.error(format!("duplicate {kind} id \"{}\"", shown(name)), at);
         }
     }
@@ -180,7 +193,7 @@ fn reference(
     match map.get(name) {
         Some(&i) => Some(i),
         None => {
-            let at = ctx.loc.field(field, name, 0);
+            let at = ctx.locate(field, name, 0);
             ctx.error(
                 format!(
                     "{owner} refers to {kind} \"{}\", which is not defined",
@@ -306,7 +319,7 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
     let tol = geometry::tolerance(&nodes);
     if values_ok {
         for (a, b) in geometry::coincident_nodes(&nodes, tol) {
-            let at = ctx.loc.field("id", &nodes[b].id, 0);
+            let at = ctx.locate("id", &nodes[b].id, 0);
             ctx.error(
                 format!(
                     "nodes \"{}\" and \"{}\" are at the same place; join them into one node",
@@ -341,8 +354,10 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
             &owner,
         );
         if let (Some(s), Some(e), Some(sec), Some(mat)) = (start, end, section, material) {
-            let at = ctx.loc.field("id", &m.id, 0);
+            // Located only on error: a search of the whole text per member
+            // would make loading quadratic in the model size.
             if s == e {
+                let at = ctx.locate("id", &m.id, 0);
                 ctx.error(
                     format!("{owner} starts and ends at the same node \"{}\"", m.start),
                     at,
@@ -351,9 +366,11 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
             }
             let l = (nodes[e].x - nodes[s].x).hypot(nodes[e].y - nodes[s].y);
             if values_ok && l <= tol {
+                let at = ctx.locate("id", &m.id, 0);
                 ctx.error(format!("{owner} has zero length"), at);
                 continue;
             }
+            let at = None;
             let factor = |ctx: &mut Ctx, k: Option<f64>, name: &str| match k {
                 Some(k) if !(k.is_finite() && k > 0.0) => {
                     ctx.error(
@@ -400,7 +417,7 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
             continue;
         };
         if supported[node] {
-            let at = ctx.loc.field("node", &s.node, 1);
+            let at = ctx.locate("node", &s.node, 1);
             ctx.error(format!("node \"{}\" has more than one support", s.node), at);
             continue;
         }
@@ -489,7 +506,7 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
                 value(&mut ctx, q, Dimension::Force, u, &what("fy"), None)
             });
             if degree[node] == 0 && !supported[node] {
-                let at = ctx.loc.field("node", &l.node, 0);
+                let at = ctx.locate("node", &l.node, 0);
                 ctx.error(
                     format!(
                         "case \"{}\" loads node \"{}\", which no member meets",
@@ -508,7 +525,7 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
                 continue;
             };
             if !supported[node] {
-                let at = ctx.loc.field("node", &s.node, 0);
+                let at = ctx.locate("node", &s.node, 0);
                 ctx.error(
                     format!(
                         "case \"{}\" settles node \"{}\", which has no support",
@@ -684,9 +701,16 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
     }
 
     // Warnings: isolated nodes and members crossing without a joint.
+    // Only the first few are located: each search reads the whole text.
+    let mut isolated = 0;
     for (i, n) in nodes.iter().enumerate() {
         if degree[i] == 0 {
-            let at = ctx.loc.field("id", &n.id, 0);
+            isolated += 1;
+            let at = if isolated <= ERROR_LIMIT {
+                ctx.loc.field("id", &n.id, 0)
+            } else {
+                None
+            };
             ctx.warn(format!("node \"{}\" has no member", n.id), at);
         }
     }

@@ -15,8 +15,6 @@ pub mod sweep;
 pub use convert::Converted;
 pub use diagnostics::{Diagnostic, Diagnostics, Severity};
 
-use diagnostics::Locator;
-
 /// Largest model file accepted, bytes; a guard against feeding the loader
 /// something that is not a model at all.
 pub const MAX_FILE_BYTES: usize = 1 << 31;
@@ -36,20 +34,21 @@ pub fn load_str_in(text: &str, dir: Option<&std::path::Path>) -> Result<Converte
     if text.len() > MAX_FILE_BYTES {
         return Err(single("the model file is larger than 2 GiB", None));
     }
+    let mut file = parse_str(text)?;
+    loads::merge_vehicles_file(&mut file, dir)?;
+    convert::convert(file, text)
+}
+
+/// The syntax step of [`load_str`] alone: RON text to the schema types,
+/// nothing converted or checked (public so benchmarks can time it apart).
+pub fn parse_str(text: &str) -> Result<schema::ModelFile, Diagnostics> {
     let options = ron::Options::default()
         .with_default_extension(ron::extensions::Extensions::IMPLICIT_SOME)
         .with_recursion_limit(64);
-    let mut file: schema::ModelFile = match options.from_str(text) {
-        Ok(f) => f,
-        Err(e) => {
-            let pos = e.span.start;
-            let at = (pos.line, pos.col);
-            return Err(single(&format!("syntax: {}", e.code), Some(at)));
-        }
-    };
-    let _ = Locator::new(text);
-    loads::merge_vehicles_file(&mut file, dir)?;
-    convert::convert(file, text)
+    options.from_str(text).map_err(|e| {
+        let pos = e.span.start;
+        single(&format!("syntax: {}", e.code), Some((pos.line, pos.col)))
+    })
 }
 
 fn single(message: &str, location: Option<(usize, usize)>) -> Diagnostics {
