@@ -27,6 +27,12 @@ pub const SHALLOW_RATIO: f64 = 1e-3;
 pub const CONDITION_WARNING: f64 = 1e8;
 /// Steps of power and of inverse iteration.
 pub const ITERATIONS: usize = 16;
+
+/// Above this many DOFs the inverse iteration takes [`LARGE_ITERATIONS`]
+/// steps: each is a full triangular solve, and the estimate must stay a
+/// small fraction of the factorization's cost (it remains a lower bound).
+pub const LARGE_MODEL_DOFS: usize = 100_000;
+pub const LARGE_ITERATIONS: usize = 3;
 /// At most this many near-mechanism nodes are named.
 const SHOWN: usize = 5;
 
@@ -81,7 +87,8 @@ pub fn estimate(p: &Prepared) -> Option<ConditionEstimate> {
     let (mut x, mut y) = (start(n), vec![0.0; n]);
     normalise(&mut x);
     let mut lambda_max = 0.0;
-    for _ in 0..ITERATIONS {
+    let power_steps = if n > LARGE_MODEL_DOFS { 8 } else { ITERATIONS };
+    for _ in 0..power_steps {
         // y = S x = D^-1/2 K D^-1/2 x
         let z: Vec<f64> = x.iter().zip(&d).map(|(v, s)| v / s).collect();
         p.k.sym_mul(&z, &mut y);
@@ -95,7 +102,12 @@ pub fn estimate(p: &Prepared) -> Option<ConditionEstimate> {
     let mut x = start(n);
     normalise(&mut x);
     let mut mu_max = 0.0;
-    for _ in 0..ITERATIONS {
+    let steps = if n > LARGE_MODEL_DOFS {
+        LARGE_ITERATIONS
+    } else {
+        ITERATIONS
+    };
+    for _ in 0..steps {
         // y = S^-1 x = D^1/2 K^-1 D^1/2 x
         let mut y: Vec<f64> = x.iter().zip(&d).map(|(v, s)| v * s).collect();
         p.factor.solve_in_place(&mut y, 1);

@@ -60,7 +60,14 @@ type FieldIndex<'a> = HashMap<(&'a str, &'a str), Vec<(usize, usize)>>;
 pub struct Locator<'a> {
     text: &'a str,
     index: std::cell::OnceCell<FieldIndex<'a>>,
+    /// Lookups so far: the first few scan the text directly (ids of
+    /// materials and sections sit near the top), so a good model never pays
+    /// for the index; only many lookups build it.
+    lookups: std::cell::Cell<usize>,
 }
+
+/// Lookups answered by a direct scan before the index is built.
+const DIRECT_LOOKUPS: usize = 32;
 
 /// Every `key: "value"` in `text` (strings inside comments skipped), with
 /// the 1-based line and column of the opening quote, in file order.
@@ -141,6 +148,7 @@ impl<'a> Locator<'a> {
         Locator {
             text,
             index: std::cell::OnceCell::new(),
+            lookups: std::cell::Cell::new(0),
         }
     }
 
@@ -154,8 +162,36 @@ impl<'a> Locator<'a> {
 
     /// The `nth` (0-based) occurrence of `"value"` after the field `key:`.
     pub fn field(&self, key: &str, value: &str, nth: usize) -> Option<(usize, usize)> {
+        let used = self.lookups.get();
+        self.lookups.set(used + 1);
+        if used < DIRECT_LOOKUPS && self.index.get().is_none() {
+            return self.scan(key, value, nth);
+        }
         let index = self.index.get_or_init(|| index_fields(self.text));
         index.get(&(key, value)).and_then(|v| v.get(nth)).copied()
+    }
+
+    /// The `nth` `key: "value"` by a direct search that stops at the find.
+    fn scan(&self, key: &str, value: &str, nth: usize) -> Option<(usize, usize)> {
+        let quoted = format!("\"{value}\"");
+        let mut count = 0;
+        for (pos, _) in self.text.match_indices(&quoted) {
+            let before = self.text[..pos].trim_end();
+            let Some(b) = before.strip_suffix(':') else {
+                continue;
+            };
+            let b = b.trim_end();
+            let start = b
+                .rfind(|c: char| !(c.is_ascii_alphanumeric() || c == '_'))
+                .map_or(0, |p| p + 1);
+            if &b[start..] == key {
+                if count == nth {
+                    return Some(self.line_col(pos));
+                }
+                count += 1;
+            }
+        }
+        None
     }
 }
 
@@ -171,5 +207,11 @@ mod tests {
         assert_eq!(loc.field("id", "A", 1), Some((3, 7)));
         assert_eq!(loc.field("node", "B", 0), Some((3, 18)));
         assert_eq!(loc.field("id", "B", 0), None);
+        // Past the direct lookups the index answers the same.
+        for _ in 0..DIRECT_LOOKUPS {
+            loc.field("id", "A", 0);
+        }
+        assert_eq!(loc.field("id", "A", 1), Some((3, 7)));
+        assert_eq!(loc.field("node", "B", 0), Some((3, 18)));
     }
 }
