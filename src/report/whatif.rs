@@ -29,6 +29,8 @@ pub struct SweepWriter {
     detail: bool,
     scale: Scale,
     rows: usize,
+    /// Width of the text case column, set from the model's effect names.
+    case_width: std::cell::Cell<usize>,
 }
 
 impl SweepWriter {
@@ -38,6 +40,7 @@ impl SweepWriter {
             detail,
             scale: Scale::of(model),
             rows: 0,
+            case_width: std::cell::Cell::new(10),
         }
     }
 
@@ -52,6 +55,21 @@ impl SweepWriter {
         let s = &self.scale;
         match self.format {
             Format::Text => {
+                // Rows stream as they finish, so the case column is sized
+                // from every effect name the model can produce.
+                let moving = model.live.moving.iter().map(|m| m.id.len()).max().unwrap_or(0);
+                let width = model
+                    .cases
+                    .iter()
+                    .map(|c| c.id.len())
+                    .chain(model.combinations.iter().map(|c| {
+                        c.id.len() + if c.moving.is_empty() { 0 } else { moving + 20 }
+                    }))
+                    .chain(std::iter::once(if moving > 0 { moving + 24 } else { 0 }))
+                    .max()
+                    .unwrap_or(4)
+                    .clamp(4, 48);
+                self.case_width.set(width);
                 writeln!(w, "{}: sweep of {total} variants{shard}", model.title)?;
                 writeln!(w, "{CAUTION}")?;
                 writeln!(
@@ -61,8 +79,9 @@ impl SweepWriter {
                 )?;
                 writeln!(
                     w,
-                    "{:>6}  {:>6}  {:<12} {:<10} {:>6}  {:<12} {:>8}  {:<6} {:<9}  variant",
-                    "index", "util", "member", "case", "RF", "member", "defl", "node", "kind"
+                    "{:>6}  {:>6}  {:<12} {:<cw$} {:>6}  {:<12} {:>8}  {:<6} {:<9}  variant",
+                    "index", "util", "member", "case", "RF", "member", "defl", "node", "kind",
+                    cw = width
                 )
             }
             Format::Json => write!(
@@ -104,7 +123,7 @@ impl SweepWriter {
                     Ok(o) => {
                         writeln!(
                             w,
-                            "{:>6}  {:>6}  {:<12} {:<10} {:>6}  {:<12} {:>8}  {:<6} {:<9}  {label}",
+                            "{:>6}  {:>6}  {:<12} {:<cw$} {:>6}  {:<12} {:>8}  {:<6} {:<9}  {label}",
                             r.index,
                             opt(o.max_utilization, 3),
                             o.controlling_member.as_deref().unwrap_or("-"),
@@ -114,16 +133,18 @@ impl SweepWriter {
                             sig(o.max_deflection / d, 3),
                             o.deflection_node.as_deref().unwrap_or("-"),
                             kind_name(r.kind),
+                            cw = self.case_width.get(),
                         )?;
                         for m in &o.members {
                             writeln!(
                                 w,
-                                "{:>6}  {:>6}  {:<12} {:<10} {:>6}",
+                                "{:>6}  {:>6}  {:<12} {:<cw$} {:>6}",
                                 "",
                                 sig(m.utilization, 3),
                                 m.member,
                                 m.case,
-                                opt(m.rating_factor, 3)
+                                opt(m.rating_factor, 3),
+                                cw = self.case_width.get()
                             )?;
                         }
                         Ok(())
