@@ -17,11 +17,8 @@ pub const DEFAULT_SAFETY_FACTOR: f64 = 2.12;
 /// The allowable stress is this value divided by FS. Defined for
 /// `slenderness >= 0`.
 pub fn nominal_stress(fy: f64, e: f64, slenderness: f64) -> f64 {
-    if slenderness <= transition_slenderness(fy, e) {
-        parabola(fy, e, slenderness)
-    } else {
-        euler_stress(e, slenderness)
-    }
+    // The same Johnson–Euler curve, before the safety factor.
+    super::johnson::nominal_stress(fy, e, slenderness)
 }
 
 /// Allowable axial compressive stress Fa, AASHTO Standard Specifications
