@@ -857,11 +857,7 @@ fn ratings(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: &
         return;
     }
     h.push_str("<p>RF = (φc·φs·C − γD·D) / (γL·(L + IM)), C the design capacity in the sense of the live force, D the sum of the Dead cases.</p>\n");
-    let mut idx: Vec<usize> = (0..r.ratings.len()).collect();
-    idx.sort_by(|&a, &b| {
-        let key = |i: usize| r.ratings[i].inventory.unwrap_or(f64::INFINITY);
-        key(a).total_cmp(&key(b))
-    });
+    let idx = super::rate_rows::by_rating(r);
     let du = format!("dead {}", s.force_name);
     let lu = format!("live + IM {}", s.force_name);
     let cu = format!("capacity {}", s.force_name);

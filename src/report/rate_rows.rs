@@ -65,6 +65,17 @@ pub fn check_row<'a>(model: &'a Model, r: &'a Rating, c: &Check) -> CheckRow<'a>
     }
 }
 
+/// Rating indices sorted by inventory rating factor, lowest first (rows
+/// without a factor last).
+pub fn by_rating(r: &Rating) -> Vec<usize> {
+    let mut idx: Vec<usize> = (0..r.ratings.len()).collect();
+    idx.sort_by(|&a, &b| {
+        let key = |i: usize| r.ratings[i].inventory.unwrap_or(f64::INFINITY);
+        key(a).total_cmp(&key(b))
+    });
+    idx
+}
+
 /// Check indices sorted by utilization, highest first.
 pub fn by_utilization(r: &Rating) -> Vec<usize> {
     let mut idx: Vec<usize> = (0..r.checks.len()).collect();

@@ -148,11 +148,7 @@ pub fn rate_term(
 
     if !rating.ratings.is_empty() {
         writeln!(w, "\n== Rating factors, lowest first ==")?;
-        let mut idx: Vec<usize> = (0..rating.ratings.len()).collect();
-        idx.sort_by(|&a, &b| {
-            let key = |i: usize| rating.ratings[i].inventory.unwrap_or(f64::INFINITY);
-            key(a).total_cmp(&key(b))
-        });
+        let idx = super::rate_rows::by_rating(rating);
         let du = format!("dead {}", s.force_name);
         let lu = format!("live+IM {}", s.force_name);
         let cu = format!("capacity {}", s.force_name);
