@@ -367,6 +367,12 @@ fn main() {
         bare(Path::new(&args[1]));
         return;
     }
+    // `write DOFS PATH`: only write the lattice model, for profiling the CLI.
+    if args.first().map(String::as_str) == Some("write") {
+        let dofs: usize = args[1].parse().expect("a DOF count");
+        std::fs::write(&args[2], lattice_text(dofs)).unwrap();
+        return;
+    }
     let sizes: Vec<usize> = if args.is_empty() {
         vec![1_000, 10_000, 100_000]
     } else {

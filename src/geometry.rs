@@ -2,7 +2,6 @@
 //! model, coincident nodes, and members that cross without a joint.
 
 use crate::model::{Model, Node};
-use std::collections::HashMap;
 
 /// Distances below this are "the same place": a billionth of the model's
 /// size, so the check means the same in mm or in miles.
@@ -26,43 +25,49 @@ pub fn tolerance(nodes: &[Node]) -> f64 {
 pub const COINCIDENT_LIMIT: usize = 100;
 
 /// Pairs `(a, b)`, `a < b`, of nodes within `tol` of each other in both x and
-/// y, found through a hash grid of cell `tol` so the cost stays linear even
-/// when whole columns of nodes share one x. At most [`COINCIDENT_LIMIT`]
-/// pairs, in order of the later node.
+/// y, found through a hash grid so the cost stays linear even when whole
+/// columns of nodes share one x. The cells are 64 `tol` wide, so the square
+/// of half-width `tol` round a node almost always lies in one cell: about
+/// one lookup per node. Each cell holds a chain of its nodes through one
+/// `next` array, not a list of its own. At most [`COINCIDENT_LIMIT`] pairs,
+/// in order of the later node.
 pub fn coincident_nodes(nodes: &[Node], tol: f64) -> Vec<(usize, usize)> {
-    let cell = tol.max(f64::MIN_POSITIVE);
-    let key = |n: &Node| {
-        // Saturating casts: non-finite or huge coordinates land in the edge
-        // cells and are still compared exactly below.
-        ((n.x / cell).floor() as i64, (n.y / cell).floor() as i64)
-    };
-    let mut grid: HashMap<(i64, i64), Vec<u32>> = HashMap::with_capacity(nodes.len());
+    const NONE: u32 = u32::MAX;
+    let cell = (64.0 * tol).max(f64::MIN_POSITIVE);
+    // Saturating casts: non-finite or huge coordinates land in the edge
+    // cells and are still compared exactly below.
+    let key = |v: f64| (v / cell).floor() as i64;
+    let mut head: rustc_hash::FxHashMap<(i64, i64), u32> =
+        rustc_hash::FxHashMap::with_capacity_and_hasher(nodes.len(), Default::default());
+    let mut next = vec![NONE; nodes.len()];
     let mut pairs = Vec::new();
     'nodes: for (b, nb) in nodes.iter().enumerate() {
-        let (kx, ky) = key(nb);
-        let mut near = [(0i64, 0i64); 9];
-        let mut count = 0;
-        for dx in -1..=1i64 {
-            for dy in -1..=1i64 {
-                let k = (kx.saturating_add(dx), ky.saturating_add(dy));
-                if !near[..count].contains(&k) {
-                    near[count] = k;
-                    count += 1;
-                }
-            }
-        }
-        for k in &near[..count] {
-            for &a in grid.get(k).map_or(&[][..], |v| &v[..]) {
-                let na = &nodes[a as usize];
-                if (nb.x - na.x).abs() <= tol && (nb.y - na.y).abs() <= tol {
-                    pairs.push((a as usize, b));
-                    if pairs.len() >= COINCIDENT_LIMIT {
-                        break 'nodes;
+        let (x0, x1) = (key(nb.x - tol), key(nb.x + tol));
+        let (y0, y1) = (key(nb.y - tol), key(nb.y + tol));
+        let mut near = Vec::new();
+        for cx in x0..=x1.max(x0).min(x0.saturating_add(1)) {
+            for cy in y0..=y1.max(y0).min(y0.saturating_add(1)) {
+                let mut a = head.get(&(cx, cy)).copied().unwrap_or(NONE);
+                while a != NONE {
+                    let na = &nodes[a as usize];
+                    if (nb.x - na.x).abs() <= tol && (nb.y - na.y).abs() <= tol {
+                        near.push(a as usize);
                     }
+                    a = next[a as usize];
                 }
             }
         }
-        grid.entry((kx, ky)).or_default().push(b as u32);
+        // Chains run newest first: report in node order.
+        near.sort_unstable();
+        for a in near {
+            pairs.push((a, b));
+            if pairs.len() >= COINCIDENT_LIMIT {
+                break 'nodes;
+            }
+        }
+        let own = head.entry((key(nb.x), key(nb.y))).or_insert(NONE);
+        next[b] = *own;
+        *own = b as u32;
     }
     pairs.sort_unstable_by_key(|&(a, b)| (b, a));
     pairs
@@ -97,12 +102,16 @@ fn segments_touch(p: [f64; 2], q: [f64; 2], r: [f64; 2], s: [f64; 2], tol: f64) 
 
 /// Pairs `(a, b)`, `a < b`, of members that cross, touch or overlap
 /// without sharing a node, sorted. Found through a uniform grid of cell about
-/// one mean member length: each member is entered in the cells its bounding
-/// box (grown by `tol`) covers, and a pair is tested only in the one cell that
-/// holds the lower-left corner of the overlap of their boxes, so no pair is
-/// tested twice and no set of seen pairs is needed. Linear in the number of
-/// members for evenly spread layouts, whatever the number of crossings.
+/// one mean member length, stored flat (counting sort: one pass counts the
+/// members of each cell, a second files them), so a million members cost
+/// two passes and no allocation per cell. Each member is entered in the
+/// cells its bounding box (grown by `tol`) covers, and a pair is tested only
+/// in the one cell that holds the lower-left corner of the overlap of their
+/// boxes, so no pair is tested twice and no set of seen pairs is needed.
+/// Linear in the number of members for evenly spread layouts, whatever the
+/// number of crossings; cells are scanned on all cores.
 pub fn crossing_members(model: &Model, tol: f64) -> Vec<(usize, usize)> {
+    use rayon::prelude::*;
     let m = model.members.len();
     if m < 2 {
         return Vec::new();
@@ -122,27 +131,85 @@ pub fn crossing_members(model: &Model, tol: f64) -> Vec<(usize, usize)> {
             ]
         })
         .collect();
-    let total: f64 = (0..m).map(|i| model.length(i)).sum();
-    let cell = (total / m as f64).max(4.0 * tol).max(f64::MIN_POSITIVE);
-    let key = |v: f64| (v / cell).floor() as i64;
-    let mut grid: HashMap<(i64, i64), Vec<u32>> = HashMap::with_capacity(m);
-    let mut oversize = Vec::new();
-    for (i, b) in boxes.iter().enumerate() {
-        let (cx0, cx1) = (key(b[0]), key(b[2]));
-        let (cy0, cy1) = (key(b[1]), key(b[3]));
-        let cells = (cx1 - cx0)
-            .saturating_add(1)
-            .saturating_mul((cy1 - cy0).saturating_add(1));
-        if !(1..=64).contains(&cells) {
-            oversize.push(i);
-            continue;
+    let mut extent = [f64::MAX, f64::MAX, f64::MIN, f64::MIN];
+    for b in &boxes {
+        extent = [
+            extent[0].min(b[0]),
+            extent[1].min(b[1]),
+            extent[2].max(b[2]),
+            extent[3].max(b[3]),
+        ];
+    }
+    let (width, height) = (extent[2] - extent[0], extent[3] - extent[1]);
+    if !(width.is_finite() && height.is_finite()) {
+        return Vec::new();
+    }
+    let total: f64 = boxes.iter().map(|b| (b[2] - b[0]).max(b[3] - b[1])).sum();
+    let mut cell = (total / m as f64).max(4.0 * tol).max(f64::MIN_POSITIVE);
+    // A sparse layout (a few members far apart) would need more cells than
+    // members: coarsen the grid until there are at most about 4 per member.
+    let budget = 4.0 * m as f64 + 64.0;
+    let cells_for = |cell: f64| ((width / cell).floor() + 1.0) * ((height / cell).floor() + 1.0);
+    if cells_for(cell) > budget {
+        cell *= (cells_for(cell) / budget).sqrt();
+        while cells_for(cell) > budget {
+            cell *= 1.5;
         }
-        for cx in cx0..=cx1 {
-            for cy in cy0..=cy1 {
-                grid.entry((cx, cy)).or_default().push(i as u32);
+    }
+    let nx = (width / cell).floor() as usize + 1;
+    let ny = (height / cell).floor() as usize + 1;
+    // Cell of a coordinate: monotone in v (a product and a truncation of
+    // a non-negative value), which is all the search below relies on.
+    let inv = 1.0 / cell;
+    let key = |v: f64, origin: f64, n: usize| (((v - origin) * inv).max(0.0) as usize).min(n - 1);
+    // Cell range [x0, x1, y0, y1] of each member's box.
+    let spans: Vec<[u32; 4]> = boxes
+        .iter()
+        .map(|b| {
+            [
+                key(b[0], extent[0], nx) as u32,
+                key(b[2], extent[0], nx) as u32,
+                key(b[1], extent[1], ny) as u32,
+                key(b[3], extent[1], ny) as u32,
+            ]
+        })
+        .collect();
+    // The range of a member covering at most 64 cells; the rest are oversize.
+    let span = |i: usize| {
+        let [x0, x1, y0, y1] = spans[i].map(|v| v as usize);
+        ((x1 - x0 + 1) * (y1 - y0 + 1) <= 64).then_some((x0, x1, y0, y1))
+    };
+    let mut start = vec![0u32; nx * ny + 1];
+    let mut oversize = Vec::new();
+    for i in 0..m {
+        match span(i) {
+            Some((x0, x1, y0, y1)) => {
+                for cy in y0..=y1 {
+                    for cx in x0..=x1 {
+                        start[cy * nx + cx + 1] += 1;
+                    }
+                }
+            }
+            None => oversize.push(i),
+        }
+    }
+    for c in 1..start.len() {
+        start[c] += start[c - 1];
+    }
+    let mut filed = vec![0u32; start[nx * ny] as usize];
+    let mut next: Vec<u32> = start[..nx * ny].to_vec();
+    for i in 0..m {
+        if let Some((x0, x1, y0, y1)) = span(i) {
+            for cy in y0..=y1 {
+                for cx in x0..=x1 {
+                    let slot = &mut next[cy * nx + cx];
+                    filed[*slot as usize] = i as u32;
+                    *slot += 1;
+                }
             }
         }
     }
+    drop(next);
     let touch = |a: usize, b: usize| {
         let (ma, mb) = (&model.members[a], &model.members[b]);
         let shared =
@@ -151,21 +218,33 @@ pub fn crossing_members(model: &Model, tol: f64) -> Vec<(usize, usize)> {
     };
     let overlap =
         |a: &[f64; 4], b: &[f64; 4]| a[0] <= b[2] && b[0] <= a[2] && a[1] <= b[3] && b[1] <= a[3];
-    let mut pairs = Vec::new();
-    for (&(cx, cy), list) in &grid {
+    let in_cell = |c: usize, found: &mut Vec<(usize, usize)>| {
+        let (cx, cy) = ((c % nx) as u32, (c / nx) as u32);
+        let list = &filed[start[c] as usize..start[c + 1] as usize];
         for (k, &a) in list.iter().enumerate() {
-            let ba = &boxes[a as usize];
+            let (ba, sa) = (&boxes[a as usize], &spans[a as usize]);
             for &b in &list[k + 1..] {
-                let bb = &boxes[b as usize];
-                if !overlap(ba, bb) || key(ba[0].max(bb[0])) != cx || key(ba[1].max(bb[1])) != cy {
+                let (bb, sb) = (&boxes[b as usize], &spans[b as usize]);
+                // The cell of the overlap's lower-left corner, by the
+                // monotone key: the larger of the two lower cells.
+                if !overlap(ba, bb) || sa[0].max(sb[0]) != cx || sa[2].max(sb[2]) != cy {
                     continue;
                 }
                 if touch(a as usize, b as usize) {
-                    pairs.push(((a.min(b)) as usize, (a.max(b)) as usize));
+                    found.push((a.min(b) as usize, a.max(b) as usize));
                 }
             }
         }
-    }
+    };
+    let rows: Vec<Vec<(usize, usize)>> = (0..ny)
+        .into_par_iter()
+        .map(|cy| {
+            let mut found = Vec::new();
+            (cy * nx..(cy + 1) * nx).for_each(|c| in_cell(c, &mut found));
+            found
+        })
+        .collect();
+    let mut pairs: Vec<(usize, usize)> = rows.into_iter().flatten().collect();
     let is_oversize = {
         let mut v = vec![false; m];
         oversize.iter().for_each(|&i| v[i] = true);
@@ -181,7 +260,7 @@ pub fn crossing_members(model: &Model, tol: f64) -> Vec<(usize, usize)> {
             }
         }
     }
-    pairs.sort_unstable();
+    pairs.par_sort_unstable();
     pairs
 }
 
@@ -333,6 +412,30 @@ mod tests {
     }
 
     #[test]
+    fn crossings_in_far_apart_clusters_match_brute_force() {
+        // Two small crossing clusters 1e6 m apart: the grid at one member
+        // length would need ~1e11 cells, so it is coarsened; the pairs must
+        // still be exactly those of the all-pairs search.
+        let mut nodes = Vec::new();
+        let mut members = Vec::new();
+        for (c, (ox, oy)) in [(0.0, 0.0), (1e6, 3e5)].into_iter().enumerate() {
+            let b = c * 4;
+            nodes.push(node(b, ox, oy));
+            nodes.push(node(b + 1, ox + 2.0, oy + 2.0));
+            nodes.push(node(b + 2, ox + 2.0, oy));
+            nodes.push(node(b + 3, ox, oy + 2.0));
+            members.push((b, b + 1));
+            members.push((b + 2, b + 3));
+            members.push((b, b + 2));
+        }
+        let m = model(nodes, &members);
+        let tol = tolerance(&m.nodes);
+        let brute = crossings_brute(&m, tol);
+        assert_eq!(brute, vec![(0, 1), (3, 4)]);
+        assert_eq!(crossing_members(&m, tol), brute);
+    }
+
+    #[test]
     fn touching_end_on_member_counts_as_crossing() {
         // A T-junction without a node: the stem's end lies on the bar.
         let nodes = vec![
@@ -343,6 +446,45 @@ mod tests {
         ];
         let m = model(nodes, &[(0, 1), (2, 3)]);
         assert_eq!(crossing_members(&m, tolerance(&m.nodes)), vec![(0, 1)]);
+    }
+
+    #[test]
+    fn coincident_nodes_match_brute_force_near_cell_edges() {
+        // Nodes on a coarse grid, each followed by copies nudged by up to
+        // twice the tolerance either way (some within it, some not), placed
+        // about cell edges: the all-pairs test is the reference.
+        let tol = 1e-3;
+        let cell = 64.0 * tol;
+        let mut nodes = Vec::new();
+        let mut state = 99u64;
+        let mut rnd = || {
+            state = state
+                .wrapping_mul(6364136223846793005)
+                .wrapping_add(1442695040888963407);
+            (state >> 11) as f64 / (1u64 << 53) as f64 - 0.5
+        };
+        for i in 0..12 {
+            for j in 0..5 {
+                let (x, y) = (i as f64 * 7.0 * cell, j as f64 * 3.0 * cell);
+                nodes.push(node(nodes.len(), x, y));
+                for _ in 0..2 {
+                    let (dx, dy) = (4.0 * tol * rnd(), 4.0 * tol * rnd());
+                    nodes.push(node(nodes.len(), x + dx, y + dy));
+                }
+            }
+        }
+        let mut brute = Vec::new();
+        for b in 0..nodes.len() {
+            for a in 0..b {
+                let (na, nb) = (&nodes[a], &nodes[b]);
+                if (na.x - nb.x).abs() <= tol && (na.y - nb.y).abs() <= tol {
+                    brute.push((a, b));
+                }
+            }
+        }
+        brute.truncate(COINCIDENT_LIMIT);
+        assert!(brute.len() > 20, "the layout should have close pairs");
+        assert_eq!(coincident_nodes(&nodes, tol), brute);
     }
 
     #[test]

@@ -21,4 +21,5 @@ pub mod report;
 pub mod section;
 pub mod sensitivity;
 pub mod sweep;
+pub mod timing;
 pub mod units;

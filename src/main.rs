@@ -6,7 +6,7 @@ use std::process::ExitCode;
 
 fn main() -> ExitCode {
     let cli = panelpoint::cli::Cli::parse();
-    match panelpoint::cli::run(cli) {
+    match panelpoint::timing::stage("whole run", || panelpoint::cli::run(cli)) {
         Ok(code) => ExitCode::from(code),
         Err(e) => {
             for line in e.lines() {

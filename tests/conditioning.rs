@@ -4,7 +4,9 @@
 mod common;
 use common::triangle;
 use panelpoint::analysis::analyse;
-use panelpoint::analysis::conditioning::{estimate, CONDITION_WARNING};
+use panelpoint::analysis::conditioning::{
+    estimate, estimate_with, first_probe, lambda_max, CONDITION_WARNING,
+};
 use panelpoint::analysis::results::{AnalysisError, Prepared};
 use panelpoint::error::Error;
 use panelpoint::input::load_str;
@@ -94,6 +96,31 @@ fn condition_estimate_is_a_close_lower_bound() {
             "estimate {est} above κ {exact}"
         );
         assert!(est >= 0.3 * exact, "estimate {est} far below κ {exact}");
+    }
+}
+
+#[test]
+fn first_step_solved_with_the_cases_gives_the_same_estimate() {
+    // `analyse` solves the first inverse-iteration step in the load cases'
+    // block; the estimate must match the one that solves it alone (same
+    // arithmetic up to the block solve's rounding).
+    for text in [
+        include_str!("data/four_panel.ron").to_string(),
+        triangle("4.0", "0.01"),
+    ] {
+        let c = load_str(&text).unwrap();
+        assert!(!c.model.cases.is_empty());
+        let p = Prepared::new(&c.model).unwrap();
+        let alone = estimate(&p).unwrap();
+        let probe = first_probe(&p.k).unwrap();
+        let (_, first) = p
+            .solve_cases_with(&c.model, &c.model.cases, Some(probe))
+            .unwrap();
+        let first = first.expect("the extra column is returned");
+        let lmax = lambda_max(&p.k).unwrap();
+        let with = estimate_with(&p, lmax, Some(first)).unwrap();
+        let rel = (with.condition - alone.condition).abs() / alone.condition;
+        assert!(rel < 1e-9, "{} vs {}", with.condition, alone.condition);
     }
 }
 

@@ -13,6 +13,8 @@
 //! Numerical Algorithms, ch. 7, from memory): about log10 κ of the 16
 //! significant digits of a double may be lost.
 
+use super::assemble::Csc;
+use super::dofs::Dofs;
 use super::results::Prepared;
 use crate::model::Model;
 
@@ -73,25 +75,32 @@ fn start(n: usize) -> Vec<f64> {
         .collect()
 }
 
-/// Estimate the condition of the scaled stiffness of `p`; `None` for an
-/// empty model or if the iteration met a non-finite value.
-pub fn estimate(p: &Prepared) -> Option<ConditionEstimate> {
-    let n = p.n();
+/// √diag K, the Jacobi scaling; `None` if a diagonal is not positive.
+fn root_diagonal(k: &Csc) -> Option<Vec<f64>> {
+    let d: Vec<f64> = (0..k.n).map(|j| k.get(j, j).max(0.0).sqrt()).collect();
+    d.iter().all(|&v| v > 0.0 && v.is_finite()).then_some(d)
+}
+
+/// λmax of the scaled stiffness by power iteration with K·x alone (no
+/// factor needed, so it can run beside the factorization). `None` for an
+/// empty or non-positive diagonal or a non-finite step.
+pub fn lambda_max(k: &Csc) -> Option<f64> {
+    let n = k.n;
     if n == 0 {
         return None;
     }
-    let d: Vec<f64> = (0..n).map(|j| p.k.get(j, j).max(0.0).sqrt()).collect();
-    if d.iter().any(|&v| v <= 0.0 || !v.is_finite()) {
-        return None;
-    }
+    let d = root_diagonal(k)?;
     let (mut x, mut y) = (start(n), vec![0.0; n]);
     normalise(&mut x);
     let mut lambda_max = 0.0;
     let power_steps = if n > LARGE_MODEL_DOFS { 8 } else { ITERATIONS };
+    let mut z = vec![0.0; n];
     for _ in 0..power_steps {
         // y = S x = D^-1/2 K D^-1/2 x
-        let z: Vec<f64> = x.iter().zip(&d).map(|(v, s)| v / s).collect();
-        p.k.sym_mul(&z, &mut y);
+        z.iter_mut()
+            .zip(x.iter().zip(&d))
+            .for_each(|(z, (v, s))| *z = v / s);
+        k.sym_mul(&z, &mut y);
         y.iter_mut().zip(&d).for_each(|(v, s)| *v /= s);
         lambda_max = x.iter().zip(&y).map(|(a, b)| a * b).sum::<f64>();
         std::mem::swap(&mut x, &mut y);
@@ -99,8 +108,41 @@ pub fn estimate(p: &Prepared) -> Option<ConditionEstimate> {
             return None;
         }
     }
+    Some(lambda_max)
+}
+
+/// The right-hand side of the first inverse-iteration step, D^1/2 x0 (x0
+/// the normalised start vector), so a caller can solve it in the same block
+/// as its load cases and hand the solution to [`estimate_with`].
+pub fn first_probe(k: &Csc) -> Option<Vec<f64>> {
+    let d = root_diagonal(k)?;
+    let mut x = start(k.n);
+    normalise(&mut x);
+    Some(x.iter().zip(&d).map(|(v, s)| v * s).collect())
+}
+
+/// Estimate the condition of the scaled stiffness of `p`; `None` for an
+/// empty model or if the iteration met a non-finite value.
+pub fn estimate(p: &Prepared) -> Option<ConditionEstimate> {
+    estimate_with(p, lambda_max(&p.k)?, None)
+}
+
+/// [`estimate`] given λmax (from [`lambda_max`]) and, optionally, the
+/// first inverse-iteration step already solved: K⁻¹ applied to
+/// [`first_probe`]. The result is the same either way.
+pub fn estimate_with(
+    p: &Prepared,
+    lambda_max: f64,
+    first: Option<Vec<f64>>,
+) -> Option<ConditionEstimate> {
+    let n = p.n();
+    if n == 0 {
+        return None;
+    }
+    let d = root_diagonal(&p.k)?;
     let mut x = start(n);
     normalise(&mut x);
+    let mut first = first.filter(|f| f.len() == n);
     let mut mu_max = 0.0;
     let steps = if n > LARGE_MODEL_DOFS {
         LARGE_ITERATIONS
@@ -109,8 +151,14 @@ pub fn estimate(p: &Prepared) -> Option<ConditionEstimate> {
     };
     for _ in 0..steps {
         // y = S^-1 x = D^1/2 K^-1 D^1/2 x
-        let mut y: Vec<f64> = x.iter().zip(&d).map(|(v, s)| v * s).collect();
-        p.factor.solve_in_place(&mut y, 1);
+        let mut y = match first.take() {
+            Some(solved) => solved,
+            None => {
+                let mut y: Vec<f64> = x.iter().zip(&d).map(|(v, s)| v * s).collect();
+                p.factor.solve_in_place(&mut y, 1);
+                y
+            }
+        };
         y.iter_mut().zip(&d).for_each(|(v, s)| *v *= s);
         mu_max = x.iter().zip(&y).map(|(a, b)| a * b).sum::<f64>();
         x = y;
@@ -152,7 +200,7 @@ pub fn stiffness_spread(model: &Model) -> Option<String> {
 /// Nodes where every member lies within [`COLLINEAR_DEGREES`] of one line
 /// and a free direction of the node crosses that line: a near-mechanism
 /// (the node is held across the line only by second-order stiffness).
-pub fn near_collinear(model: &Model, p: &Prepared) -> Vec<String> {
+pub fn near_collinear(model: &Model, dofs: &Dofs) -> Vec<String> {
     let nn = model.nodes.len();
     // Sum of (cos 2θ, sin 2θ) per node: direction-free (θ and θ+180° agree).
     let mut sum = vec![[0.0f64; 2]; nn];
@@ -171,7 +219,7 @@ pub fn near_collinear(model: &Model, p: &Prepared) -> Vec<String> {
     let mut found = 0usize;
     let mut angle_of = vec![None; nn];
     for node in 0..nn {
-        if count[node] == 0 || p.dofs.of_node(node).is_empty() {
+        if count[node] == 0 || dofs.of_node(node).is_empty() {
             continue;
         }
         let phi = 0.5 * sum[node][1].atan2(sum[node][0]);
@@ -194,8 +242,8 @@ pub fn near_collinear(model: &Model, p: &Prepared) -> Vec<String> {
             continue;
         }
         let normal = [-phi.sin(), phi.cos()];
-        let free_across = p.dofs.of_node(node).any(|q| {
-            let d = p.dofs.direction[q];
+        let free_across = dofs.of_node(node).any(|q| {
+            let d = dofs.direction[q];
             (d[0] * normal[0] + d[1] * normal[1]).abs() > tol.sin()
         });
         if free_across {
@@ -253,11 +301,12 @@ pub fn depth_over_span(model: &Model) -> Option<f64> {
     (span > 0.0 && span.is_finite()).then(|| (b1 - b0) / span)
 }
 
-/// Every numerical-trust warning for a solved model.
-pub fn warnings(model: &Model, p: &Prepared) -> Vec<String> {
+/// The warnings that need only the layout and the DOFs, not the factor:
+/// stiffness spread, near-mechanisms, a very shallow layout.
+pub fn layout_warnings(model: &Model, dofs: &Dofs) -> Vec<String> {
     let mut out = Vec::new();
     out.extend(stiffness_spread(model));
-    out.extend(near_collinear(model, p));
+    out.extend(near_collinear(model, dofs));
     if let Some(r) = depth_over_span(model) {
         if r < SHALLOW_RATIO {
             out.push(format!(
@@ -265,14 +314,24 @@ pub fn warnings(model: &Model, p: &Prepared) -> Vec<String> {
             ));
         }
     }
-    if let Some(c) = estimate(p) {
-        if c.condition > CONDITION_WARNING {
-            out.push(format!(
-                "ill-conditioned stiffness: condition estimate {:.1e} of the scaled K; about {:.0} of 16 significant digits may be lost",
-                c.condition,
-                c.digits_lost()
-            ));
-        }
-    }
+    out
+}
+
+/// The warning for a condition estimate above [`CONDITION_WARNING`].
+pub fn condition_warning(c: Option<ConditionEstimate>) -> Option<String> {
+    let c = c?;
+    (c.condition > CONDITION_WARNING).then(|| {
+        format!(
+            "ill-conditioned stiffness: condition estimate {:.1e} of the scaled K; about {:.0} of 16 significant digits may be lost",
+            c.condition,
+            c.digits_lost()
+        )
+    })
+}
+
+/// Every numerical-trust warning for a solved model.
+pub fn warnings(model: &Model, p: &Prepared) -> Vec<String> {
+    let mut out = layout_warnings(model, &p.dofs);
+    out.extend(condition_warning(estimate(p)));
     out
 }

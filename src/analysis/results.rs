@@ -83,9 +83,11 @@ fn mechanism(model: &Model, dofs: &Dofs, e: FactorError) -> AnalysisError {
 
 impl Prepared {
     pub fn new(model: &Model) -> Result<Prepared, AnalysisError> {
-        let dofs = Dofs::new(model);
-        let k = stiffness(model, &dofs);
-        let symbolic = Symbolic::new(&k).map_err(|e| mechanism(model, &dofs, e))?;
+        use crate::timing::stage;
+        let dofs = stage("DOF numbering", || Dofs::new(model));
+        let k = stage("assembly", || stiffness(model, &dofs));
+        let symbolic = stage("symbolic factorization", || Symbolic::new(&k))
+            .map_err(|e| mechanism(model, &dofs, e))?;
         Self::with_symbolic(model, dofs, k, &symbolic)
     }
 
@@ -96,8 +98,7 @@ impl Prepared {
         k: Csc,
         symbolic: &Symbolic,
     ) -> Result<Prepared, AnalysisError> {
-        let factor = symbolic
-            .factor(&k)
+        let factor = crate::timing::stage("numeric factorization", || symbolic.factor(&k))
             .map_err(|e| mechanism(model, &dofs, e))?;
         let rows = (0..model.members.len())
             .map(|m| b_row(model, &dofs, m))
@@ -183,17 +184,36 @@ impl Prepared {
         model: &Model,
         cases: &[LoadCase],
     ) -> Result<Vec<CaseResult>, AnalysisError> {
+        Ok(self.solve_cases_with(model, cases, None)?.0)
+    }
+
+    /// [`Prepared::solve_cases`], solving one further right-hand side
+    /// `extra` (length n) in the same block — a block solve reads the factor
+    /// once for all its columns — and returning its solution.
+    pub fn solve_cases_with(
+        &self,
+        model: &Model,
+        cases: &[LoadCase],
+        extra: Option<Vec<f64>>,
+    ) -> Result<(Vec<CaseResult>, Option<Vec<f64>>), AnalysisError> {
         let n = self.n();
-        let mut rhs = vec![0.0; n * cases.len()];
+        let extra = extra.filter(|e| e.len() == n);
+        let columns = cases.len() + usize::from(extra.is_some());
+        let mut rhs = vec![0.0; n * columns];
         for (c, case) in cases.iter().enumerate() {
             self.load_vector(model, case, &mut rhs[c * n..(c + 1) * n]);
         }
-        self.factor.solve_in_place(&mut rhs, cases.len());
-        cases
+        if let Some(e) = &extra {
+            rhs[cases.len() * n..].copy_from_slice(e);
+        }
+        self.factor.solve_in_place(&mut rhs, columns);
+        let results = cases
             .iter()
             .enumerate()
             .map(|(c, case)| self.recover(model, case, &rhs[c * n..(c + 1) * n]))
-            .collect()
+            .collect::<Result<Vec<_>, _>>()?;
+        let solved = extra.map(|_| rhs[cases.len() * n..].to_vec());
+        Ok((results, solved))
     }
 
     /// Member forces, reactions, displacements and the equilibrium check
@@ -301,9 +321,33 @@ impl Prepared {
 }
 
 /// Analyse every load case of a validated model.
+///
+/// Work that needs no factor runs beside the symbolic factorization (a
+/// single-threaded ordering): the layout warnings and the power iteration
+/// for λmax of the condition estimate. The first inverse-iteration step of
+/// the estimate is solved in the same block as the load cases.
 pub fn analyse(model: &Model) -> Result<Analysis, AnalysisError> {
-    let prepared = Prepared::new(model)?;
-    let cases = prepared.solve_cases(model, &model.cases)?;
+    use super::conditioning;
+    use crate::timing::stage;
+    let dofs = stage("DOF numbering", || Dofs::new(model));
+    let k = stage("assembly", || stiffness(model, &dofs));
+    let (symbolic, (layout_warnings, lambda_max)) = stage("symbolic factorization", || {
+        rayon::join(
+            || Symbolic::new(&k),
+            || {
+                (
+                    conditioning::layout_warnings(model, &dofs),
+                    conditioning::lambda_max(&k),
+                )
+            },
+        )
+    });
+    let symbolic = symbolic.map_err(|e| mechanism(model, &dofs, e))?;
+    let prepared = Prepared::with_symbolic(model, dofs, k, &symbolic)?;
+    let probe = lambda_max.and(conditioning::first_probe(&prepared.k));
+    let (cases, first) = stage("solve + member forces", || {
+        prepared.solve_cases_with(model, &model.cases, probe)
+    })?;
     let mut warnings = Vec::new();
     let ratio = prepared.factor.min_pivot_ratio;
     if ratio < CONDITION_WARNING_RATIO {
@@ -315,7 +359,11 @@ pub fn analyse(model: &Model) -> Result<Analysis, AnalysisError> {
             (1.0 / ratio).log10()
         ));
     }
-    warnings.extend(super::conditioning::warnings(model, &prepared));
+    warnings.extend(layout_warnings);
+    let estimate = stage("condition estimate", || {
+        lambda_max.and_then(|l| conditioning::estimate_with(&prepared, l, first))
+    });
+    warnings.extend(conditioning::condition_warning(estimate));
     Ok(Analysis {
         prepared,
         cases,

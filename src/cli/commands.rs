@@ -19,9 +19,11 @@ pub(super) fn format(f: FormatArg) -> Format {
 
 /// Read and validate a model file.
 pub fn load(path: &Path) -> Result<Converted, Error> {
-    let bytes = std::fs::read(path).map_err(|source| Error::Read {
-        path: path.to_path_buf(),
-        source,
+    let bytes = crate::timing::stage("read file", || std::fs::read(path)).map_err(|source| {
+        Error::Read {
+            path: path.to_path_buf(),
+            source,
+        }
     })?;
     let text = String::from_utf8(bytes).map_err(|e| Error::Model {
         path: path.to_path_buf(),
@@ -96,10 +98,12 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
                 source,
             })?;
             let (m, warn) = (&c.model, &c.warnings);
-            write(&out, |w| match format(f) {
-                Format::Text => report::text::solve_term(w, m, &a, warn, &term(&out)),
-                Format::Json => report::json::solve(w, m, &a, warn),
-                Format::Csv => report::csv::solve(w, m, &a),
+            crate::timing::stage("output", || {
+                write(&out, |w| match format(f) {
+                    Format::Text => report::text::solve_term(w, m, &a, warn, &term(&out)),
+                    Format::Json => report::json::solve(w, m, &a, warn),
+                    Format::Csv => report::csv::solve(w, m, &a),
+                })
             })?;
             Ok(0)
         }

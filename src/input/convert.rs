@@ -9,6 +9,31 @@ use crate::geometry;
 use crate::model::*;
 use crate::units::{self, Dimension, DisplayUnits, Unit};
 use std::collections::HashMap;
+use std::fmt;
+
+/// Ids of one kind to their indices. Fx hashing: ids are short and the
+/// files are the engineer's own, so a keyed hash buys nothing and SipHash
+/// costs a large share of loading a million-member model.
+pub(super) type IdMap<'f> = rustc_hash::FxHashMap<&'f str, usize>;
+
+/// `kind "id"` for a message, written only if a message is: building it
+/// eagerly for every row of a million-member model would cost seconds.
+pub(super) struct Named<'a>(pub &'a str, pub &'a str);
+
+impl fmt::Display for Named<'_> {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        write!(f, "{} \"{}\"", self.0, self.1)
+    }
+}
+
+/// `kind "id" field` for a message, written only if a message is.
+pub(super) struct Field<'a>(pub &'a str, pub &'a str, pub &'a str);
+
+impl fmt::Display for Field<'_> {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        write!(f, "{} \"{}\" {}", self.0, self.1, self.2)
+    }
+}
 
 /// A converted model and the warnings found on the way.
 pub struct Converted {
@@ -62,7 +87,7 @@ pub(super) fn value(
     q: &Quantity,
     dim: Dimension,
     units: &DisplayUnits,
-    what: &str,
+    what: &dyn fmt::Display,
     at: Option<(usize, usize)>,
 ) -> Option<f64> {
     match q.to_si(dim, units.factor_for(dim)) {
@@ -80,7 +105,7 @@ pub(super) fn positive(
     q: &Quantity,
     dim: Dimension,
     units: &DisplayUnits,
-    what: &str,
+    what: &dyn fmt::Display,
     at: Option<(usize, usize)>,
 ) -> Option<f64> {
     let v = value(ctx, q, dim, units, what, at)?;
@@ -143,8 +168,8 @@ pub(super) fn intern<'f, T>(
     kind: &str,
     items: &'f [T],
     id: impl Fn(&'f T) -> &'f str,
-) -> HashMap<&'f str, usize> {
-    let mut map = HashMap::with_capacity(items.len());
+) -> IdMap<'f> {
+    let mut map = IdMap::with_capacity_and_hasher(items.len(), Default::default());
     let mut seen: HashMap<&str, usize> = HashMap::new();
     for (i, item) in items.iter().enumerate() {
         let name = id(item);
@@ -184,11 +209,11 @@ pub(super) fn intern<'f, T>(
 
 fn reference(
     ctx: &mut Ctx,
-    map: &HashMap<&str, usize>,
+    map: &IdMap,
     kind: &str,
     name: &str,
     field: &str,
-    owner: &str,
+    owner: &dyn fmt::Display,
 ) -> Option<usize> {
     match map.get(name) {
         Some(&i) => Some(i),
@@ -206,7 +231,54 @@ fn reference(
     }
 }
 
+/// What a member row needs to be resolved without any message.
+struct PlainRefs<'a, 'f> {
+    nodes: &'a [Node],
+    node_ids: &'a IdMap<'f>,
+    section_ids: &'a IdMap<'f>,
+    material_ids: &'a IdMap<'f>,
+    /// The zero-length tolerance, if the node values were all good.
+    tol: Option<f64>,
+}
+
+impl PlainRefs<'_, '_> {
+    /// The member of a row with nothing to report: all four references
+    /// found, two distinct nodes, a length above the tolerance, default or
+    /// good effective-length factors and no unbraced lengths. `None` sends
+    /// the row through the full checks, which report what is wrong.
+    fn member(&self, m: &MemberFile) -> Option<Member> {
+        let start = *self.node_ids.get(m.start.as_str())?;
+        let end = *self.node_ids.get(m.end.as_str())?;
+        let section = *self.section_ids.get(m.section.as_str())?;
+        let material = *self.material_ids.get(m.material.as_str())?;
+        let (a, b) = (&self.nodes[start], &self.nodes[end]);
+        if start == end || (b.x - a.x).hypot(b.y - a.y) <= self.tol? {
+            return None;
+        }
+        let good = |k: Option<f64>| match k {
+            None => Some(1.0),
+            Some(k) if k.is_finite() && k > 0.0 => Some(k),
+            Some(_) => None,
+        };
+        if m.unbraced_in.is_some() || m.unbraced_out.is_some() {
+            return None;
+        }
+        Some(Member {
+            id: m.id.clone(),
+            start,
+            end,
+            section,
+            material,
+            k_in: good(m.k_in)?,
+            k_out: good(m.k_out)?,
+            unbraced_in: None,
+            unbraced_out: None,
+        })
+    }
+}
+
 pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
+    let mut lap = crate::timing::Lap::new("convert");
     let mut ctx = Ctx {
         loc: Locator::new(text),
         errors: Vec::new(),
@@ -272,6 +344,7 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
         sections.push(super::sections::convert_section(&mut ctx, s, u));
     }
 
+    lap.mark("materials and sections");
     // Nodes.
     let node_ids = intern(&mut ctx, "node", &file.nodes, |n| &n.id);
     let mut nodes = Vec::with_capacity(file.nodes.len());
@@ -282,7 +355,7 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
             &n.x,
             Dimension::Length,
             u,
-            &format!("node \"{}\" x", n.id),
+            &Field("node", &n.id, "x"),
             at(),
         );
         let y = value(
@@ -290,7 +363,7 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
             &n.y,
             Dimension::Length,
             u,
-            &format!("node \"{}\" y", n.id),
+            &Field("node", &n.id, "y"),
             at(),
         );
         for (axis, v) in [("x", x), ("y", y)] {
@@ -316,6 +389,7 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
         ctx.error("the model has no nodes".into(), None);
     }
     let values_ok = ctx.errors.is_empty();
+    lap.mark("nodes");
     let tol = geometry::tolerance(&nodes);
     if values_ok {
         for (a, b) in geometry::coincident_nodes(&nodes, tol) {
@@ -330,11 +404,42 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
         }
     }
 
-    // Members.
-    let member_ids = intern(&mut ctx, "member", &file.members, |m| &m.id);
+    lap.mark("coincident nodes");
+    // Members: every plain row is resolved on all cores first (its four
+    // references found, nothing to report); rows with anything to say go
+    // through the full checks below, in file order, as before. The member
+    // ids are interned meanwhile.
+    let (member_ids, plain) = rayon::join(
+        || {
+            crate::timing::stage("convert: member ids (beside the rows)", || {
+                intern(&mut ctx, "member", &file.members, |m| &m.id)
+            })
+        },
+        || {
+            use rayon::prelude::*;
+            let refs = PlainRefs {
+                nodes: &nodes,
+                node_ids: &node_ids,
+                section_ids: &section_ids,
+                material_ids: &material_ids,
+                tol: values_ok.then_some(tol),
+            };
+            crate::timing::stage("convert: plain member rows", || {
+                file.members
+                    .par_iter()
+                    .map(|m| refs.member(m))
+                    .collect::<Vec<Option<Member>>>()
+            })
+        },
+    );
+    lap.mark("members: join");
     let mut members = Vec::with_capacity(file.members.len());
-    for m in &file.members {
-        let owner = format!("member \"{}\"", m.id);
+    for (m, plain) in file.members.iter().zip(plain) {
+        if let Some(member) = plain {
+            members.push(member);
+            continue;
+        }
+        let owner = Named("member", &m.id);
         let start = reference(&mut ctx, &node_ids, "node", &m.start, "start", &owner);
         let end = reference(&mut ctx, &node_ids, "node", &m.end, "end", &owner);
         let section = reference(
@@ -386,7 +491,14 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
             let k_out = factor(&mut ctx, m.k_out, "k_out");
             let len = |ctx: &mut Ctx, q: &Option<Quantity>, name: &str| {
                 q.as_ref().and_then(|q| {
-                    positive(ctx, q, Dimension::Length, u, &format!("{owner} {name}"), at)
+                    positive(
+                        ctx,
+                        q,
+                        Dimension::Length,
+                        u,
+                        &Field("member", &m.id, name),
+                        at,
+                    )
                 })
             };
             let unbraced_in = len(&mut ctx, &m.unbraced_in, "unbraced_in");
@@ -408,11 +520,12 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
         ctx.error("the model has no members".into(), None);
     }
 
+    lap.mark("members");
     // Supports.
     let mut supports = Vec::with_capacity(file.supports.len());
     let mut supported = vec![false; nodes.len()];
     for s in &file.supports {
-        let Some(node) = reference(&mut ctx, &node_ids, "node", &s.node, "node", "a support")
+        let Some(node) = reference(&mut ctx, &node_ids, "node", &s.node, "node", &"a support")
         else {
             continue;
         };
@@ -449,6 +562,7 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
         degree[m.end] += 1;
     }
 
+    lap.mark("supports");
     // Load cases.
     let case_ids = intern(&mut ctx, "load case", &file.load_cases, |c| &c.id);
     let mut cases = Vec::with_capacity(file.load_cases.len());
@@ -700,6 +814,7 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
         return Err(Diagnostics { errors: ctx.errors });
     }
 
+    lap.mark("loads and settings");
     // Warnings: isolated nodes and members crossing without a joint.
     // Only the first few are located: each search reads the whole text.
     let mut isolated = 0;
@@ -727,7 +842,9 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
         rating,
         live,
     };
+    lap.mark("isolated nodes");
     let crossings = geometry::crossing_members(&model, tol);
+    lap.mark("crossing members");
     let shown = 5;
     for &(a, b) in crossings.iter().take(shown) {
         ctx.warn(

@@ -20,7 +20,7 @@ pub(super) struct Parts<'a> {
     pub sections: &'a [Section],
     pub materials: &'a [Material],
     /// File index of each member id.
-    pub member_ids: &'a HashMap<&'a str, usize>,
+    pub member_ids: &'a super::convert::IdMap<'a>,
     /// Whether `members` lines up with the file (no member was rejected).
     pub members_ok: bool,
 }
@@ -199,7 +199,7 @@ pub(super) fn live_loads(
     ctx: &mut Ctx,
     file: &ModelFile,
     p: &Parts,
-    node_ids: &HashMap<&str, usize>,
+    node_ids: &super::convert::IdMap,
     carries: &[bool],
 ) -> LiveLoads {
     let u = p.units;

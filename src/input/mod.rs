@@ -2,6 +2,7 @@
 //! a model file, converts units and checks everything, and hands back a
 //! validated [`Model`](crate::model::Model) or every problem it found.
 
+mod bulk;
 pub mod convert;
 pub mod diagnostics;
 mod loads;
@@ -34,14 +35,42 @@ pub fn load_str_in(text: &str, dir: Option<&std::path::Path>) -> Result<Converte
     if text.len() > MAX_FILE_BYTES {
         return Err(single("the model file is larger than 2 GiB", None));
     }
-    let mut file = parse_str(text)?;
+    let mut file = crate::timing::stage("parse", || parse_str(text))?;
     loads::merge_vehicles_file(&mut file, dir)?;
-    convert::convert(file, text)
+    crate::timing::stage("validate + convert", || convert::convert(file, text))
 }
 
 /// The syntax step of [`load_str`] alone: RON text to the schema types,
 /// nothing converted or checked (public so benchmarks can time it apart).
+/// Long `nodes` and `members` lists in the plain form are read by the fast
+/// reader of [`bulk`], the rest by the RON parser; the result is the same.
 pub fn parse_str(text: &str) -> Result<schema::ModelFile, Diagnostics> {
+    merge_bulk(bulk::read(text), text)
+}
+
+fn merge_bulk(b: bulk::Bulk, text: &str) -> Result<schema::ModelFile, Diagnostics> {
+    let mut file = crate::timing::stage("parse: RON", || {
+        parse_ron(b.rest.as_deref().unwrap_or(text))
+    })?;
+    if let Some(nodes) = b.nodes {
+        file.nodes = nodes;
+    }
+    if let Some(members) = b.members {
+        file.members = members;
+    }
+    Ok(file)
+}
+
+/// [`parse_str`] with the fast reader's thresholds set (any list length,
+/// pieces of `piece_bytes`), for tests comparing it with the RON parser.
+#[doc(hidden)]
+pub fn parse_str_fast(text: &str, piece_bytes: usize) -> Result<schema::ModelFile, Diagnostics> {
+    merge_bulk(bulk::read_with(text, 0, piece_bytes), text)
+}
+
+/// RON text to the schema types by the RON parser alone.
+#[doc(hidden)]
+pub fn parse_ron(text: &str) -> Result<schema::ModelFile, Diagnostics> {
     let options = ron::Options::default()
         .with_default_extension(ron::extensions::Extensions::IMPLICIT_SOME)
         .with_recursion_limit(64);

@@ -1,0 +1,540 @@
+//! A fast reader for the two long lists of a large model file, `nodes` and
+//! `members`, when they are written in the plain form panelpoint itself
+//! writes: `(id: "n1", x: 0.0, y: 4.5)` rows of ASCII field names, plain
+//! decimal numbers and strings without escapes, blanks and `//` comments.
+//!
+//! Why: the general RON parser reads a million-member model at about
+//! 50 MB/s, slower than the sparse factorization of the same truss; this
+//! reader is several times faster and splits a list into pieces read on
+//! all cores. It never changes what a file means: on anything outside its
+//! plain form (escapes, block comments, `Some(..)`, named rows, unknown or
+//! repeated fields, unusual number forms ...) it gives the list up and the
+//! RON parser reads it as before, errors and all. A list it did read is
+//! blanked out of the text handed to the RON parser, keeping every line
+//! break and the column of the closing bracket, so the line and column of
+//! any error elsewhere are the same as in the file. Tests compare the two
+//! readers on every model in the repository and on many altered rows.
+
+use super::quantity::Quantity;
+use super::schema::{MemberFile, NodeFile};
+use rayon::prelude::*;
+
+/// What the fast reader took from the text.
+pub(super) struct Bulk {
+    pub nodes: Option<Vec<NodeFile>>,
+    pub members: Option<Vec<MemberFile>>,
+    /// The text with the lists read here blanked out; `None` if none was.
+    pub rest: Option<String>,
+}
+
+/// Lists shorter than this are left to the RON parser: they cost it
+/// nothing, and the fast reader's set-up would be wasted.
+const MIN_LIST_BYTES: usize = 1 << 16;
+
+/// Bytes of list text per piece read by one task.
+const PIECE_BYTES: usize = 1 << 22;
+
+/// Read the `nodes` and `members` lists of `text` where they are in the
+/// plain form; see the module comment.
+pub(super) fn read(text: &str) -> Bulk {
+    read_with(text, MIN_LIST_BYTES, PIECE_BYTES)
+}
+
+/// [`read`] with the size thresholds given, so tests can drive the fast
+/// path and the splitting on small files.
+pub(super) fn read_with(text: &str, min_bytes: usize, piece_bytes: usize) -> Bulk {
+    let mut bulk = Bulk {
+        nodes: None,
+        members: None,
+        rest: None,
+    };
+    let Some(spans) = crate::timing::stage("parse: find lists", || top_level_lists(text)) else {
+        return bulk;
+    };
+    let mut blank = Vec::new();
+    for (name, open, close) in spans {
+        if close - open < min_bytes {
+            continue;
+        }
+        let inner = &text[open + 1..close];
+        match name {
+            List::Nodes => {
+                if let Some(v) =
+                    crate::timing::stage("parse: nodes", || read_list(inner, piece_bytes, node))
+                {
+                    bulk.nodes = Some(v);
+                    blank.push((open + 1, close));
+                }
+            }
+            List::Members => {
+                if let Some(v) =
+                    crate::timing::stage("parse: members", || read_list(inner, piece_bytes, member))
+                {
+                    bulk.members = Some(v);
+                    blank.push((open + 1, close));
+                }
+            }
+        }
+    }
+    if !blank.is_empty() {
+        bulk.rest = Some(blanked(text, &blank));
+    }
+    bulk
+}
+
+#[derive(Clone, Copy, PartialEq, Debug)]
+enum List {
+    Nodes,
+    Members,
+}
+
+/// `text` with each span replaced by its line breaks, then as many spaces
+/// as the last line of the span had characters, so positions after it are
+/// unchanged in line and column.
+fn blanked(text: &str, spans: &[(usize, usize)]) -> String {
+    let mut out = String::with_capacity(text.len() / 8);
+    let mut at = 0;
+    for &(a, b) in spans {
+        out.push_str(&text[at..a]);
+        let inner = &text[a..b];
+        let breaks = inner.bytes().filter(|&c| c == b'\n').count();
+        out.extend(std::iter::repeat_n('\n', breaks));
+        let tail = inner.rfind('\n').map_or(inner, |p| &inner[p + 1..]);
+        out.extend(std::iter::repeat_n(' ', tail.chars().count()));
+        at = b;
+    }
+    out.push_str(&text[at..]);
+    out
+}
+
+// ------------------------------------------------------------ the top level
+
+/// The `[` and `]` byte positions of the top-level `nodes:` and `members:`
+/// lists, in file order. `None` if the file starts with an attribute
+/// (`#![enable(..)]` may change how everything reads) or holds a block
+/// comment, raw string or character literal outside a string, where this
+/// simple scan could lose its place.
+fn top_level_lists(text: &str) -> Option<Vec<(List, usize, usize)>> {
+    let b = text.as_bytes();
+    let mut s = Scan { b, i: 0 };
+    s.blanks()?;
+    if b.get(s.i) == Some(&b'#') {
+        return None;
+    }
+    let mut depth = 0usize;
+    let mut found = Vec::new();
+    while s.i < b.len() {
+        let c = b[s.i];
+        match c {
+            b'(' | b'[' | b'{' => {
+                depth += 1;
+                s.i += 1;
+            }
+            b')' | b']' | b'}' => {
+                depth = depth.saturating_sub(1);
+                s.i += 1;
+            }
+            b'"' => s.skip_string()?,
+            b'/' => s.blanks()?,
+            b'\'' => return None,
+            c if c.is_ascii_alphabetic() || c == b'_' => {
+                let start = s.i;
+                while s.i < b.len() && (b[s.i].is_ascii_alphanumeric() || b[s.i] == b'_') {
+                    s.i += 1;
+                }
+                let word = &b[start..s.i];
+                if b.get(s.i) == Some(&b'"') || b.get(s.i) == Some(&b'#') {
+                    // r"..", r#".."#, b"..": leave the whole file to RON.
+                    return None;
+                }
+                if depth != 1 {
+                    continue;
+                }
+                let list = match word {
+                    b"nodes" => List::Nodes,
+                    b"members" => List::Members,
+                    _ => continue,
+                };
+                s.blanks()?;
+                if b.get(s.i) != Some(&b':') {
+                    continue;
+                }
+                s.i += 1;
+                s.blanks()?;
+                if b.get(s.i) != Some(&b'[') {
+                    continue;
+                }
+                let open = s.i;
+                let close = s.matching_bracket()?;
+                found.push((list, open, close));
+                s.i = close + 1;
+            }
+            _ => s.i += 1,
+        }
+    }
+    Some(found)
+}
+
+/// A cursor over the bytes of the text.
+struct Scan<'a> {
+    b: &'a [u8],
+    i: usize,
+}
+
+impl Scan<'_> {
+    /// Skip ASCII blanks and `//` comments; `None` at a block comment.
+    fn blanks(&mut self) -> Option<()> {
+        let b = self.b;
+        while self.i < b.len() {
+            match b[self.i] {
+                b' ' | b'\t' | b'\n' | b'\r' => self.i += 1,
+                b'/' if b.get(self.i + 1) == Some(&b'/') => {
+                    while self.i < b.len() && b[self.i] != b'\n' {
+                        self.i += 1;
+                    }
+                }
+                b'/' => return None,
+                _ => break,
+            }
+        }
+        Some(())
+    }
+
+    /// Past a `"` string (escapes skipped); `None` if it never closes.
+    fn skip_string(&mut self) -> Option<()> {
+        let b = self.b;
+        self.i += 1;
+        while self.i < b.len() {
+            match b[self.i] {
+                b'"' => {
+                    self.i += 1;
+                    return Some(());
+                }
+                b'\\' => self.i += 2,
+                _ => self.i += 1,
+            }
+        }
+        None
+    }
+
+    /// The position of the `]` closing the `[` at the cursor.
+    fn matching_bracket(&mut self) -> Option<usize> {
+        let b = self.b;
+        let mut depth = 0usize;
+        while self.i < b.len() {
+            match b[self.i] {
+                b'(' | b'[' | b'{' => depth += 1,
+                b')' | b'}' => depth = depth.checked_sub(1)?,
+                b']' => {
+                    depth = depth.checked_sub(1)?;
+                    if depth == 0 {
+                        return Some(self.i);
+                    }
+                }
+                b'"' => {
+                    self.skip_string()?;
+                    continue;
+                }
+                b'/' => {
+                    self.blanks()?;
+                    continue;
+                }
+                b'\'' => return None,
+                _ => {}
+            }
+            self.i += 1;
+        }
+        None
+    }
+}
+
+// ------------------------------------------------------------------ lists
+
+/// Read the inside of a list (between its brackets) with `row`, in pieces
+/// on all cores; `None` if any piece is not in the plain form.
+fn read_list<T: Send>(
+    inner: &str,
+    piece_bytes: usize,
+    row: fn(&mut Row) -> Option<T>,
+) -> Option<Vec<T>> {
+    let cuts = cuts(inner.as_bytes(), piece_bytes);
+    let pieces: Vec<Option<Vec<T>>> = cuts
+        .par_windows(2)
+        .map(|w| {
+            let last = w[1] == inner.len();
+            read_piece(&inner.as_bytes()[w[0]..w[1]], last, row)
+        })
+        .collect();
+    let total = pieces
+        .iter()
+        .map(|p| p.as_ref().map(Vec::len))
+        .sum::<Option<usize>>()?;
+    let mut all = Vec::with_capacity(total);
+    for p in pieces {
+        all.extend(p?);
+    }
+    Some(all)
+}
+
+/// Piece boundaries: 0, then about every `piece_bytes` the start of a line
+/// whose first non-blank is `(` and whose previous non-blank is `,`, then
+/// the end. A cut that is not really between rows makes a piece fail (a
+/// row there would have to hold a line break in a string or a comment,
+/// neither of which a piece accepts across a line start), so a wrong guess
+/// costs the fast path, never the meaning.
+fn cuts(b: &[u8], piece_bytes: usize) -> Vec<usize> {
+    let mut out = vec![0];
+    let mut at = piece_bytes.max(1);
+    while at < b.len() {
+        let Some(nl) = b[at..].iter().position(|&c| c == b'\n') else {
+            break;
+        };
+        let line = at + nl + 1;
+        let first = line
+            + b[line..]
+                .iter()
+                .take_while(|c| matches!(c, b' ' | b'\t'))
+                .count();
+        let before = b[..at + nl]
+            .iter()
+            .rev()
+            .find(|c| !matches!(c, b' ' | b'\t' | b'\r'));
+        if b.get(first) == Some(&b'(') && before == Some(&b',') {
+            out.push(first);
+            at = first + piece_bytes;
+        } else {
+            at = line;
+        }
+    }
+    out.push(b.len());
+    out
+}
+
+/// Rows of one piece: `row, row, ..., row,` and, for the last piece only,
+/// no trailing comma needed.
+fn read_piece<T>(b: &[u8], last: bool, row: fn(&mut Row) -> Option<T>) -> Option<Vec<T>> {
+    let mut r = Row { b, i: 0 };
+    let mut out = Vec::with_capacity(b.len() / 64);
+    loop {
+        r.blanks()?;
+        if r.i == b.len() {
+            return Some(out);
+        }
+        r.expect(b'(')?;
+        out.push(row(&mut r)?);
+        r.blanks()?;
+        if r.i == b.len() {
+            return last.then_some(out);
+        }
+        r.expect(b',')?;
+    }
+}
+
+/// A cursor inside one row, reading the plain form only.
+pub(super) struct Row<'a> {
+    b: &'a [u8],
+    i: usize,
+}
+
+impl<'a> Row<'a> {
+    fn blanks(&mut self) -> Option<()> {
+        let b = self.b;
+        while self.i < b.len() {
+            match b[self.i] {
+                b' ' | b'\t' | b'\n' | b'\r' => self.i += 1,
+                b'/' if b.get(self.i + 1) == Some(&b'/') => {
+                    while self.i < b.len() && b[self.i] != b'\n' {
+                        self.i += 1;
+                    }
+                }
+                _ => break,
+            }
+        }
+        Some(())
+    }
+
+    fn expect(&mut self, c: u8) -> Option<()> {
+        (self.b.get(self.i) == Some(&c)).then(|| self.i += 1)
+    }
+
+    /// The next field name and its colon; `None` at the row's `)`.
+    fn field(&mut self) -> Option<Option<&'a [u8]>> {
+        self.blanks()?;
+        if self.b.get(self.i) == Some(&b')') {
+            self.i += 1;
+            return Some(None);
+        }
+        let start = self.i;
+        while self.i < self.b.len()
+            && (self.b[self.i].is_ascii_lowercase() || self.b[self.i] == b'_')
+        {
+            self.i += 1;
+        }
+        if self.i == start {
+            return None;
+        }
+        let name = &self.b[start..self.i];
+        self.blanks()?;
+        self.expect(b':')?;
+        self.blanks()?;
+        Some(Some(name))
+    }
+
+    /// After a value: a comma, or the row's closing parenthesis (kept).
+    fn after_value(&mut self) -> Option<()> {
+        self.blanks()?;
+        match self.b.get(self.i) {
+            Some(b',') => {
+                self.i += 1;
+                Some(())
+            }
+            Some(b')') => Some(()),
+            _ => None,
+        }
+    }
+
+    /// A string without escapes or control characters.
+    fn string(&mut self) -> Option<String> {
+        self.expect(b'"')?;
+        let start = self.i;
+        loop {
+            match *self.b.get(self.i)? {
+                b'"' => break,
+                b'\\' => return None,
+                c if c < 0x20 => return None,
+                _ => self.i += 1,
+            }
+        }
+        let s = std::str::from_utf8(&self.b[start..self.i]).ok()?.to_owned();
+        self.i += 1;
+        Some(s)
+    }
+
+    /// A plain decimal number, `-?d+(.d+)?([eE][+-]?d+)?`, read as the RON
+    /// parser reads it. For a field of any number type (`any`, a
+    /// quantity) an integer is read as an integer (at most 15 digits, so
+    /// exact; `-0` is +0) and anything else by `f64::from_str`; for an `f64`
+    /// field everything goes through `f64::from_str` (`-0` is -0).
+    fn number(&mut self, any: bool) -> Option<f64> {
+        let b = self.b;
+        let start = self.i;
+        let digits = |i: &mut usize| {
+            let s = *i;
+            while *i < b.len() && b[*i].is_ascii_digit() {
+                *i += 1;
+            }
+            *i - s
+        };
+        let mut i = self.i;
+        if b.get(i) == Some(&b'-') {
+            i += 1;
+        }
+        let whole = digits(&mut i);
+        if whole == 0 || (whole > 1 && b[i - whole] == b'0') {
+            return None;
+        }
+        let mut float = false;
+        if b.get(i) == Some(&b'.') {
+            i += 1;
+            if digits(&mut i) == 0 {
+                return None;
+            }
+            float = true;
+        }
+        if matches!(b.get(i), Some(b'e' | b'E')) {
+            i += 1;
+            if matches!(b.get(i), Some(b'+' | b'-')) {
+                i += 1;
+            }
+            if digits(&mut i) == 0 {
+                return None;
+            }
+            float = true;
+        }
+        // A number must end at a blank, comma, parenthesis or comment.
+        if !matches!(
+            b.get(i),
+            Some(b' ' | b'\t' | b'\n' | b'\r' | b',' | b')' | b'/')
+        ) {
+            return None;
+        }
+        let t = std::str::from_utf8(&b[start..i]).ok()?;
+        self.i = i;
+        if float || !any {
+            t.parse().ok()
+        } else if whole <= 15 {
+            t.parse::<i64>().ok().map(|v| v as f64)
+        } else {
+            None
+        }
+    }
+
+    /// A bare number or a string with its unit.
+    fn quantity(&mut self) -> Option<Quantity> {
+        if self.b.get(self.i) == Some(&b'"') {
+            self.string().map(Quantity::Text)
+        } else {
+            self.number(true).map(Quantity::Number)
+        }
+    }
+}
+
+/// Set a field once; a repeated field is left to the RON parser's error.
+fn once<T>(slot: &mut Option<T>, v: Option<T>) -> Option<()> {
+    if slot.is_some() {
+        return None;
+    }
+    *slot = Some(v?);
+    Some(())
+}
+
+/// `(id: "..", x: .., y: ..)` after its `(`.
+fn node(r: &mut Row) -> Option<NodeFile> {
+    let (mut id, mut x, mut y) = (None, None, None);
+    while let Some(name) = r.field()? {
+        match name {
+            b"id" => once(&mut id, r.string())?,
+            b"x" => once(&mut x, r.quantity())?,
+            b"y" => once(&mut y, r.quantity())?,
+            _ => return None,
+        }
+        r.after_value()?;
+    }
+    Some(NodeFile {
+        id: id?,
+        x: x?,
+        y: y?,
+    })
+}
+
+/// `(id: .., start: .., end: .., section: .., material: .., ..)` after its `(`.
+fn member(r: &mut Row) -> Option<MemberFile> {
+    let (mut id, mut start, mut end, mut section, mut material) = (None, None, None, None, None);
+    let (mut k_in, mut k_out, mut unbraced_in, mut unbraced_out) = (None, None, None, None);
+    while let Some(name) = r.field()? {
+        match name {
+            b"id" => once(&mut id, r.string())?,
+            b"start" => once(&mut start, r.string())?,
+            b"end" => once(&mut end, r.string())?,
+            b"section" => once(&mut section, r.string())?,
+            b"material" => once(&mut material, r.string())?,
+            b"k_in" => once(&mut k_in, r.number(false))?,
+            b"k_out" => once(&mut k_out, r.number(false))?,
+            b"unbraced_in" => once(&mut unbraced_in, r.quantity())?,
+            b"unbraced_out" => once(&mut unbraced_out, r.quantity())?,
+            _ => return None,
+        }
+        r.after_value()?;
+    }
+    Some(MemberFile {
+        id: id?,
+        start: start?,
+        end: end?,
+        section: section?,
+        material: material?,
+        k_in,
+        k_out,
+        unbraced_in,
+        unbraced_out,
+    })
+}
