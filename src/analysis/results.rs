@@ -207,10 +207,17 @@ impl Prepared {
             rhs[cases.len() * n..].copy_from_slice(e);
         }
         self.factor.solve_in_place(&mut rhs, columns);
+        // Variants are recovered on all cores (each is independent); a
+        // single large case is recovered on one.
+        use rayon::prelude::*;
         let results = cases
-            .iter()
+            .par_iter()
             .enumerate()
+            .with_min_len(16)
             .map(|(c, case)| self.recover(model, case, &rhs[c * n..(c + 1) * n]))
+            .collect::<Vec<_>>()
+            .into_iter()
+            // The first failing case in order, as a serial loop would report.
             .collect::<Result<Vec<_>, _>>()?;
         let solved = extra.map(|_| rhs[cases.len() * n..].to_vec());
         Ok((results, solved))

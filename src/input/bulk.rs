@@ -27,9 +27,9 @@ pub(super) struct Bulk {
     pub rest: Option<String>,
 }
 
-/// Lists shorter than this are left to the RON parser: they cost it
+/// Files shorter than this are left to the RON parser: they cost it
 /// nothing, and the fast reader's set-up would be wasted.
-const MIN_LIST_BYTES: usize = 1 << 16;
+const MIN_FILE_BYTES: usize = 1 << 16;
 
 /// Bytes of list text per piece read by one task.
 const PIECE_BYTES: usize = 1 << 22;
@@ -37,7 +37,7 @@ const PIECE_BYTES: usize = 1 << 22;
 /// Read the `nodes` and `members` lists of `text` where they are in the
 /// plain form; see the module comment.
 pub(super) fn read(text: &str) -> Bulk {
-    read_with(text, MIN_LIST_BYTES, PIECE_BYTES)
+    read_with(text, MIN_FILE_BYTES, PIECE_BYTES)
 }
 
 /// [`read`] with the size thresholds given, so tests can drive the fast
@@ -48,33 +48,35 @@ pub(super) fn read_with(text: &str, min_bytes: usize, piece_bytes: usize) -> Bul
         members: None,
         rest: None,
     };
-    let Some(spans) = crate::timing::stage("parse: find lists", || top_level_lists(text)) else {
+    if text.len() < min_bytes {
         return bulk;
-    };
+    }
     let mut blank = Vec::new();
-    for (name, open, close) in spans {
-        if close - open < min_bytes {
-            continue;
-        }
-        let inner = &text[open + 1..close];
-        match name {
-            List::Nodes => {
-                if let Some(v) =
-                    crate::timing::stage("parse: nodes", || read_list(inner, piece_bytes, node))
-                {
+    let found = crate::timing::stage("parse: plain lists", || {
+        top_level_lists(text, |list, open| {
+            let close = match list {
+                List::Nodes => read_list(text, open, piece_bytes, node).map(|(v, close)| {
                     bulk.nodes = Some(v);
-                    blank.push((open + 1, close));
-                }
-            }
-            List::Members => {
-                if let Some(v) =
-                    crate::timing::stage("parse: members", || read_list(inner, piece_bytes, member))
-                {
+                    close
+                }),
+                List::Members => read_list(text, open, piece_bytes, member).map(|(v, close)| {
                     bulk.members = Some(v);
-                    blank.push((open + 1, close));
-                }
+                    close
+                }),
+            };
+            if let Some(close) = close {
+                blank.push((open + 1, close));
             }
-        }
+            close
+        })
+    });
+    if found.is_none() {
+        // The scan lost its place: nothing read here is used.
+        return Bulk {
+            nodes: None,
+            members: None,
+            rest: None,
+        };
     }
     if !blank.is_empty() {
         bulk.rest = Some(blanked(text, &blank));
@@ -109,12 +111,14 @@ fn blanked(text: &str, spans: &[(usize, usize)]) -> String {
 
 // ------------------------------------------------------------ the top level
 
-/// The `[` and `]` byte positions of the top-level `nodes:` and `members:`
-/// lists, in file order. `None` if the file starts with an attribute
-/// (`#![enable(..)]` may change how everything reads) or holds a block
-/// comment, raw string or character literal outside a string, where this
-/// simple scan could lose its place.
-fn top_level_lists(text: &str) -> Option<Vec<(List, usize, usize)>> {
+/// Scan the top level of `text` and, at each `nodes: [` or `members: [`
+/// of the outermost struct, call `read(list, position of '[')`, which
+/// returns the position of the closing `]` if it read the list (the scan
+/// goes on after it) or `None` (the scan goes on inside the list). Gives
+/// `None` if the file starts with an attribute (`#![enable(..)]` may change
+/// how everything reads) or holds a block comment, raw string or character
+/// literal outside a string, where this simple scan could lose its place.
+fn top_level_lists(text: &str, mut read: impl FnMut(List, usize) -> Option<usize>) -> Option<()> {
     let b = text.as_bytes();
     let mut s = Scan { b, i: 0 };
     s.blanks()?;
@@ -122,7 +126,6 @@ fn top_level_lists(text: &str) -> Option<Vec<(List, usize, usize)>> {
         return None;
     }
     let mut depth = 0usize;
-    let mut found = Vec::new();
     while s.i < b.len() {
         let c = b[s.i];
         match c {
@@ -164,15 +167,14 @@ fn top_level_lists(text: &str) -> Option<Vec<(List, usize, usize)>> {
                 if b.get(s.i) != Some(&b'[') {
                     continue;
                 }
-                let open = s.i;
-                let close = s.matching_bracket()?;
-                found.push((list, open, close));
-                s.i = close + 1;
+                if let Some(close) = read(list, s.i) {
+                    s.i = close + 1;
+                }
             }
             _ => s.i += 1,
         }
     }
-    Some(found)
+    Some(())
 }
 
 /// A cursor over the bytes of the text.
@@ -216,64 +218,51 @@ impl Scan<'_> {
         }
         None
     }
-
-    /// The position of the `]` closing the `[` at the cursor.
-    fn matching_bracket(&mut self) -> Option<usize> {
-        let b = self.b;
-        let mut depth = 0usize;
-        while self.i < b.len() {
-            match b[self.i] {
-                b'(' | b'[' | b'{' => depth += 1,
-                b')' | b'}' => depth = depth.checked_sub(1)?,
-                b']' => {
-                    depth = depth.checked_sub(1)?;
-                    if depth == 0 {
-                        return Some(self.i);
-                    }
-                }
-                b'"' => {
-                    self.skip_string()?;
-                    continue;
-                }
-                b'/' => {
-                    self.blanks()?;
-                    continue;
-                }
-                b'\'' => return None,
-                _ => {}
-            }
-            self.i += 1;
-        }
-        None
-    }
 }
 
 // ------------------------------------------------------------------ lists
 
-/// Read the inside of a list (between its brackets) with `row`, in pieces
-/// on all cores; `None` if any piece is not in the plain form.
+/// Read the list whose `[` is at `open`, with `row`, in pieces on all
+/// cores: the pieces are cut from the rest of the file (its end is not
+/// known yet), the first piece to meet the closing `]` ends the list and
+/// the pieces after it are dropped (each fails at its first foreign row).
+/// The rows and the position of the `]`, or `None` if any piece before the
+/// end is not in the plain form.
 fn read_list<T: Send>(
-    inner: &str,
+    text: &str,
+    open: usize,
     piece_bytes: usize,
     row: fn(&mut Row) -> Option<T>,
-) -> Option<Vec<T>> {
-    let cuts = cuts(inner.as_bytes(), piece_bytes);
-    let pieces: Vec<Option<Vec<T>>> = cuts
+) -> Option<(Vec<T>, usize)> {
+    let from = open + 1;
+    let b = &text.as_bytes()[from..];
+    let cuts = cuts(b, piece_bytes);
+    let pieces: Vec<Piece<T>> = cuts
         .par_windows(2)
-        .map(|w| {
-            let last = w[1] == inner.len();
-            read_piece(&inner.as_bytes()[w[0]..w[1]], last, row)
-        })
+        .map(|w| read_piece(&b[w[0]..w[1]], row))
         .collect();
-    let total = pieces
-        .iter()
-        .map(|p| p.as_ref().map(Vec::len))
-        .sum::<Option<usize>>()?;
-    let mut all = Vec::with_capacity(total);
-    for p in pieces {
-        all.extend(p?);
+    let mut all = Vec::new();
+    for (p, w) in pieces.into_iter().zip(cuts.windows(2)) {
+        match p {
+            Piece::Through(v) => all.extend(v),
+            Piece::Ended(v, at) => {
+                all.extend(v);
+                return Some((all, from + w[0] + at));
+            }
+            Piece::Failed => return None,
+        }
     }
-    Some(all)
+    None
+}
+
+/// How one piece of a list read.
+enum Piece<T> {
+    /// Its rows, each followed by a comma, up to the piece's end.
+    Through(Vec<T>),
+    /// Its rows up to the list's closing `]`, at this offset in the piece.
+    Ended(Vec<T>, usize),
+    /// Something outside the plain form.
+    Failed,
 }
 
 /// Piece boundaries: 0, then about every `piece_bytes` the start of a line
@@ -310,23 +299,29 @@ fn cuts(b: &[u8], piece_bytes: usize) -> Vec<usize> {
     out
 }
 
-/// Rows of one piece: `row, row, ..., row,` and, for the last piece only,
-/// no trailing comma needed.
-fn read_piece<T>(b: &[u8], last: bool, row: fn(&mut Row) -> Option<T>) -> Option<Vec<T>> {
+/// Rows of one piece: `row, row, ..., row,` to its end, or up to the
+/// list's `]` (after a row or a comma).
+fn read_piece<T>(b: &[u8], row: fn(&mut Row) -> Option<T>) -> Piece<T> {
     let mut r = Row { b, i: 0 };
     let mut out = Vec::with_capacity(b.len() / 64);
     loop {
-        r.blanks()?;
-        if r.i == b.len() {
-            return Some(out);
+        r.blanks();
+        match b.get(r.i) {
+            None => return Piece::Through(out),
+            Some(b']') => return Piece::Ended(out, r.i),
+            Some(b'(') => r.i += 1,
+            Some(_) => return Piece::Failed,
         }
-        r.expect(b'(')?;
-        out.push(row(&mut r)?);
-        r.blanks()?;
-        if r.i == b.len() {
-            return last.then_some(out);
+        match row(&mut r) {
+            Some(v) => out.push(v),
+            None => return Piece::Failed,
         }
-        r.expect(b',')?;
+        r.blanks();
+        match b.get(r.i) {
+            Some(b',') => r.i += 1,
+            Some(b']') => return Piece::Ended(out, r.i),
+            _ => return Piece::Failed,
+        }
     }
 }
 
@@ -337,7 +332,7 @@ pub(super) struct Row<'a> {
 }
 
 impl<'a> Row<'a> {
-    fn blanks(&mut self) -> Option<()> {
+    fn blanks(&mut self) {
         let b = self.b;
         while self.i < b.len() {
             match b[self.i] {
@@ -350,7 +345,6 @@ impl<'a> Row<'a> {
                 _ => break,
             }
         }
-        Some(())
     }
 
     fn expect(&mut self, c: u8) -> Option<()> {
@@ -359,7 +353,7 @@ impl<'a> Row<'a> {
 
     /// The next field name and its colon; `None` at the row's `)`.
     fn field(&mut self) -> Option<Option<&'a [u8]>> {
-        self.blanks()?;
+        self.blanks();
         if self.b.get(self.i) == Some(&b')') {
             self.i += 1;
             return Some(None);
@@ -374,15 +368,15 @@ impl<'a> Row<'a> {
             return None;
         }
         let name = &self.b[start..self.i];
-        self.blanks()?;
+        self.blanks();
         self.expect(b':')?;
-        self.blanks()?;
+        self.blanks();
         Some(Some(name))
     }
 
     /// After a value: a comma, or the row's closing parenthesis (kept).
     fn after_value(&mut self) -> Option<()> {
-        self.blanks()?;
+        self.blanks();
         match self.b.get(self.i) {
             Some(b',') => {
                 self.i += 1;

@@ -6,35 +6,87 @@ use super::{Scale, CAUTION};
 use crate::analysis::Analysis;
 use crate::input::Diagnostic;
 use crate::model::Model;
+use std::fmt::{self, Write as _};
 use std::io::{self, Write};
 
 /// A finite number in its shortest round-trip form; `null` otherwise.
 pub fn num(v: f64) -> String {
-    if v.is_finite() {
-        let s = format!("{v:?}");
-        s.strip_suffix(".0").map(str::to_string).unwrap_or(s)
-    } else {
-        "null".into()
+    Num(v).to_string()
+}
+
+/// A JSON number written straight to the output, as [`num`] without the
+/// allocation: the shortest text that reads back to the same f64, with no
+/// trailing ".0"; `null` if not finite. Streams a million-row report.
+pub struct Num(pub f64);
+
+impl fmt::Display for Num {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        if !self.0.is_finite() {
+            return f.write_str("null");
+        }
+        let mut buf = Stack::default();
+        write!(buf, "{:?}", self.0)?;
+        let s = buf.as_str();
+        f.write_str(s.strip_suffix(".0").unwrap_or(s))
+    }
+}
+
+/// A small text buffer on the stack for one number.
+#[derive(Default)]
+struct Stack {
+    bytes: [u8; 32],
+    len: usize,
+}
+
+impl Stack {
+    fn as_str(&self) -> &str {
+        // Only whole `&str`s are ever appended.
+        std::str::from_utf8(&self.bytes[..self.len]).unwrap_or("null")
+    }
+}
+
+impl fmt::Write for Stack {
+    fn write_str(&mut self, s: &str) -> fmt::Result {
+        let end = self.len + s.len();
+        if end > self.bytes.len() {
+            return Err(fmt::Error);
+        }
+        self.bytes[self.len..end].copy_from_slice(s.as_bytes());
+        self.len = end;
+        Ok(())
     }
 }
 
 /// A JSON string literal.
 pub fn string(s: &str) -> String {
-    let mut out = String::with_capacity(s.len() + 2);
-    out.push('"');
-    for c in s.chars() {
-        match c {
-            '"' => out.push_str("\\\""),
-            '\\' => out.push_str("\\\\"),
-            '\n' => out.push_str("\\n"),
-            '\r' => out.push_str("\\r"),
-            '\t' => out.push_str("\\t"),
-            c if (c as u32) < 0x20 => out.push_str(&format!("\\u{:04x}", c as u32)),
-            c => out.push(c),
+    Str(s).to_string()
+}
+
+/// A JSON string literal written straight to the output, as [`string`].
+pub struct Str<'a>(pub &'a str);
+
+impl fmt::Display for Str<'_> {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        f.write_char('"')?;
+        let s = self.0;
+        let plain = |c: char| !(c == '"' || c == '\\' || (c as u32) < 0x20);
+        if s.chars().all(plain) {
+            f.write_str(s)?;
+        } else {
+            for c in s.chars() {
+                match c {
+                    '"' => f.write_str("\\\"")?,
+                    '\\' => f.write_str("\\\\")?,
+                    '\n' => f.write_str("\\n")?,
+                    '\r' => f.write_str("\\r")?,
+                    '\t' => f.write_str("\\t")?,
+                    c if (c as u32) < 0x20 => write!(f, "\\u{:04x}", c as u32)?,
+                    c => f.write_char(c)?,
+                }
+            }
         }
+        f.write_char('"')
     }
-    out.push('"');
-    out
 }
 
 /// The opening fields every command shares: title, units, caution, warnings.
@@ -71,6 +123,9 @@ pub fn write_header(
 
 /// The `determinacy` and `cases` fields of a solved model (no braces).
 pub fn write_cases(w: &mut dyn Write, model: &Model, analysis: &Analysis) -> io::Result<()> {
+    // A buffer of a concrete type: the million small writes of a large
+    // model are then plain copies, not calls through `dyn Write`.
+    let w = &mut io::BufWriter::with_capacity(1 << 16, w);
     let s = Scale::of(model);
     let d = model.determinacy();
     write!(
@@ -84,14 +139,14 @@ pub fn write_cases(w: &mut dyn Write, model: &Model, analysis: &Analysis) -> io:
     write!(
         w,
         ",\"smallest_pivot_ratio\":{}",
-        num(analysis.prepared.factor.min_pivot_ratio)
+        Num(analysis.prepared.factor.min_pivot_ratio)
     )?;
     w.write_all(b",\"cases\":[")?;
     for (c, case) in analysis.cases.iter().enumerate() {
         if c > 0 {
             w.write_all(b",")?;
         }
-        write!(w, "{{\"id\":{},\"displacements\":[", string(&case.id))?;
+        write!(w, "{{\"id\":{},\"displacements\":[", Str(&case.id))?;
         for (i, (node, u)) in model.nodes.iter().zip(&case.displacements).enumerate() {
             if i > 0 {
                 w.write_all(b",")?;
@@ -99,9 +154,9 @@ pub fn write_cases(w: &mut dyn Write, model: &Model, analysis: &Analysis) -> io:
             write!(
                 w,
                 "{{\"node\":{},\"ux\":{},\"uy\":{}}}",
-                string(&node.id),
-                num(u[0] / s.disp),
-                num(u[1] / s.disp)
+                Str(&node.id),
+                Num(u[0] / s.disp),
+                Num(u[1] / s.disp)
             )?;
         }
         w.write_all(b"],\"reactions\":[")?;
@@ -112,9 +167,9 @@ pub fn write_cases(w: &mut dyn Write, model: &Model, analysis: &Analysis) -> io:
             write!(
                 w,
                 "{{\"node\":{},\"rx\":{},\"ry\":{}}}",
-                string(&model.nodes[sup.node].id),
-                num(r[0] / s.force),
-                num(r[1] / s.force)
+                Str(&model.nodes[sup.node].id),
+                Num(r[0] / s.force),
+                Num(r[1] / s.force)
             )?;
         }
         w.write_all(b"],\"members\":[")?;
@@ -126,23 +181,24 @@ pub fn write_cases(w: &mut dyn Write, model: &Model, analysis: &Analysis) -> io:
             write!(
                 w,
                 "{{\"id\":{},\"force\":{},\"stress\":{}}}",
-                string(&mem.id),
-                num(f / s.force),
-                num(f / area / s.stress)
+                Str(&mem.id),
+                Num(f / s.force),
+                Num(f / area / s.stress)
             )?;
         }
         write!(
             w,
             "],\"equilibrium\":{{\"max_residual\":{},\"relative_residual\":{},\"load_sum\":{{\"fx\":{},\"fy\":{}}},\"reaction_sum\":{{\"rx\":{},\"ry\":{}}}}}}}",
-            num(case.residual / s.force),
-            num(case.relative_residual),
-            num(case.load_sum[0] / s.force),
-            num(case.load_sum[1] / s.force),
-            num(case.reaction_sum[0] / s.force),
-            num(case.reaction_sum[1] / s.force)
+            Num(case.residual / s.force),
+            Num(case.relative_residual),
+            Num(case.load_sum[0] / s.force),
+            Num(case.load_sum[1] / s.force),
+            Num(case.reaction_sum[0] / s.force),
+            Num(case.reaction_sum[1] / s.force)
         )?;
     }
-    w.write_all(b"]")
+    w.write_all(b"]")?;
+    w.flush()
 }
 
 /// `panelpoint solve --format json`.
@@ -168,5 +224,35 @@ mod tests {
         assert_eq!(num(f64::NAN), "null");
         assert_eq!(num(-1e-7), "-1e-7");
         assert_eq!(string("a\"b\\c\n"), "\"a\\\"b\\\\c\\n\"");
+        assert_eq!(string("plain id"), "\"plain id\"");
+        assert_eq!(string("tab\there\u{1}"), "\"tab\\there\\u0001\"");
+    }
+
+    #[test]
+    fn numbers_on_the_stack_match_the_shortest_round_trip_form() {
+        // Reference: Rust's own shortest round-trip Debug form of f64, with
+        // a trailing ".0" dropped, for the widest values there are.
+        for v in [
+            0.0,
+            -0.0,
+            1.0,
+            -2.5,
+            f64::MAX,
+            f64::MIN,
+            f64::MIN_POSITIVE,
+            -f64::MIN_POSITIVE,
+            5e-324,
+            -2.2250738585072014e-308,
+            1.2345678901234568e20,
+            0.1 + 0.2,
+            1e16,
+            123456789.125,
+        ] {
+            let s = format!("{v:?}");
+            let want = s.strip_suffix(".0").unwrap_or(&s);
+            assert_eq!(num(v), want);
+            assert_eq!(v, num(v).parse::<f64>().unwrap());
+        }
+        assert_eq!(num(f64::INFINITY), "null");
     }
 }
