@@ -16,7 +16,7 @@
 //! readers on every model in the repository and on many altered rows.
 
 use super::quantity::Quantity;
-use super::schema::{MemberFile, NodeFile};
+use super::schema::{Id, MemberFile, NodeFile};
 use rayon::prelude::*;
 
 /// What the fast reader took from the text.
@@ -389,6 +389,16 @@ impl<'a> Row<'a> {
 
     /// A string without escapes or control characters.
     fn string(&mut self) -> Option<String> {
+        self.text().map(str::to_owned)
+    }
+
+    /// An id: as [`Row::string`], kept inline when short.
+    fn id(&mut self) -> Option<Id> {
+        self.text().map(Id::new)
+    }
+
+    /// The text of a string without escapes or control characters.
+    fn text(&mut self) -> Option<&'a str> {
         self.expect(b'"')?;
         let start = self.i;
         loop {
@@ -399,7 +409,7 @@ impl<'a> Row<'a> {
                 _ => self.i += 1,
             }
         }
-        let s = std::str::from_utf8(&self.b[start..self.i]).ok()?.to_owned();
+        let s = std::str::from_utf8(&self.b[start..self.i]).ok()?;
         self.i += 1;
         Some(s)
     }
@@ -487,7 +497,7 @@ fn node(r: &mut Row) -> Option<NodeFile> {
     let (mut id, mut x, mut y) = (None, None, None);
     while let Some(name) = r.field()? {
         match name {
-            b"id" => once(&mut id, r.string())?,
+            b"id" => once(&mut id, r.id())?,
             b"x" => once(&mut x, r.quantity())?,
             b"y" => once(&mut y, r.quantity())?,
             _ => return None,
@@ -507,11 +517,11 @@ fn member(r: &mut Row) -> Option<MemberFile> {
     let (mut k_in, mut k_out, mut unbraced_in, mut unbraced_out) = (None, None, None, None);
     while let Some(name) = r.field()? {
         match name {
-            b"id" => once(&mut id, r.string())?,
-            b"start" => once(&mut start, r.string())?,
-            b"end" => once(&mut end, r.string())?,
-            b"section" => once(&mut section, r.string())?,
-            b"material" => once(&mut material, r.string())?,
+            b"id" => once(&mut id, r.id())?,
+            b"start" => once(&mut start, r.id())?,
+            b"end" => once(&mut end, r.id())?,
+            b"section" => once(&mut section, r.id())?,
+            b"material" => once(&mut material, r.id())?,
             b"k_in" => once(&mut k_in, r.number(false))?,
             b"k_out" => once(&mut k_out, r.number(false))?,
             b"unbraced_in" => once(&mut unbraced_in, r.quantity())?,

@@ -207,6 +207,74 @@ pub(super) fn intern<'f, T>(
     map
 }
 
+/// Ids of a long list, checked now and mapped only when first looked up:
+/// a million-member model whose loads name no member never builds the map.
+/// If any id has a problem the map is built at once by [`intern`], which
+/// reports every problem in file order.
+pub(super) struct LazyIds<'f, T> {
+    items: &'f [T],
+    id: fn(&'f T) -> &'f str,
+    map: std::cell::OnceCell<IdMap<'f>>,
+}
+
+impl<'f, T: Sync> LazyIds<'f, T> {
+    pub fn new(ctx: &mut Ctx, kind: &str, items: &'f [T], id: fn(&'f T) -> &'f str) -> Self {
+        let lazy = LazyIds {
+            items,
+            id,
+            map: std::cell::OnceCell::new(),
+        };
+        if !Self::all_good(items, id) {
+            let _ = lazy.map.set(intern(ctx, kind, items, id));
+        }
+        lazy
+    }
+
+    /// Every id printable, at most [`MAX_ID_CHARS`] long and unique: checked
+    /// on all cores, uniqueness by sorting 64-bit hashes and comparing the
+    /// ids of equal hashes.
+    fn all_good(items: &'f [T], id: fn(&'f T) -> &'f str) -> bool {
+        use rayon::prelude::*;
+        use std::hash::BuildHasher;
+        let good = |name: &str| {
+            !name.trim().is_empty()
+                && name.chars().count() <= MAX_ID_CHARS
+                && !name.chars().any(char::is_control)
+        };
+        let hasher = rustc_hash::FxBuildHasher;
+        let mut hashes: Vec<(u64, u32)> = match items
+            .par_iter()
+            .enumerate()
+            .map(|(i, item)| {
+                let name = id(item);
+                good(name).then(|| (hasher.hash_one(name), i as u32))
+            })
+            .collect::<Option<Vec<_>>>()
+        {
+            Some(h) => h,
+            None => return false,
+        };
+        hashes.par_sort_unstable();
+        !hashes
+            .par_windows(2)
+            .any(|w| w[0].0 == w[1].0 && id(&items[w[0].1 as usize]) == id(&items[w[1].1 as usize]))
+    }
+
+    /// The index of the item with this id.
+    pub fn get(&self, name: &str) -> Option<usize> {
+        self.map
+            .get_or_init(|| {
+                let mut map = IdMap::with_capacity_and_hasher(self.items.len(), Default::default());
+                for (i, item) in self.items.iter().enumerate() {
+                    map.insert((self.id)(item), i);
+                }
+                map
+            })
+            .get(name)
+            .copied()
+    }
+}
+
 fn reference(
     ctx: &mut Ctx,
     map: &IdMap,
@@ -264,7 +332,7 @@ impl PlainRefs<'_, '_> {
             return None;
         }
         Some(Member {
-            id: m.id.clone(),
+            id: m.id.to_string(),
             start,
             end,
             section,
@@ -346,7 +414,7 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
 
     lap.mark("materials and sections");
     // Nodes.
-    let node_ids = intern(&mut ctx, "node", &file.nodes, |n| &n.id);
+    let node_ids = intern(&mut ctx, "node", &file.nodes, |n| n.id.as_str());
     let mut nodes = Vec::with_capacity(file.nodes.len());
     for n in &file.nodes {
         let at = || None;
@@ -380,7 +448,7 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
             }
         }
         nodes.push(Node {
-            id: n.id.clone(),
+            id: n.id.to_string(),
             x: x.unwrap_or(0.0),
             y: y.unwrap_or(0.0),
         });
@@ -412,7 +480,7 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
     let (member_ids, plain) = rayon::join(
         || {
             crate::timing::stage("convert: member ids (beside the rows)", || {
-                intern(&mut ctx, "member", &file.members, |m| &m.id)
+                LazyIds::new(&mut ctx, "member", &file.members, |m| m.id.as_str())
             })
         },
         || {
@@ -504,7 +572,7 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
             let unbraced_in = len(&mut ctx, &m.unbraced_in, "unbraced_in");
             let unbraced_out = len(&mut ctx, &m.unbraced_out, "unbraced_out");
             members.push(Member {
-                id: m.id.clone(),
+                id: m.id.to_string(),
                 start: s,
                 end: e,
                 section: sec,

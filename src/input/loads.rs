@@ -20,14 +20,14 @@ pub(super) struct Parts<'a> {
     pub sections: &'a [Section],
     pub materials: &'a [Material],
     /// File index of each member id.
-    pub member_ids: &'a super::convert::IdMap<'a>,
+    pub member_ids: &'a super::convert::LazyIds<'a, super::schema::MemberFile>,
     /// Whether `members` lines up with the file (no member was rejected).
     pub members_ok: bool,
 }
 
 fn member_ref(ctx: &mut Ctx, p: &Parts, name: &str, field: &str, owner: &str) -> Option<usize> {
     match p.member_ids.get(name) {
-        Some(&i) if p.members_ok => Some(i),
+        Some(i) if p.members_ok => Some(i),
         Some(_) => None,
         None => {
             let at = ctx.loc.field("member", name, 0);
