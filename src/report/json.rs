@@ -147,18 +147,16 @@ pub fn write_cases(w: &mut dyn Write, model: &Model, analysis: &Analysis) -> io:
             w.write_all(b",")?;
         }
         write!(w, "{{\"id\":{},\"displacements\":[", Str(&case.id))?;
-        for (i, (node, u)) in model.nodes.iter().zip(&case.displacements).enumerate() {
-            if i > 0 {
-                w.write_all(b",")?;
-            }
+        rows(w, model.nodes.len(), |i, b| {
+            let u = case.displacements[i];
             write!(
-                w,
+                b,
                 "{{\"node\":{},\"ux\":{},\"uy\":{}}}",
-                Str(&node.id),
+                Str(&model.nodes[i].id),
                 Num(u[0] / s.disp),
                 Num(u[1] / s.disp)
-            )?;
-        }
+            )
+        })?;
         w.write_all(b"],\"reactions\":[")?;
         for (i, (sup, r)) in model.supports.iter().zip(&case.reactions).enumerate() {
             if i > 0 {
@@ -173,19 +171,17 @@ pub fn write_cases(w: &mut dyn Write, model: &Model, analysis: &Analysis) -> io:
             )?;
         }
         w.write_all(b"],\"members\":[")?;
-        for (i, (mem, f)) in model.members.iter().zip(&case.forces).enumerate() {
-            if i > 0 {
-                w.write_all(b",")?;
-            }
+        rows(w, model.members.len(), |i, b| {
+            let (mem, f) = (&model.members[i], case.forces[i]);
             let area = model.sections[mem.section].area;
             write!(
-                w,
+                b,
                 "{{\"id\":{},\"force\":{},\"stress\":{}}}",
                 Str(&mem.id),
                 Num(f / s.force),
                 Num(f / area / s.stress)
-            )?;
-        }
+            )
+        })?;
         write!(
             w,
             "],\"equilibrium\":{{\"max_residual\":{},\"relative_residual\":{},\"load_sum\":{{\"fx\":{},\"fy\":{}}},\"reaction_sum\":{{\"rx\":{},\"ry\":{}}}}}}}",
@@ -199,6 +195,51 @@ pub fn write_cases(w: &mut dyn Write, model: &Model, analysis: &Analysis) -> io:
     }
     w.write_all(b"]")?;
     w.flush()
+}
+
+/// Rows formatted per batch.
+const ROWS_PER_BATCH: usize = 8192;
+/// Batches formatted at once, on all cores, before they are written in
+/// order: the output streams in windows of this many batches.
+const BATCHES_PER_WINDOW: usize = 16;
+
+/// Write `count` comma-separated rows, `row(i, buffer)` formatting row `i`.
+/// Large tables are formatted in batches on all cores and written in
+/// order, a window at a time, so the output is the same as a plain loop's
+/// and is never held whole in memory.
+fn rows(
+    w: &mut impl Write,
+    count: usize,
+    row: impl Fn(usize, &mut Vec<u8>) -> io::Result<()> + Sync,
+) -> io::Result<()> {
+    use rayon::prelude::*;
+    let batch = |range: std::ops::Range<usize>| -> io::Result<Vec<u8>> {
+        let mut b = Vec::with_capacity(range.len() * 64);
+        for i in range {
+            if i > 0 {
+                b.push(b',');
+            }
+            row(i, &mut b)?;
+        }
+        Ok(b)
+    };
+    if count <= ROWS_PER_BATCH {
+        return w.write_all(&batch(0..count)?);
+    }
+    let window = ROWS_PER_BATCH * BATCHES_PER_WINDOW;
+    for start in (0..count).step_by(window) {
+        let end = (start + window).min(count);
+        let parts: Vec<io::Result<Vec<u8>>> = (start..end)
+            .step_by(ROWS_PER_BATCH)
+            .collect::<Vec<_>>()
+            .into_par_iter()
+            .map(|a| batch(a..(a + ROWS_PER_BATCH).min(end)))
+            .collect();
+        for p in parts {
+            w.write_all(&p?)?;
+        }
+    }
+    Ok(())
 }
 
 /// `panelpoint solve --format json`.
@@ -226,6 +267,24 @@ mod tests {
         assert_eq!(string("a\"b\\c\n"), "\"a\\\"b\\\\c\\n\"");
         assert_eq!(string("plain id"), "\"plain id\"");
         assert_eq!(string("tab\there\u{1}"), "\"tab\\there\\u0001\"");
+    }
+
+    #[test]
+    fn batched_rows_are_the_plain_loop_in_order() {
+        // Reference: the rows joined by commas in a plain loop, for counts
+        // below one batch, across batches and across windows.
+        let window = ROWS_PER_BATCH * BATCHES_PER_WINDOW;
+        for count in [0, 1, 7, ROWS_PER_BATCH + 1, 2 * window + 3] {
+            let mut out = Vec::new();
+            rows(&mut out, count, |i, b| {
+                write!(b, "{{\"i\":{}}}", Num(i as f64 * 0.5))
+            })
+            .unwrap();
+            let want: Vec<String> = (0..count)
+                .map(|i| format!("{{\"i\":{}}}", num(i as f64 * 0.5)))
+                .collect();
+            assert_eq!(String::from_utf8(out).unwrap(), want.join(","));
+        }
     }
 
     #[test]
