@@ -62,6 +62,8 @@ fn write_csc(path: &Path, k: &Csc) {
     for &v in &k.values {
         f.write_all(&v.to_le_bytes()).unwrap();
     }
+    // Flushed to disk now, so write-back does not run during the timings.
+    f.into_inner().unwrap().sync_all().unwrap();
 }
 
 fn read_csc(path: &Path) -> Csc {
@@ -184,6 +186,10 @@ fn measure(target: usize, dir: &Path, bin: &str, me: &str) -> Row {
     let text = lattice_text(target);
     let model_path = dir.join(format!("lattice_{target}.ron"));
     std::fs::write(&model_path, &text).unwrap();
+    std::fs::File::open(&model_path)
+        .unwrap()
+        .sync_all()
+        .unwrap();
     let mut stages = Vec::new();
     let (file, t) = secs(|| input::parse_str(&text).unwrap());
     stages.push(("load (RON parse)", t));
