@@ -1,7 +1,7 @@
 //! One-shot scale table: times every pipeline stage once on generated
 //! lattices (10^3 … 10^6 DOF) with `Instant`, runs the release CLI and a
 //! bare faer factorization of the same matrix in subprocesses for wall time
-//! and peak memory (in turn, 3 to 5 times each, fastest kept), and prints a
+//! and peak memory (in turn, 5 or 6 times each, fastest kept), and prints a
 //! Markdown table of stage times and ratios.
 //! Criterion's repetitions are far too slow at 10^6 DOF, hence harness = false.
 //!
@@ -238,7 +238,7 @@ fn measure(target: usize, dir: &Path, bin: &str, me: &str) -> Row {
     // the fastest run of each is kept: the machine is shared, and one stall
     // during one run must not decide the ratio.
     let kpath = dir.join(format!("k_{target}.bin"));
-    let repeats = if target > 500_000 { 3 } else { 5 };
+    let repeats = if target > 500_000 { 6 } else { 5 };
     let (mut cli_wall, mut cli_rss) = (f64::INFINITY, 0);
     let (mut bare_wall, mut bare_rss) = (f64::INFINITY, 0);
     let mut v: Vec<f64> = vec![f64::INFINITY; 4];
@@ -426,6 +426,34 @@ fn main() {
         println!("{} cases", a.cases.len());
         return;
     }
+    // `twice MODEL`: load, assemble, then factor the assembled K and a
+    // fresh copy of it (and the K file, if given) in turn, for comparison.
+    if args.first().map(String::as_str) == Some("twice") {
+        let text = std::fs::read_to_string(&args[1]).unwrap();
+        let c = load(&text);
+        drop(text);
+        let d = panelpoint::analysis::dofs::Dofs::new(&c.model);
+        let k = panelpoint::analysis::assemble::stiffness(&c.model, &d);
+        let s = Symbolic::new(&k).unwrap();
+        let copy = Csc {
+            n: k.n,
+            col_ptr: k.col_ptr.clone(),
+            row_idx: k.row_idx.clone(),
+            values: k.values.clone(),
+        };
+        let file = args.get(2).map(|p| read_csc(Path::new(p)));
+        for _ in 0..2 {
+            let (_f, t) = secs(|| s.factor(&k).unwrap());
+            println!("assembled K: numeric {t:.3} s");
+            let (_f, t) = secs(|| s.factor(&copy).unwrap());
+            println!("copied K:    numeric {t:.3} s");
+            if let Some(f) = &file {
+                let (_f, t) = secs(|| s.factor(f).unwrap());
+                println!("file K:      numeric {t:.3} s");
+            }
+        }
+        return;
+    }
     // `ours PATH [MODEL]`: panelpoint's own factor of the K file, in a
     // fresh process, optionally after loading (and dropping) a model.
     if args.first().map(String::as_str) == Some("ours") {
@@ -516,14 +544,14 @@ fn main() {
             &|r| mb(r.in_process_rss),
         );
         line(
-            "**CLI `solve --format json > /dev/null`, wall (fastest of 3–5)**",
+            "**CLI `solve --format json > /dev/null`, wall (fastest of 5–6)**",
             &|r| ms(r.cli_wall),
         );
         line("CLI peak RSS", &|r| mb(r.cli_rss));
         line("bare faer symbolic", &|r| ms(r.bare_sym));
         line("bare faer numeric", &|r| ms(r.bare_num));
         line("bare faer solve", &|r| ms(r.bare_solve));
-        line("**bare faer factor + solve (fastest of 3–5)**", &|r| {
+        line("**bare faer factor + solve (fastest of 5–6)**", &|r| {
             ms(r.bare_sym + r.bare_num + r.bare_solve)
         });
         line("bare process wall (incl. reading K)", &|r| ms(r.bare_wall));
