@@ -177,6 +177,23 @@ fn top_level_lists(text: &str, mut read: impl FnMut(List, usize) -> Option<usize
     Some(())
 }
 
+/// The first position at or after `i` that is not an ASCII blank or inside
+/// a `//` comment.
+fn skip_blanks(b: &[u8], mut i: usize) -> usize {
+    while i < b.len() {
+        match b[i] {
+            b' ' | b'\t' | b'\n' | b'\r' => i += 1,
+            b'/' if b.get(i + 1) == Some(&b'/') => {
+                while i < b.len() && b[i] != b'\n' {
+                    i += 1;
+                }
+            }
+            _ => break,
+        }
+    }
+    i
+}
+
 /// A cursor over the bytes of the text.
 struct Scan<'a> {
     b: &'a [u8],
@@ -184,22 +201,11 @@ struct Scan<'a> {
 }
 
 impl Scan<'_> {
-    /// Skip ASCII blanks and `//` comments; `None` at a block comment.
+    /// Skip blanks and `//` comments; `None` at any other `/` (a block
+    /// comment), where this scan could lose its place.
     fn blanks(&mut self) -> Option<()> {
-        let b = self.b;
-        while self.i < b.len() {
-            match b[self.i] {
-                b' ' | b'\t' | b'\n' | b'\r' => self.i += 1,
-                b'/' if b.get(self.i + 1) == Some(&b'/') => {
-                    while self.i < b.len() && b[self.i] != b'\n' {
-                        self.i += 1;
-                    }
-                }
-                b'/' => return None,
-                _ => break,
-            }
-        }
-        Some(())
+        self.i = skip_blanks(self.b, self.i);
+        (self.b.get(self.i) != Some(&b'/')).then_some(())
     }
 
     /// Past a `"` string (escapes skipped); `None` if it never closes.
@@ -333,18 +339,18 @@ pub(super) struct Row<'a> {
 
 impl<'a> Row<'a> {
     fn blanks(&mut self) {
-        let b = self.b;
-        while self.i < b.len() {
-            match b[self.i] {
-                b' ' | b'\t' | b'\n' | b'\r' => self.i += 1,
-                b'/' if b.get(self.i + 1) == Some(&b'/') => {
-                    while self.i < b.len() && b[self.i] != b'\n' {
-                        self.i += 1;
-                    }
-                }
-                _ => break,
-            }
+        self.i = skip_blanks(self.b, self.i);
+    }
+
+    /// Each `name: value` of the row after its `(`, through its `)`:
+    /// `value` reads the value of `name` (`None` for a name it does not
+    /// know or a value outside the plain form).
+    fn fields(&mut self, mut value: impl FnMut(&mut Self, &[u8]) -> Option<()>) -> Option<()> {
+        while let Some(name) = self.field()? {
+            value(self, name)?;
+            self.after_value()?;
         }
+        Some(())
     }
 
     fn expect(&mut self, c: u8) -> Option<()> {
@@ -495,15 +501,12 @@ fn once<T>(slot: &mut Option<T>, v: Option<T>) -> Option<()> {
 /// `(id: "..", x: .., y: ..)` after its `(`.
 fn node(r: &mut Row) -> Option<NodeFile> {
     let (mut id, mut x, mut y) = (None, None, None);
-    while let Some(name) = r.field()? {
-        match name {
-            b"id" => once(&mut id, r.id())?,
-            b"x" => once(&mut x, r.quantity())?,
-            b"y" => once(&mut y, r.quantity())?,
-            _ => return None,
-        }
-        r.after_value()?;
-    }
+    r.fields(|r, name| match name {
+        b"id" => once(&mut id, r.id()),
+        b"x" => once(&mut x, r.quantity()),
+        b"y" => once(&mut y, r.quantity()),
+        _ => None,
+    })?;
     Some(NodeFile {
         id: id?,
         x: x?,
@@ -515,21 +518,18 @@ fn node(r: &mut Row) -> Option<NodeFile> {
 fn member(r: &mut Row) -> Option<MemberFile> {
     let (mut id, mut start, mut end, mut section, mut material) = (None, None, None, None, None);
     let (mut k_in, mut k_out, mut unbraced_in, mut unbraced_out) = (None, None, None, None);
-    while let Some(name) = r.field()? {
-        match name {
-            b"id" => once(&mut id, r.id())?,
-            b"start" => once(&mut start, r.id())?,
-            b"end" => once(&mut end, r.id())?,
-            b"section" => once(&mut section, r.id())?,
-            b"material" => once(&mut material, r.id())?,
-            b"k_in" => once(&mut k_in, r.number(false))?,
-            b"k_out" => once(&mut k_out, r.number(false))?,
-            b"unbraced_in" => once(&mut unbraced_in, r.quantity())?,
-            b"unbraced_out" => once(&mut unbraced_out, r.quantity())?,
-            _ => return None,
-        }
-        r.after_value()?;
-    }
+    r.fields(|r, name| match name {
+        b"id" => once(&mut id, r.id()),
+        b"start" => once(&mut start, r.id()),
+        b"end" => once(&mut end, r.id()),
+        b"section" => once(&mut section, r.id()),
+        b"material" => once(&mut material, r.id()),
+        b"k_in" => once(&mut k_in, r.number(false)),
+        b"k_out" => once(&mut k_out, r.number(false)),
+        b"unbraced_in" => once(&mut unbraced_in, r.quantity()),
+        b"unbraced_out" => once(&mut unbraced_out, r.quantity()),
+        _ => None,
+    })?;
     Some(MemberFile {
         id: id?,
         start: start?,
