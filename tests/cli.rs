@@ -92,6 +92,51 @@ fn warnings_for_isolated_nodes_and_crossings() {
     assert!(err.contains("warning") && err.contains("\"X\""), "{err}");
 }
 
+/// `solve` runs the crossing-members check beside the analysis; its
+/// warnings must still reach both reports, after the loader's others, as
+/// `validate` (which loads in one go) gives them.
+#[test]
+fn crossing_warnings_reach_solve_reports_in_order() {
+    let text = FOUR_PANEL
+        .replace(
+            "(id: \"U3\", x: 54.0, y: 16.0),",
+            "(id: \"U3\", x: 54.0, y: 16.0),\n        (id: \"X\", x: 90.0, y: 5.0),",
+        )
+        .replace(
+            "(id: \"L2-U3\", start: \"L2\", end: \"U3\", section: \"web\", material: \"steel\"),",
+            "(id: \"L2-U3\", start: \"L2\", end: \"U3\", section: \"web\", material: \"steel\"),\n\
+             (id: \"U2-L3\", start: \"U2\", end: \"L3\", section: \"web\", material: \"steel\"),",
+        );
+    let path = temp_model("crossing.ron", &text);
+    let p = path.to_str().unwrap();
+    let (code, out, err) = run(&["solve", p, "--format", "json"]);
+    assert_eq!(code, 0, "{err}");
+    let v: serde_json::Value = serde_json::from_str(&out).unwrap();
+    let w: Vec<String> = v["warnings"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|w| w.to_string())
+        .collect();
+    let isolated = w
+        .iter()
+        .position(|m| m.contains("node \\\"X\\\" has no member"));
+    let crossing = w
+        .iter()
+        .position(|m| m.contains("cross without a shared node"));
+    assert!(
+        matches!((isolated, crossing), (Some(i), Some(c)) if i < c),
+        "{w:?}"
+    );
+    let (code, out, _) = run(&["solve", p]);
+    assert_eq!(code, 0);
+    assert!(out.contains("cross without a shared node"), "{out}");
+    let (_, _, err) = run(&["validate", p]);
+    let i = err.find("has no member").unwrap();
+    let c = err.find("cross without a shared node").unwrap();
+    assert!(i < c, "{err}");
+}
+
 #[test]
 fn missing_file_and_usage() {
     let (code, _, err) = run(&["solve", "/nonexistent/model.ron"]);

@@ -55,6 +55,14 @@ fn lattice_small_equilibrium() {
 }
 
 #[test]
+fn lattice_parallel_factor_equilibrium() {
+    // About 29,000 DOF: above the size where the factorization runs on all
+    // cores (its pages touched first, inside the thread pool), so that path
+    // is checked in every suite too.
+    check(120);
+}
+
+#[test]
 #[ignore = "10^6 DOF: run with --release --ignored (benches/run_table.sh)"]
 fn lattice_million_dof_equilibrium() {
     check(706);

@@ -354,3 +354,21 @@ fn settlements() {
     let r = &a.cases[0].reactions;
     assert_close!(r[0][0] + r[1][0], 0.0, 0.0, 1e-6);
 }
+
+/// `analyse_beside` hands back what ran beside it whether the analysis
+/// succeeds or finds a mechanism (a diagonal removed from one panel), and
+/// its analysis is the plain `analyse`'s.
+#[test]
+fn analyse_beside_returns_both_results() {
+    let (m, a) = solve(FOUR_PANEL);
+    let (b, seven) = panelpoint::analysis::analyse_beside(&m, || 7);
+    assert_eq!(seven, 7);
+    assert_eq!(b.unwrap().cases[1].forces, a.cases[1].forces);
+    let broken = load(&FOUR_PANEL.replace(
+        "(id: \"U1-L2\", start: \"U1\", end: \"L2\", section: \"web\", material: \"steel\"),",
+        "",
+    ));
+    let (b, eight) = panelpoint::analysis::analyse_beside(&broken, || 8);
+    assert_eq!(eight, 8);
+    assert!(b.is_err());
+}

@@ -8,4 +8,4 @@ pub mod dofs;
 pub mod results;
 pub mod solve;
 
-pub use results::{analyse, Analysis, CaseResult};
+pub use results::{analyse, analyse_beside, Analysis, CaseResult};

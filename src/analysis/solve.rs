@@ -53,6 +53,34 @@ pub struct Factor {
     pub min_pivot_dof: usize,
 }
 
+/// Run `f` on a thread of the rayon pool when `par` is parallel.
+///
+/// Called from outside the pool, each of faer's parallel sections is sent
+/// to the pool and the caller sleeps until it is done: two thread wake-ups
+/// for every supernode large enough to split, and the sequential parts in
+/// between run on a thread the pool does not count. Run from inside the
+/// pool, the splits are plain work-stealing joins. Measured on a 10⁶-DOF
+/// lattice (2 cores): about 1 s less of numeric factorization, most of it
+/// system time spent waking threads.
+pub fn in_pool<R: Send>(par: Par, f: impl FnOnce() -> R + Send) -> R {
+    if par == Par::Seq || rayon::current_thread_index().is_some() {
+        f()
+    } else {
+        rayon::scope(|_| f())
+    }
+}
+
+/// Write `value` over `buf` on all cores, so the operating system maps
+/// and zeroes its pages now, on every core at once, rather than one page
+/// at a time inside the factorization's sequential stretches. On a
+/// 10⁶-DOF lattice the factor is 1.7 GB (400,000 pages); touched first
+/// the numeric factorization took about 1.3 s less in total.
+pub fn touch_in_parallel<T: Copy + Send + Sync>(buf: &mut [T], value: T) {
+    use rayon::prelude::*;
+    let chunk = (1 << 18) / std::mem::size_of::<T>().max(1);
+    buf.par_chunks_mut(chunk.max(1)).for_each(|c| c.fill(value));
+}
+
 fn pattern(k: &Csc) -> SymbolicSparseColMatRef<'_, usize> {
     SymbolicSparseColMatRef::new_checked(k.n, k.n, &k.col_ptr, None, &k.row_idx)
 }
@@ -111,25 +139,35 @@ impl Symbolic {
                 scaled[p] *= scale[k.row_idx[p]] * scale[j];
             }
         }
-        let mut values = vec![0.0; self.inner.len_val()];
         let par = if n > 20_000 { Par::rayon(0) } else { Par::Seq };
+        let mut values = vec![0.0; self.inner.len_val()];
         let req = self
             .inner
             .factorize_numeric_llt_scratch::<f64>(par, Default::default());
         let mut buf = MemBuffer::try_new(req).map_err(|_| FactorError::Internal)?;
+        if par != Par::Seq {
+            touch_in_parallel(&mut values, 0.0);
+            touch_in_parallel(&mut buf, std::mem::MaybeUninit::new(0u8));
+        }
         let a = SparseColMatRef::new(pattern(k), &scaled);
-        let result = self.inner.factorize_numeric_llt(
-            &mut values,
-            a,
-            Side::Upper,
-            LltRegularization {
-                dynamic_regularization_delta: MARKER_PIVOT,
-                dynamic_regularization_epsilon: MECHANISM_PIVOT_RATIO,
-            },
-            par,
-            MemStack::new(&mut buf),
-            Default::default(),
-        );
+        let inner = &self.inner;
+        let result = in_pool(par, || {
+            inner
+                .factorize_numeric_llt(
+                    &mut values,
+                    a,
+                    Side::Upper,
+                    LltRegularization {
+                        dynamic_regularization_delta: MARKER_PIVOT,
+                        dynamic_regularization_epsilon: MECHANISM_PIVOT_RATIO,
+                    },
+                    par,
+                    MemStack::new(&mut buf),
+                    Default::default(),
+                )
+                .map(|_| ())
+                .map_err(|_| ())
+        });
         drop(buf);
         drop(scaled);
         if result.is_err() {
@@ -224,7 +262,9 @@ impl Factor {
             col.iter_mut().zip(&self.scale).for_each(|(v, s)| *v *= s);
         }
         let mat = MatMut::from_column_major_slice_mut(rhs, n, ncols);
-        llt.solve_in_place_with_conj(Conj::No, mat, par, MemStack::new(&mut buf));
+        in_pool(par, || {
+            llt.solve_in_place_with_conj(Conj::No, mat, par, MemStack::new(&mut buf))
+        });
         for col in rhs.chunks_mut(n) {
             col.iter_mut().zip(&self.scale).for_each(|(v, s)| *v *= s);
         }

@@ -19,6 +19,14 @@ pub(super) fn format(f: FormatArg) -> Format {
 
 /// Read and validate a model file.
 pub fn load(path: &Path) -> Result<Converted, Error> {
+    let (mut c, check) = load_deferred(path)?;
+    c.warnings.extend(check.run(&c.model));
+    Ok(c)
+}
+
+/// [`load`] with the crossing-members check handed back, for a command that
+/// runs it beside the analysis.
+fn load_deferred(path: &Path) -> Result<(Converted, input::convert::CrossingCheck), Error> {
     let bytes = crate::timing::stage("read file", || std::fs::read(path)).map_err(|source| {
         Error::Read {
             path: path.to_path_buf(),
@@ -38,7 +46,7 @@ pub fn load(path: &Path) -> Result<Converted, Error> {
             }],
         },
     })?;
-    input::load_str_in(&text, path.parent()).map_err(|diagnostics| Error::Model {
+    input::load_str_deferred(&text, path.parent()).map_err(|diagnostics| Error::Model {
         path: path.to_path_buf(),
         diagnostics,
     })
@@ -107,11 +115,15 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             format: f,
             out,
         } => {
-            let c = load(&model)?;
-            let a = analysis::analyse(&c.model).map_err(|source| Error::Analysis {
+            let (mut c, check) = load_deferred(&model)?;
+            // The crossing check only warns: it runs on the second core
+            // while the first orders K.
+            let (a, crossing) = analysis::analyse_beside(&c.model, || check.run(&c.model));
+            let a = a.map_err(|source| Error::Analysis {
                 path: model.clone(),
                 source,
             })?;
+            c.warnings.extend(crossing);
             let (m, warn) = (&c.model, &c.warnings);
             crate::timing::stage("output", || {
                 write(&out, |w| match format(f) {

@@ -346,6 +346,58 @@ impl PlainRefs<'_, '_> {
 }
 
 pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
+    let (mut c, check) = convert_deferred(file, text)?;
+    c.warnings.extend(check.run(&c.model));
+    Ok(c)
+}
+
+/// The crossing-members check of [`convert`], kept apart: it only warns,
+/// and on a large model it is one of the longer checks (0.3 s at 10⁶ DOF),
+/// so a caller that analyses the model next can run it beside the
+/// analysis. Its warnings come after all others, as from [`convert`].
+pub struct CrossingCheck {
+    tol: f64,
+}
+
+impl CrossingCheck {
+    /// Warnings for members that cross without a shared node: the first
+    /// few pairs by name, then a count of the rest.
+    pub fn run(&self, model: &Model) -> Vec<Diagnostic> {
+        let crossings = crate::timing::stage("crossing members", || {
+            geometry::crossing_members(model, self.tol)
+        });
+        let shown = 5;
+        let warn = |message| Diagnostic {
+            severity: Severity::Warning,
+            message,
+            location: None,
+        };
+        let mut out: Vec<Diagnostic> = crossings
+            .iter()
+            .take(shown)
+            .map(|&(a, b)| {
+                warn(format!(
+                    "members \"{}\" and \"{}\" cross without a shared node",
+                    model.members[a].id, model.members[b].id
+                ))
+            })
+            .collect();
+        if crossings.len() > shown {
+            out.push(warn(format!(
+                "{} more pairs of members cross without a shared node",
+                crossings.len() - shown
+            )));
+        }
+        out
+    }
+}
+
+/// [`convert`] without the crossing-members check, which is handed back to
+/// run when the caller chooses.
+pub fn convert_deferred(
+    file: ModelFile,
+    text: &str,
+) -> Result<(Converted, CrossingCheck), Diagnostics> {
     let mut lap = crate::timing::Lap::new("convert");
     let mut ctx = Ctx {
         loc: Locator::new(text),
@@ -883,7 +935,8 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
     }
 
     lap.mark("loads and settings");
-    // Warnings: isolated nodes and members crossing without a joint.
+    // Warnings: isolated nodes here, members crossing without a joint in
+    // [`CrossingCheck`].
     // Only the first few are located: each search reads the whole text.
     let mut isolated = 0;
     for (i, n) in nodes.iter().enumerate() {
@@ -911,29 +964,11 @@ pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
         live,
     };
     lap.mark("isolated nodes");
-    let crossings = geometry::crossing_members(&model, tol);
-    lap.mark("crossing members");
-    let shown = 5;
-    for &(a, b) in crossings.iter().take(shown) {
-        ctx.warn(
-            format!(
-                "members \"{}\" and \"{}\" cross without a shared node",
-                model.members[a].id, model.members[b].id
-            ),
-            None,
-        );
-    }
-    if crossings.len() > shown {
-        ctx.warn(
-            format!(
-                "{} more pairs of members cross without a shared node",
-                crossings.len() - shown
-            ),
-            None,
-        );
-    }
-    Ok(Converted {
-        model,
-        warnings: ctx.warnings,
-    })
+    Ok((
+        Converted {
+            model,
+            warnings: ctx.warnings,
+        },
+        CrossingCheck { tol },
+    ))
 }

@@ -29,6 +29,17 @@ pub fn load_str(text: &str) -> Result<Converted, Diagnostics> {
 /// Parse and validate model text read from a file in folder `dir`, which
 /// a `vehicles_file` is relative to.
 pub fn load_str_in(text: &str, dir: Option<&std::path::Path>) -> Result<Converted, Diagnostics> {
+    let (mut c, check) = load_str_deferred(text, dir)?;
+    c.warnings.extend(check.run(&c.model));
+    Ok(c)
+}
+
+/// [`load_str_in`] with the crossing-members check handed back to run
+/// later (beside the analysis, say); see [`convert::CrossingCheck`].
+pub fn load_str_deferred(
+    text: &str,
+    dir: Option<&std::path::Path>,
+) -> Result<(Converted, convert::CrossingCheck), Diagnostics> {
     if text.trim().is_empty() {
         return Err(single("the model file is empty", None));
     }
@@ -37,7 +48,9 @@ pub fn load_str_in(text: &str, dir: Option<&std::path::Path>) -> Result<Converte
     }
     let mut file = crate::timing::stage("parse", || parse_str(text))?;
     loads::merge_vehicles_file(&mut file, dir)?;
-    crate::timing::stage("validate + convert", || convert::convert(file, text))
+    crate::timing::stage("validate + convert", || {
+        convert::convert_deferred(file, text)
+    })
 }
 
 /// The syntax step of [`load_str`] alone: RON text to the schema types,
