@@ -146,8 +146,10 @@ impl Symbolic {
             .factorize_numeric_llt_scratch::<f64>(par, Default::default());
         let mut buf = MemBuffer::try_new(req).map_err(|_| FactorError::Internal)?;
         if par != Par::Seq {
-            touch_in_parallel(&mut values, 0.0);
-            touch_in_parallel(&mut buf, std::mem::MaybeUninit::new(0u8));
+            crate::timing::stage("numeric: touch pages", || {
+                touch_in_parallel(&mut values, 0.0);
+                touch_in_parallel(&mut buf, std::mem::MaybeUninit::new(0u8));
+            });
         }
         let a = SparseColMatRef::new(pattern(k), &scaled);
         let inner = &self.inner;

@@ -99,7 +99,12 @@ fn blanked(text: &str, spans: &[(usize, usize)]) -> String {
     for &(a, b) in spans {
         out.push_str(&text[at..a]);
         let inner = &text[a..b];
-        let breaks = inner.bytes().filter(|&c| c == b'\n').count();
+        // A list of 10⁶ rows is 200 MB of text: counted on all cores.
+        let breaks: usize = inner
+            .as_bytes()
+            .par_chunks(1 << 20)
+            .map(|c| c.iter().filter(|&&c| c == b'\n').count())
+            .sum();
         out.extend(std::iter::repeat_n('\n', breaks));
         let tail = inner.rfind('\n').map_or(inner, |p| &inner[p + 1..]);
         out.extend(std::iter::repeat_n(' ', tail.chars().count()));
@@ -247,18 +252,43 @@ fn read_list<T: Send>(
         .par_windows(2)
         .map(|w| read_piece(&b[w[0]..w[1]], row))
         .collect();
-    let mut all = Vec::new();
+    let mut parts = Vec::new();
     for (p, w) in pieces.into_iter().zip(cuts.windows(2)) {
         match p {
-            Piece::Through(v) => all.extend(v),
+            Piece::Through(v) => parts.push(v),
             Piece::Ended(v, at) => {
-                all.extend(v);
-                return Some((all, from + w[0] + at));
+                parts.push(v);
+                return Some((concat(parts), from + w[0] + at));
             }
             Piece::Failed => return None,
         }
     }
     None
+}
+
+/// The pieces' rows in order in one vector, moved on all cores: at 10⁶ DOF
+/// the member rows fill about 430 MB, and the first write to each of its
+/// pages costs more than the copy, so the pages are written in parallel
+/// rather than by one growing `extend`.
+fn concat<T: Send>(parts: Vec<Vec<T>>) -> Vec<T> {
+    let total = parts.iter().map(Vec::len).sum();
+    let mut all: Vec<T> = Vec::with_capacity(total);
+    let mut spare = &mut all.spare_capacity_mut()[..total];
+    let mut slots = Vec::with_capacity(parts.len());
+    for p in &parts {
+        let (slot, rest) = std::mem::take(&mut spare).split_at_mut(p.len());
+        slots.push(slot);
+        spare = rest;
+    }
+    slots.into_par_iter().zip(parts).for_each(|(slot, part)| {
+        for (s, v) in slot.iter_mut().zip(part) {
+            s.write(v);
+        }
+    });
+    // SAFETY: the slots cover the first `total` elements exactly once and
+    // each slot has as many elements as its part, every one written above.
+    unsafe { all.set_len(total) };
+    all
 }
 
 /// How one piece of a list read.
@@ -541,4 +571,24 @@ fn member(r: &mut Row) -> Option<MemberFile> {
         unbraced_in,
         unbraced_out,
     })
+}
+
+#[cfg(test)]
+mod tests {
+    use super::concat;
+
+    /// Against `Iterator::flatten`, with empty parts and owned values (a
+    /// slot written twice or not at all would show as a wrong string or a
+    /// double free under the test allocator).
+    #[test]
+    fn concat_keeps_order_and_every_value() {
+        let parts: Vec<Vec<String>> = [0usize, 3, 0, 1, 5, 0]
+            .iter()
+            .enumerate()
+            .map(|(p, &n)| (0..n).map(|i| format!("{p}.{i}")).collect())
+            .collect();
+        let expected: Vec<String> = parts.iter().flatten().cloned().collect();
+        assert_eq!(concat(parts), expected);
+        assert!(concat(Vec::<Vec<u8>>::new()).is_empty());
+    }
 }
