@@ -309,7 +309,7 @@ mod tests {
                 .iter()
                 .enumerate()
                 .map(|(i, &(start, end))| Member {
-                    id: format!("m{i}"),
+                    id: format!("m{i}").into(),
                     start,
                     end,
                     section: 0,

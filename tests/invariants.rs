@@ -182,7 +182,7 @@ fn solve(text: &str) -> (Model, Vec<HashMap<String, f64>>) {
                 .members
                 .iter()
                 .zip(&case.forces)
-                .map(|(m, f)| (m.id.clone(), *f))
+                .map(|(m, f)| (m.id.to_string(), *f))
                 .collect()
         })
         .collect();

@@ -42,7 +42,7 @@ pub fn influence(
         let i = m
             .members
             .iter()
-            .position(|x| &x.id == id)
+            .position(|x| x.id == id)
             .ok_or_else(|| loads_error(path)(LoadError::UnknownMember(id.clone())))?;
         if !chosen.contains(&i) {
             chosen.push(i);

@@ -165,7 +165,7 @@ pub fn envelopes_with(
             let per_member = (0..nm)
                 .map(|m| MemberEnvelope {
                     member: m,
-                    id: model.members[m].id.clone(),
+                    id: model.members[m].id.to_string(),
                     dead: dead_forces[m],
                     tension: tension[m].clone(),
                     compression: compression[m].clone(),

@@ -122,7 +122,7 @@ pub fn member_capacity(
         (Axis::In, slenderness_in)
     };
     let err = |source| RateError::Capacity {
-        member: mem.id.clone(),
+        member: mem.id.to_string(),
         source,
     };
     let check = capacity::column(curve, fy, mat.e, kl_r).map_err(err)?;

@@ -169,7 +169,7 @@ pub fn rate_term(
         for &i in &idx[..limit] {
             let r = &rating.ratings[i];
             t.row(vec![
-                model.members[r.member].id.clone(),
+                model.members[r.member].id.to_string(),
                 r.live_id.clone(),
                 sig(r.dead / s.force, 4),
                 sig(r.live / s.force, 4),

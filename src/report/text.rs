@@ -97,7 +97,7 @@ pub fn solve_term(
                 "compression"
             };
             t.row(vec![
-                mem.id.clone(),
+                mem.id.to_string(),
                 model.nodes[mem.start].id.clone(),
                 model.nodes[mem.end].id.clone(),
                 sig(model.length(m) / s.length, 5),

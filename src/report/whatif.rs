@@ -325,7 +325,7 @@ pub fn redundancy(
                     "redundant"
                 };
                 t.row(vec![
-                    model.members[l.member].id.clone(),
+                    model.members[l.member].id.to_string(),
                     sig(l.service_force / s.force, 4),
                     verdict.into(),
                     opt(l.max_utilization_after, 3),

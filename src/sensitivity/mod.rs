@@ -228,7 +228,7 @@ fn capacity_per_length(
     let lambda = cap.slenderness();
     let h = 1e-4 * lambda.max(1.0);
     let err = |source| SensitivityError::Capacity {
-        member: mem.id.clone(),
+        member: mem.id.to_string(),
         source,
     };
     let curve: &Curve = &rating.curve;

@@ -340,7 +340,7 @@ fn outcome(model: &Model, cases: &[CaseResult], r: &Rating, detail: bool) -> Out
                 .filter_map(|x| x.inventory)
                 .min_by(f64::total_cmp);
             members.push(MemberDetail {
-                member: mem.id.clone(),
+                member: mem.id.to_string(),
                 utilization: worst.map_or(0.0, |c| c.utilization),
                 case: worst.map_or(String::new(), |c| r.effects[c.effect].id.clone()),
                 rating_factor: rf,
@@ -349,10 +349,10 @@ fn outcome(model: &Model, cases: &[CaseResult], r: &Rating, detail: bool) -> Out
     }
     Outcome {
         max_utilization: ctrl.map(|c| c.utilization),
-        controlling_member: ctrl.map(|c| model.members[c.member].id.clone()),
+        controlling_member: ctrl.map(|c| model.members[c.member].id.to_string()),
         controlling_case: ctrl.map(|c| r.effects[c.effect].id.clone()),
         lowest_rating_factor: low.and_then(|l| l.inventory),
-        rating_member: low.map(|l| model.members[l.member].id.clone()),
+        rating_member: low.map(|l| model.members[l.member].id.to_string()),
         rating_case: low.map(|l| l.live_id.clone()),
         max_deflection: max_def,
         deflection_node: def_at.map(|(n, _)| model.nodes[n].id.clone()),

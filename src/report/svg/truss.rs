@@ -257,7 +257,7 @@ pub fn render(d: &Drawing) -> String {
                     2.5,
                     &format!(r#" class="member" data-member="{id}""#),
                 );
-                (mem.id.clone(), 2.5)
+                (mem.id.to_string(), 2.5)
             }
             Show::Forces => {
                 let f = effect.map_or(0.0, |e| e.forces[m]);
