@@ -19,9 +19,7 @@ pub(super) fn format(f: FormatArg) -> Format {
 
 /// Read and validate a model file.
 pub fn load(path: &Path) -> Result<Converted, Error> {
-    let (mut c, check) = load_deferred(path)?;
-    c.warnings.extend(check.run(&c.model));
-    Ok(c)
+    load_deferred(path).map(|(c, check)| check.apply(c))
 }
 
 /// [`load`] with the crossing-members check handed back, for a command that

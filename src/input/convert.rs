@@ -346,9 +346,7 @@ impl PlainRefs<'_, '_> {
 }
 
 pub fn convert(file: ModelFile, text: &str) -> Result<Converted, Diagnostics> {
-    let (mut c, check) = convert_deferred(file, text)?;
-    c.warnings.extend(check.run(&c.model));
-    Ok(c)
+    convert_deferred(file, text).map(|(c, check)| check.apply(c))
 }
 
 /// The crossing-members check of [`convert`], kept apart: it only warns,
@@ -360,6 +358,12 @@ pub struct CrossingCheck {
 }
 
 impl CrossingCheck {
+    /// `c` with this check's warnings added after its own.
+    pub fn apply(&self, mut c: Converted) -> Converted {
+        c.warnings.extend(self.run(&c.model));
+        c
+    }
+
     /// Warnings for members that cross without a shared node: the first
     /// few pairs by name, then a count of the rest.
     pub fn run(&self, model: &Model) -> Vec<Diagnostic> {

@@ -29,9 +29,7 @@ pub fn load_str(text: &str) -> Result<Converted, Diagnostics> {
 /// Parse and validate model text read from a file in folder `dir`, which
 /// a `vehicles_file` is relative to.
 pub fn load_str_in(text: &str, dir: Option<&std::path::Path>) -> Result<Converted, Diagnostics> {
-    let (mut c, check) = load_str_deferred(text, dir)?;
-    c.warnings.extend(check.run(&c.model));
-    Ok(c)
+    load_str_deferred(text, dir).map(|(c, check)| check.apply(c))
 }
 
 /// [`load_str_in`] with the crossing-members check handed back to run
