@@ -207,3 +207,44 @@ fn out_is_atomic() {
     assert!(std::fs::read_to_string(&target).unwrap().starts_with('{'));
     assert_eq!(std::fs::read_dir(&dir).unwrap().count(), 1);
 }
+
+/// The condition estimate's warning reaches every format: JSON's warnings
+/// (last, after the loader's and the layout warnings), the text report, and
+/// for CSV, which carries numbers only, stderr. Model: the 45° chord with an
+/// apex 0.1 mm off its midpoint of `tests/conditioning.rs` (κ ≳ 1/θ² ≈ 4e8
+/// by hand geometry, above the 1e8 warning limit).
+#[test]
+fn condition_warning_reaches_json_last_and_csv_stderr() {
+    let r = std::f64::consts::FRAC_1_SQRT_2;
+    let (bx, by) = (4.0 * r, 4.0 * r);
+    let (cx, cy) = (2.0 * r - 1e-4 * r, 2.0 * r + 1e-4 * r);
+    let text = triangle("4.0", "1.5")
+        .replace(
+            "(id: \"B\", x: 4.0, y: 0.0)",
+            &format!("(id: \"B\", x: {bx:?}, y: {by:?})"),
+        )
+        .replace(
+            "(id: \"C\", x: 2.0, y: 1.5)",
+            &format!("(id: \"C\", x: {cx:?}, y: {cy:?})"),
+        )
+        .replace("kind: Roller", "kind: Pin")
+        .replace("fy: 250.0)", "fy: 250.0, fu: 400.0)");
+    let path = temp_model("skew_apex.ron", &text);
+    let p = path.to_str().unwrap();
+    let (code, out, err) = run(&["solve", p, "--format", "json"]);
+    assert_eq!(code, 0, "{err}");
+    let v: serde_json::Value = serde_json::from_str(&out).unwrap();
+    let w = v["warnings"].as_array().unwrap();
+    let last = w.last().unwrap().as_str().unwrap();
+    assert!(last.contains("condition estimate"), "{w:?}");
+    assert!(v["cases"].as_array().is_some_and(|c| !c.is_empty()));
+    let (_, text_out, _) = run(&["solve", p]);
+    assert!(text_out.contains(last), "{text_out}");
+    let (code, csv, err) = run(&["solve", p, "--format", "csv"]);
+    assert_eq!(code, 0);
+    assert!(err.contains("condition estimate"), "{err}");
+    assert!(!csv.contains("condition estimate"));
+    let (code, _, err) = run(&["rate", p, "--format", "csv"]);
+    assert_eq!(code, 0, "{err}");
+    assert!(err.contains("condition estimate"), "{err}");
+}

@@ -87,6 +87,16 @@ fn free_in_background<T: Send + 'static>(big: T) {
     }
 }
 
+/// CSV carries numbers only: the model's and the analysis's warnings go to
+/// stderr instead, one line each, as `validate` prints them.
+fn warnings_to_stderr(path: &Path, model: &[input::Diagnostic], analysis: &[String]) {
+    let mut err = std::io::stderr();
+    let all = model.iter().map(|d| d.to_string());
+    for d in all.chain(analysis.iter().cloned()) {
+        let _ = writeln!(err, "panelpoint: warning: {}: {d}", path.display());
+    }
+}
+
 /// Run a command; `Ok` carries the exit status of a successful run.
 pub fn run(cli: Cli) -> Result<u8, Error> {
     match cli.command {
@@ -123,6 +133,9 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             })?;
             c.warnings.extend(crossing);
             let (m, warn) = (&c.model, &c.warnings);
+            if format(f) == Format::Csv {
+                warnings_to_stderr(&model, warn, &a.warnings);
+            }
             crate::timing::stage("output", || {
                 write(&out, |w| match format(f) {
                     Format::Text => report::text::solve_term(w, m, &a, warn, &term(&out)),
@@ -198,6 +211,9 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
                 source: e,
             })?;
             let warn = &c.warnings;
+            if format(f) == Format::Csv {
+                warnings_to_stderr(&model, warn, &a.warnings);
+            }
             write(&out, |w| match format(f) {
                 Format::Text => report::rate_text::rate_term(w, m, &a, &r, warn, all, &term(&out)),
                 Format::Json => report::rate_json::rate(w, m, &a, &r, warn),
