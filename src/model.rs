@@ -113,12 +113,13 @@ impl Restraint {
         }
     }
 
-    /// Unit vectors of the directions left free.
-    pub fn free_directions(self) -> Vec<[f64; 2]> {
+    /// The unit vector of the direction left free: none for a pin, one for
+    /// a roller (no allocation: it is asked once per support per variant).
+    pub fn free_direction(self) -> Option<[f64; 2]> {
         match self {
-            Restraint::Pin => vec![],
-            Restraint::Roller => vec![[1.0, 0.0]],
-            Restraint::InclinedRoller { angle } => vec![[angle.cos(), angle.sin()]],
+            Restraint::Pin => None,
+            Restraint::Roller => Some([1.0, 0.0]),
+            Restraint::InclinedRoller { angle } => Some([angle.cos(), angle.sin()]),
         }
     }
 

@@ -42,11 +42,14 @@ impl Dofs {
             if !connected[i] {
                 continue;
             }
-            let dirs = match support_of[i] {
-                Some(k) => model.supports[k as usize].restraint.free_directions(),
-                None => vec![[1.0, 0.0], [0.0, 1.0]],
+            let (dirs, count) = match support_of[i] {
+                Some(k) => match model.supports[k as usize].restraint.free_direction() {
+                    Some(d) => ([d, d], 1),
+                    None => ([[0.0; 2]; 2], 0),
+                },
+                None => ([[1.0, 0.0], [0.0, 1.0]], 2),
             };
-            for d in dirs {
+            for &d in &dirs[..count] {
                 direction.push(d);
                 node.push(i as u32);
             }

@@ -291,7 +291,7 @@ impl Prepared {
                 // Only the restrained directions carry a reaction: remove the
                 // free part, which is round-off already counted in `residual`.
                 let mut r = [-net[s.node][0], -net[s.node][1]];
-                for d in s.restraint.free_directions() {
+                if let Some(d) = s.restraint.free_direction() {
                     let along = r[0] * d[0] + r[1] * d[1];
                     r[0] -= along * d[0];
                     r[1] -= along * d[1];
