@@ -210,25 +210,12 @@ fn out_is_atomic() {
 
 /// The condition estimate's warning reaches every format: JSON's warnings
 /// (last, after the loader's and the layout warnings), the text report, and
-/// for CSV, which carries numbers only, stderr. Model: the 45° chord with an
-/// apex 0.1 mm off its midpoint of `tests/conditioning.rs` (κ ≳ 1/θ² ≈ 4e8
-/// by hand geometry, above the 1e8 warning limit).
+/// for CSV, which carries numbers only, stderr. Model: `skew_apex_triangle`
+/// (κ ≳ 1/θ² ≈ 4e8 by hand geometry, above the 1e8 warning limit).
 #[test]
 fn condition_warning_reaches_json_last_and_csv_stderr() {
-    let r = std::f64::consts::FRAC_1_SQRT_2;
-    let (bx, by) = (4.0 * r, 4.0 * r);
-    let (cx, cy) = (2.0 * r - 1e-4 * r, 2.0 * r + 1e-4 * r);
-    let text = triangle("4.0", "1.5")
-        .replace(
-            "(id: \"B\", x: 4.0, y: 0.0)",
-            &format!("(id: \"B\", x: {bx:?}, y: {by:?})"),
-        )
-        .replace(
-            "(id: \"C\", x: 2.0, y: 1.5)",
-            &format!("(id: \"C\", x: {cx:?}, y: {cy:?})"),
-        )
-        .replace("kind: Roller", "kind: Pin")
-        .replace("fy: 250.0)", "fy: 250.0, fu: 400.0)");
+    // `rate` needs the tensile strength too (a round value for mild steel).
+    let text = skew_apex_triangle().replace("fy: 250.0)", "fy: 250.0, fu: 400.0)");
     let path = temp_model("skew_apex.ron", &text);
     let p = path.to_str().unwrap();
     let (code, out, err) = run(&["solve", p, "--format", "json"]);

@@ -2,7 +2,7 @@
 //! hand geometry and a dense eigen-decomposition (nalgebra).
 
 mod common;
-use common::triangle;
+use common::{skew_apex_triangle, triangle};
 use panelpoint::analysis::analyse;
 use panelpoint::analysis::conditioning::{
     estimate, estimate_with, first_probe, lambda_max, CONDITION_WARNING,
@@ -126,26 +126,11 @@ fn first_step_solved_with_the_cases_gives_the_same_estimate() {
 
 #[test]
 fn near_mechanism_on_a_skew_line_has_a_large_condition() {
-    // A 4 m chord A-B at 45°, apex C 0.1 mm off its midpoint: θ = 5e-5 rad,
-    // so C's stiffness across the line is ~ sin²θ = 2.5e-9 of its stiffness
-    // along it (hand geometry). On a 45° line Jacobi scaling cannot separate
-    // the two (both diagonal entries are equal), so κ(scaled K) ≳ 1/θ² ≈ 4e8
-    // > 1e8, while the pivot ratio stays above the 1e-10 mechanism limit.
-    // (The same apex on a horizontal chord is a diagonal, well-scaled case:
-    // only the geometric near-mechanism check sees it.)
-    let r = std::f64::consts::FRAC_1_SQRT_2;
-    let (bx, by) = (4.0 * r, 4.0 * r);
-    let (cx, cy) = (2.0 * r - 1e-4 * r, 2.0 * r + 1e-4 * r);
-    let text = triangle("4.0", "1.5")
-        .replace(
-            "(id: \"B\", x: 4.0, y: 0.0)",
-            &format!("(id: \"B\", x: {bx:?}, y: {by:?})"),
-        )
-        .replace(
-            "(id: \"C\", x: 2.0, y: 1.5)",
-            &format!("(id: \"C\", x: {cx:?}, y: {cy:?})"),
-        )
-        .replace("kind: Roller", "kind: Pin");
+    // `skew_apex_triangle`: κ(scaled K) ≳ 1/θ² ≈ 4e8 > 1e8 by hand geometry,
+    // while the pivot ratio stays above the 1e-10 mechanism limit. (The same
+    // apex on a horizontal chord is a diagonal, well-scaled case: only the
+    // geometric near-mechanism check sees it.)
+    let text = skew_apex_triangle();
     let c = load_str(&text).unwrap();
     let p = Prepared::new(&c.model).unwrap();
     let est = estimate(&p).unwrap().condition;

@@ -44,7 +44,7 @@ impl Dofs {
             }
             let (dirs, count) = match support_of[i] {
                 Some(k) => match model.supports[k as usize].restraint.free_direction() {
-                    Some(d) => ([d, d], 1),
+                    Some(d) => ([d, [0.0; 2]], 1),
                     None => ([[0.0; 2]; 2], 0),
                 },
                 None => ([[1.0, 0.0], [0.0, 1.0]], 2),

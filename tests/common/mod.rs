@@ -188,3 +188,24 @@ pub fn triangle(x_b: &str, y_c: &str) -> String {
 )"#
     )
 }
+
+/// The triangle with chord A-B 4 m long at 45° and apex C 0.1 mm off its
+/// midpoint, both supports pinned: θ = 5e-5 rad, so C's stiffness across the
+/// line is ~ sin²θ = 2.5e-9 of its stiffness along it (hand geometry), and on
+/// a 45° line Jacobi scaling cannot separate the two, so κ(scaled K) ≳ 1/θ²
+/// ≈ 4e8 while the pivot ratio stays above the 1e-10 mechanism limit.
+pub fn skew_apex_triangle() -> String {
+    let r = std::f64::consts::FRAC_1_SQRT_2;
+    let (bx, by) = (4.0 * r, 4.0 * r);
+    let (cx, cy) = (2.0 * r - 1e-4 * r, 2.0 * r + 1e-4 * r);
+    triangle("4.0", "1.5")
+        .replace(
+            "(id: \"B\", x: 4.0, y: 0.0)",
+            &format!("(id: \"B\", x: {bx:?}, y: {by:?})"),
+        )
+        .replace(
+            "(id: \"C\", x: 2.0, y: 1.5)",
+            &format!("(id: \"C\", x: {cx:?}, y: {cy:?})"),
+        )
+        .replace("kind: Roller", "kind: Pin")
+}
