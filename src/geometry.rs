@@ -295,6 +295,7 @@ mod tests {
                 fu: None,
                 density: None,
                 alpha: None,
+                year: None,
             }],
             sections: vec![Section {
                 id: "s".into(),
@@ -303,6 +304,9 @@ mod tests {
                 i_out: 1.0,
                 net_area: 1.0,
                 built_up: None,
+                shear_lag: 1.0,
+                shear_lag_given: false,
+                holes_punched: None,
             }],
             nodes,
             members: members

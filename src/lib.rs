@@ -15,6 +15,7 @@ pub mod generate;
 pub mod geometry;
 pub mod input;
 pub mod loads;
+pub mod method;
 pub mod model;
 pub mod rate;
 pub mod report;

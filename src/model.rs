@@ -16,6 +16,9 @@ pub struct Material {
     pub density: Option<f64>,
     /// Thermal expansion, per degree.
     pub alpha: Option<f64>,
+    /// Year of construction when fy/fu were taken from the MBE table of
+    /// steel of unknown grade (MBE Table 6A.6.2.1-1), for the report.
+    pub year: Option<i32>,
 }
 
 #[derive(Clone, Debug, PartialEq)]
@@ -31,6 +34,15 @@ pub struct Section {
     pub net_area: f64,
     /// The parts and their properties, for a built-up section.
     pub built_up: Option<BuiltUp>,
+    /// Shear-lag factor U of the end connections (AASHTO LRFD 6.8.2.2,
+    /// AISC 360-16 §D3): 1.0 unless the model gives it.
+    pub shear_lag: f64,
+    /// Whether the model gave `shear_lag` (the report notes the default).
+    pub shear_lag_given: bool,
+    /// Holes punched full size (Rp = 0.90, AASHTO LRFD 6.8.2.1) or drilled
+    /// or reamed (Rp = 1.0); None when the model does not say, taken as
+    /// punched (the conservative value) and noted in the report.
+    pub holes_punched: Option<bool>,
 }
 
 /// A section computed from its parts (all in SI).
@@ -166,7 +178,10 @@ pub struct InitialElongation {
 /// What a load case is, for rating.
 #[derive(Clone, Copy, Debug, PartialEq, Eq, Default)]
 pub enum CaseKind {
+    /// Dead load of components and attachments (DC).
     Dead,
+    /// Wearing surfaces and utilities (DW).
+    Wearing,
     Live,
     #[default]
     Other,
@@ -178,6 +193,8 @@ pub struct LoadCase {
     pub kind: CaseKind,
     /// Dynamic load allowance (fraction) of a live case.
     pub impact: f64,
+    /// A live case rated at the legal level (and posted).
+    pub legal: bool,
     pub nodal: Vec<NodalLoad>,
     pub settlements: Vec<Settlement>,
     pub elongations: Vec<InitialElongation>,
@@ -211,62 +228,35 @@ pub struct Combination {
     pub moving: Vec<(usize, f64)>,
 }
 
-/// Load factors of a rating level.
-#[derive(Clone, Copy, Debug, PartialEq)]
-pub struct Level {
-    pub gamma_dead: f64,
-    pub gamma_live: f64,
-}
-
-/// Model-wide capacity and rating settings.
-#[derive(Clone, Debug, PartialEq)]
+/// Model-wide rating settings: the method's name and what the model sets
+/// of its factors (`crate::method` supplies every default).
+#[derive(Clone, Debug, PartialEq, Default)]
 pub struct RatingSettings {
-    /// Column curve name, if the model sets one.
-    pub curve: Option<String>,
-    pub condition_factor: f64,
-    pub system_factor: f64,
-    /// Curve parameters set in the model (they override the curve's defaults).
-    pub gamma_m1: Option<f64>,
-    pub safety_factor: Option<f64>,
-    pub csa_n: Option<f64>,
-    pub inventory: Level,
-    pub operating: Level,
-}
-
-impl Default for RatingSettings {
-    /// Inventory γD = 1.25, γL = 1.75; operating γD = 1.25, γL = 1.35
-    /// (AASHTO Manual for Bridge Evaluation, Table 6A.4.2.2-1, from memory).
-    fn default() -> Self {
-        RatingSettings {
-            curve: None,
-            condition_factor: 1.0,
-            system_factor: 1.0,
-            gamma_m1: None,
-            safety_factor: None,
-            csa_n: None,
-            inventory: Level {
-                gamma_dead: 1.25,
-                gamma_live: 1.75,
-            },
-            operating: Level {
-                gamma_dead: 1.25,
-                gamma_live: 1.35,
-            },
-        }
-    }
+    /// Rating method name, if the model sets one.
+    pub method: Option<String>,
+    pub settings: crate::method::Settings,
 }
 
 impl Model {
     /// The load cases summed as the dead load: those listed in `dead_cases`
-    /// of the model file, or else every case of kind `Dead`.
+    /// of the model file, or else every case of kind `Dead` or `Wearing`.
     pub fn dead_cases(&self) -> Vec<usize> {
         if self.live.dead_cases.is_empty() {
             (0..self.cases.len())
-                .filter(|&c| self.cases[c].kind == CaseKind::Dead)
+                .filter(|&c| matches!(self.cases[c].kind, CaseKind::Dead | CaseKind::Wearing))
                 .collect()
         } else {
             self.live.dead_cases.clone()
         }
+    }
+
+    /// The dead-load cases split into DC (components) and DW (wearing
+    /// surfaces and utilities): a case of kind `Wearing` is DW, any other
+    /// dead case DC.
+    pub fn dead_cases_split(&self) -> (Vec<usize>, Vec<usize>) {
+        self.dead_cases()
+            .into_iter()
+            .partition(|&c| self.cases[c].kind != CaseKind::Wearing)
     }
 
     /// Length of member `m`, m.

@@ -124,8 +124,8 @@ fn forces_drawing_parses_and_shows_tension_and_compression_where_statics_puts_th
 #[test]
 fn utilization_drawing_uses_the_ramp_colour_of_the_rated_utilization() {
     let (m, a) = four_panel();
-    let curve = panelpoint::rate::choose_curve(&m, None).unwrap();
-    let r = panelpoint::rate::rate(&m, &a, curve).unwrap();
+    let method = panelpoint::rate::choose_method(&m, None).unwrap();
+    let r = panelpoint::rate::rate(&m, &a, method).unwrap();
     let mut d = Drawing::new(&m, Show::Utilization);
     d.rating = Some(&r);
     let text = svg::draw(&d);
@@ -165,7 +165,7 @@ fn failing_member_leaves_the_ramp_for_the_failure_colour() {
     );
     let (m, a) = solve(&text.replace("area: 10.0", "area: 1.0"));
     let r =
-        panelpoint::rate::rate(&m, &a, panelpoint::rate::choose_curve(&m, None).unwrap()).unwrap();
+        panelpoint::rate::rate(&m, &a, panelpoint::rate::choose_method(&m, None).unwrap()).unwrap();
     let mut d = Drawing::new(&m, Show::Utilization);
     d.rating = Some(&r);
     let svg_text = svg::draw(&d);
@@ -317,11 +317,12 @@ fn report_is_well_formed_self_contained_and_complete() {
         );
     }
     for s in [
-        "Lowest rating factor",
+        "Controlling, inventory",
+        "MBE Eq. 6A.4.2.1-1",
         "Controlling",
         "@media print",
         "break-before: page",
-        "AISC 360-16",
+        "AASHTO LRFD 6.9.4.1.1",
         "qualified engineer",
         "bottom-chord",
         "millrace",

@@ -1,7 +1,7 @@
-//! `panelpoint rate` against an independent computation of every curve's
+//! `panelpoint rate` against an independent computation of every method's
 //! slenderness, Euler stress and critical stress (the standards' equations
-//! written out again here), the controlling member, and a rating factor
-//! worked by hand.
+//! written out again here), the controlling member, and rating factors
+//! worked by hand for each rating method (LRFR, LFR, ASR).
 
 mod common;
 use common::*;
@@ -21,7 +21,7 @@ fn critical(curve: &str, fy: f64, e: f64, klr: f64) -> f64 {
     };
     match curve {
         "euler" => fe.min(fy),
-        "johnson" | "bridge-asd" => {
+        "johnson" | "lfr" | "asr" => {
             let cc = (2.0 * PI * PI * e / fy).sqrt();
             if klr <= cc {
                 fy - (fy / (2.0 * PI)).powi(2) * klr * klr / e
@@ -30,7 +30,7 @@ fn critical(curve: &str, fy: f64, e: f64, klr: f64) -> f64 {
             }
         }
         // AISC 360-16 Eqs. E3-2 and E3-3.
-        "aisc360" | "aisc360-asd" => {
+        "aisc360" | "aisc360-asd" | "lrfr" => {
             if fy / fe <= 2.25 {
                 0.658f64.powf(fy / fe) * fy
             } else {
@@ -54,7 +54,7 @@ fn rate_json(text: &str, curve: &str) -> serde_json::Value {
     let (code, out, err) = run(&[
         "rate",
         path.to_str().unwrap(),
-        "--curve",
+        "--method",
         curve,
         "--format",
         "json",
@@ -77,7 +77,9 @@ fn every_curve_matches_its_equations() {
         "en1993-d",
         "csa-s16",
         "csa-s16-2.24",
-        "bridge-asd",
+        "lrfr",
+        "lfr",
+        "asr",
     ];
     // Section properties of the example (in, in², in⁴) and E = 29,000 ksi, Fy = 33 ksi.
     let props = |id: &str| match id {
@@ -87,7 +89,7 @@ fn every_curve_matches_its_equations() {
     let m = load(FOUR_PANEL);
     for curve in curves {
         let v = rate_json(FOUR_PANEL, curve);
-        assert_eq!(v["curve"], curve);
+        assert_eq!(v["method"], curve);
         let checks = v["checks"].as_array().unwrap();
         assert_eq!(checks.len(), 13 * 2);
         let mut compressed = 0;
@@ -125,7 +127,8 @@ fn every_curve_matches_its_equations() {
             }
         }
         assert_eq!(compressed, 8, "end posts and top chords in both cases");
-        // The controlling check is the one with the highest utilization.
+        // The controlling check is the one with the highest utilization
+        // (there are no combinations: every row is counted or none is).
         let best = checks
             .iter()
             .max_by(|x, y| {
@@ -148,10 +151,17 @@ fn every_curve_matches_its_equations() {
 #[test]
 fn default_curve_figures() {
     let path = temp_model("rate-default.ron", FOUR_PANEL);
-    let (code, out, _) = run(&["rate", path.to_str().unwrap(), "--format", "json"]);
+    let (code, out, _) = run(&[
+        "rate",
+        path.to_str().unwrap(),
+        "--method",
+        "aisc360",
+        "--format",
+        "json",
+    ]);
     assert_eq!(code, 0);
     let v: serde_json::Value = serde_json::from_str(&out).unwrap();
-    assert_eq!(v["curve"], "aisc360");
+    assert_eq!(v["method"], "aisc360");
     let c = v["checks"]
         .as_array()
         .unwrap()
@@ -179,8 +189,10 @@ fn default_curve_figures() {
 
 /// A rating factor worked by hand: dead case `kind: Dead`, crowd `kind:
 /// Live` with 10 % impact. End post L0-U1: D = −13.5·l/16, L = −18.75·l/16
-/// (method of joints, l = √(18² + 16²) ft); φPn = 0.9·Fcr·14.7 with Fcr by
-/// AISC E3-2; RF = (φPn − 1.25·|D|) / (1.75·|L|·1.1) (bridge-evaluation LRFR form).
+/// (method of joints, l = √(18² + 16²) ft); LRFR: φc·Pn = 0.95·Fcr·14.7 with
+/// Fcr by AASHTO LRFD Eq. 6.9.4.1.1-1 (= AISC E3-2), φc = 0.95 (LRFD
+/// 6.5.4.2); RF = (φc·Pn − 1.25·|D|) / (γL·|L|·1.1), γL = 1.75 inventory,
+/// 1.35 operating (MBE Eq. 6A.4.2.1-1, Table 6A.4.2.2-1; from memory).
 #[test]
 fn rating_factor_by_hand() {
     let text = FOUR_PANEL
@@ -189,31 +201,46 @@ fn rating_factor_by_hand() {
             "(id: \"crowd\", loads:",
             "(id: \"crowd\", kind: Live, impact: 0.10, loads:",
         );
-    let v = rate_json(&text, "aisc360");
+    let v = rate_json(&text, "lrfr");
     let l = (18.0f64 * 18.0 + 16.0 * 16.0).sqrt();
     let (d, live) = (13.5 * l / 16.0, 18.75 * l / 16.0 * 1.1);
     let klr = l * 12.0 / (310.0f64 / 14.7).sqrt();
     let fe = PI * PI * 29000.0 / (klr * klr);
-    let phi_pn = 0.9 * 0.658f64.powf(33.0 / fe) * 33.0 * 14.7;
+    let phi_pn = 0.95 * 0.658f64.powf(33.0 / fe) * 33.0 * 14.7;
     let rf_inv = (phi_pn - 1.25 * d) / (1.75 * live);
     let rf_op = (phi_pn - 1.25 * d) / (1.35 * live);
-    let r = v["ratings"]
-        .as_array()
-        .unwrap()
-        .iter()
-        .find(|r| r["member"] == "L0-U1")
-        .unwrap();
-    assert!((r["inventory"].as_f64().unwrap() - rf_inv).abs() < 1e-9 * rf_inv);
-    assert!((r["operating"].as_f64().unwrap() - rf_op).abs() < 1e-9 * rf_op);
-    // Every member of this truss has a rating; the lowest is reported with its member and case.
+    let row = |level: &str| {
+        v["ratings"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .find(|r| r["member"] == "L0-U1" && r["level"] == level)
+            .unwrap()
+            .clone()
+    };
+    let inv = row("inventory");
+    assert!((inv["rf"].as_f64().unwrap() - rf_inv).abs() < 1e-9 * rf_inv);
+    assert!((row("operating")["rf"].as_f64().unwrap() - rf_op).abs() < 1e-9 * rf_op);
+    // Every factor is reported beside the factor it produced.
+    assert_eq!(inv["gamma_dead"], 1.25);
+    assert_eq!(inv["gamma_live"], 1.75);
+    assert_eq!(inv["phi"], 0.95);
+    assert_eq!(inv["phi_c"], 1.0);
+    assert_eq!(inv["phi_s"], 1.0);
+    assert!((inv["capacity"].as_f64().unwrap() - phi_pn).abs() < 1e-9 * phi_pn);
+    assert!((inv["dead"].as_f64().unwrap() + d).abs() < 1e-9);
+    assert!((inv["live_with_impact"].as_f64().unwrap() + live).abs() < 1e-9);
+    // The lowest inventory factor is reported with its member and case.
     let lowest = &v["lowest_rating"];
     let min = v["ratings"]
         .as_array()
         .unwrap()
         .iter()
-        .filter_map(|r| r["inventory"].as_f64())
+        .filter(|r| r["level"] == "inventory")
+        .filter_map(|r| r["rf"].as_f64())
         .fold(f64::INFINITY, f64::min);
-    assert_eq!(lowest["inventory"].as_f64().unwrap(), min);
+    assert_eq!(lowest["rf"].as_f64().unwrap(), min);
+    assert_eq!(lowest["level"], "inventory");
     assert_eq!(lowest["live_case"], "crowd");
     // The crowd rows of the check table carry the inventory factor.
     let row = v["checks"]
@@ -223,6 +250,8 @@ fn rating_factor_by_hand() {
         .find(|c| c["member"] == "L0-U1" && c["case"] == "crowd")
         .unwrap();
     assert!((row["rating_factor"].as_f64().unwrap() - rf_inv).abs() < 1e-9 * rf_inv);
+    // A single live case is an unfactored effect: shown, not counted, under LRFR.
+    assert_eq!(row["service"], true);
 }
 
 /// Combinations: 1.25·dead + 1.75·(crowd + IM) is the linear sum of the
@@ -233,13 +262,13 @@ fn combinations_are_linear() {
         .replace("(id: \"crowd\", loads:", "(id: \"crowd\", kind: Live, impact: 0.2, loads:")
         .replace(
             "    ],\n)",
-            "    ],\n    combinations: [(id: \"strength\", factors: [(\"dead\", 1.25), (\"crowd\", 1.75)])],\n    rating: (curve: \"en1993-b\"),\n)",
+            "    ],\n    combinations: [(id: \"strength\", factors: [(\"dead\", 1.25), (\"crowd\", 1.75)])],\n    rating: (method: \"en1993-b\"),\n)",
         );
     let path = temp_model("combo.ron", &text);
     let (code, out, err) = run(&["rate", path.to_str().unwrap(), "--format", "json"]);
     assert_eq!(code, 0, "{err}");
     let v: serde_json::Value = serde_json::from_str(&out).unwrap();
-    assert_eq!(v["curve"], "en1993-b", "model-wide default curve");
+    assert_eq!(v["method"], "en1993-b", "model-wide method");
     let force = |case: &str| {
         v["checks"]
             .as_array()
@@ -262,9 +291,9 @@ fn rate_errors() {
     assert_eq!(code, 2);
     assert!(err.contains("material \"steel\" has no fy"), "{err}");
     let path = temp_model("curve.ron", FOUR_PANEL);
-    let (code, _, err) = run(&["rate", path.to_str().unwrap(), "--curve", "perry"]);
+    let (code, _, err) = run(&["rate", path.to_str().unwrap(), "--method", "perry"]);
     assert_eq!(code, 2);
-    assert!(err.contains("\"perry\" is not a column curve"), "{err}");
+    assert!(err.contains("\"perry\" is not a rating method"), "{err}");
     let bad_combo = FOUR_PANEL.replace(
         "    ],\n)",
         "    ],\n    combinations: [(id: \"c\", factors: [(\"wind\", 1.0)])],\n)",
@@ -278,14 +307,18 @@ fn rate_errors() {
     );
 }
 
-/// Model-wide curve parameters: γM1 divides the EN 1993 resistance
-/// (EN 1993-1-1 Eq. 6.47, Nb,Rd = χ·A·fy/γM1), and the net-to-gross ratio
-/// feeds the fracture check (AISC 360-16 Eq. D2-2, φt·Fu·Ae with φt = 0.75).
+/// Model-wide method parameters: γM1 divides the EN 1993 resistance
+/// (EN 1993-1-1 Eq. 6.47, Nb,Rd = χ·A·fy/γM1; the default 1.10 is EN 1993-2
+/// §6.1's recommendation for bridges, from memory), and the net-to-gross
+/// ratio feeds the fracture check (AISC 360-16 Eq. D2-2, φt·Fu·Ae, φt = 0.75).
 #[test]
 fn model_parameters_and_tension() {
-    let base = rate_json(FOUR_PANEL, "en1993-c");
-    let with = FOUR_PANEL.replace("    ],\n)", "    ],\n    rating: (gamma_m1: 1.1),\n)");
-    let factored = rate_json(&with, "en1993-c");
+    let base = rate_json(
+        &FOUR_PANEL.replace("    ],\n)", "    ],\n    rating: (gamma_m1: 1.0),\n)"),
+        "en1993-c",
+    );
+    let factored = rate_json(FOUR_PANEL, "en1993-c");
+
     let cap = |v: &serde_json::Value| {
         v["checks"]
             .as_array()
@@ -325,7 +358,8 @@ fn model_parameters_and_tension() {
 /// along the bottom chord of the example. The end post L0-U1 is worst with
 /// the axle at L1: R0 = 3/4 of the axle (lever rule), so L = −0.75·11·l/16
 /// kip (method of joints at L0, l = √(18² + 16²) ft); D = −13.5·l/16 from the
-/// dead case; RF = (φPn − 1.25·|D|)/(1.75·|L|) with φPn by AISC 360-16 E3-2.
+/// dead case; LRFR inventory RF = (φPn − 1.25·|D|)/(1.75·|L|) with Pn by
+/// AASHTO LRFD Eq. 6.9.4.1.1-1 (the AISC E3-2 curve) and φc = 0.95.
 #[test]
 fn moving_load_rating_by_hand() {
     let text = FOUR_PANEL
@@ -334,28 +368,25 @@ fn moving_load_rating_by_hand() {
             "    ],\n)",
             "    ],\n    deck: [\"L0\", \"L1\", \"L2\", \"L3\", \"L4\"],\n    vehicles: [(id: \"axle\", axles: [(load: \"10 kip\")])],\n    moving_loads: [(id: \"roll\", vehicle: \"axle\", step: \"0.5 ft\", impact: 0.10)],\n)",
         );
-    let v = rate_json(&text, "aisc360");
+    let v = rate_json(&text, "lrfr");
     let l = (18.0f64 * 18.0 + 16.0 * 16.0).sqrt();
     let live = 0.75 * 11.0 * l / 16.0;
     let d = 13.5 * l / 16.0;
     let klr = l * 12.0 / (310.0f64 / 14.7).sqrt();
     let fe = PI * PI * 29000.0 / (klr * klr);
-    let phi_pn = 0.9 * 0.658f64.powf(33.0 / fe) * 33.0 * 14.7;
+    let phi_pn = 0.95 * 0.658f64.powf(33.0 / fe) * 33.0 * 14.7;
     let rf = (phi_pn - 1.25 * d) / (1.75 * live);
     let r = v["ratings"]
         .as_array()
         .unwrap()
         .iter()
-        .find(|r| r["member"] == "L0-U1" && r["live_case"] == "roll")
+        .find(|r| r["member"] == "L0-U1" && r["live_case"] == "roll" && r["level"] == "inventory")
         .unwrap();
     assert!(
         (r["live_with_impact"].as_f64().unwrap() + live).abs() < 1e-9,
         "{r}"
     );
-    assert!(
-        (r["inventory"].as_f64().unwrap() - rf).abs() < 1e-9 * rf,
-        "{r}"
-    );
+    assert!((r["rf"].as_f64().unwrap() - rf).abs() < 1e-9 * rf, "{r}");
     assert!(r["position"].as_str().unwrap().contains("18.00 ft"), "{r}");
     // The check row holds dead + live: −(13.5 + 8.25)·l/16.
     let c = v["checks"]

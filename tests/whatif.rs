@@ -185,7 +185,7 @@ fn new_rejects_bad_input_with_exit_2() {
 
 fn opts(m: &Model) -> RunOptions {
     RunOptions {
-        curve: rate::choose_curve(m, None).unwrap(),
+        method: rate::choose_method(m, None).unwrap(),
         jobs: Some(2),
         detail: true,
     }
@@ -225,7 +225,7 @@ fn load_scale_sweep_equals_separate_scaled_runs() {
             }
         }
         let a = analysis::analyse(&m).unwrap();
-        let rt = rate::rate(&m, &a, rate::choose_curve(&m, None).unwrap()).unwrap();
+        let rt = rate::rate(&m, &a, rate::choose_method(&m, None).unwrap()).unwrap();
         let c = &rt.checks[rt.controlling.unwrap()];
         assert_close!(o.max_utilization.unwrap(), c.utilization, 1e-9);
         let crowd = a.cases.iter().find(|c| c.id == "crowd").unwrap();
@@ -263,7 +263,7 @@ fn stiffness_and_topology_variants_match_fresh_analyses() {
         match analysis::analyse(&m) {
             // A fresh factorization agrees with the reused symbolic analysis (dense-free cross-check).
             Ok(a) => {
-                let rt = rate::rate(&m, &a, rate::choose_curve(&m, None).unwrap()).unwrap();
+                let rt = rate::rate(&m, &a, rate::choose_method(&m, None).unwrap()).unwrap();
                 let u = rt.checks[rt.controlling.unwrap()].utilization;
                 assert_close!(
                     r.outcome.as_ref().unwrap().max_utilization.unwrap(),
@@ -414,7 +414,7 @@ fn pratt(n: usize) -> panelpoint::generate::TrussLayout {
 /// The governing utilization of a fixed check and a fixed node's deflection.
 fn objectives(m: &Model, member: usize, effect: usize, node: usize, case: usize) -> (f64, f64) {
     let a = analysis::analyse(m).unwrap();
-    let r = rate::rate(m, &a, rate::choose_curve(m, None).unwrap()).unwrap();
+    let r = rate::rate(m, &a, rate::choose_method(m, None).unwrap()).unwrap();
     let c = r
         .checks
         .iter()
@@ -426,7 +426,7 @@ fn objectives(m: &Model, member: usize, effect: usize, node: usize, case: usize)
 
 fn check_against_finite_differences(text: &str) {
     let (m, a) = solve(text);
-    let r = rate::rate(&m, &a, rate::choose_curve(&m, None).unwrap()).unwrap();
+    let r = rate::rate(&m, &a, rate::choose_method(&m, None).unwrap()).unwrap();
     let s = panelpoint::sensitivity::sensitivity(&m, &a, &r, None).unwrap();
     assert!(!s.coordinates.is_empty());
     let h = 1e-4; // m
@@ -476,7 +476,7 @@ fn sensitivities_match_central_finite_differences_generated() {
 fn sensitivity_of_a_compression_member_includes_slenderness() {
     // Make a top-chord check govern: only dead load on a slender chord.
     let (m, a) = solve(FOUR_PANEL);
-    let r = rate::rate(&m, &a, rate::choose_curve(&m, None).unwrap()).unwrap();
+    let r = rate::rate(&m, &a, rate::choose_method(&m, None).unwrap()).unwrap();
     // Worst compression check of case "dead".
     let worst = r
         .checks
@@ -514,7 +514,7 @@ fn sensitivity_of_a_buckling_check_matches_finite_differences() {
     let text = layout_to_ron(&pratt(6)).replace("i_in: 310", "i_in: 60");
     assert!(text.contains("i_in: 60"));
     let (m, a) = solve(&text);
-    let r = rate::rate(&m, &a, rate::choose_curve(&m, None).unwrap()).unwrap();
+    let r = rate::rate(&m, &a, rate::choose_method(&m, None).unwrap()).unwrap();
     let c = &r.checks[r.controlling.unwrap()];
     assert!(c.force < 0.0, "a compression check must govern");
     check_against_finite_differences(&text);

@@ -53,10 +53,10 @@ pub enum Command {
     /// case and combination, and compute rating factors from the dead and live cases.
     Rate {
         model: PathBuf,
-        /// Column curve: euler, johnson, aisc360 (default), aisc360-asd, en1993-a0, en1993-a,
-        /// en1993-b, en1993-c, en1993-d, csa-s16, csa-s16-2.24, bridge-asd.
+        /// Rating method: lrfr (default), lfr, asr, aisc360, aisc360-asd, en1993-a0,
+        /// en1993-a, en1993-b, en1993-c, en1993-d, csa-s16, csa-s16-2.24, euler, johnson.
         #[arg(long)]
-        curve: Option<String>,
+        method: Option<String>,
         #[arg(long, value_enum, default_value_t = FormatArg::Text)]
         format: FormatArg,
         #[arg(long)]
@@ -141,8 +141,9 @@ pub enum Command {
         /// Run only variants whose index % N == I-1.
         #[arg(long)]
         shard: Option<String>,
+        /// Rating method (as for `rate`).
         #[arg(long)]
-        curve: Option<String>,
+        method: Option<String>,
         #[arg(long, value_enum, default_value_t = FormatArg::Text)]
         format: FormatArg,
         /// Write rows here as they finish (kept as OUT.partial if interrupted).
@@ -155,8 +156,9 @@ pub enum Command {
     /// Remove each member in turn: mechanism (non-redundant) or the worst utilization after the loss.
     Redundancy {
         model: PathBuf,
+        /// Rating method (as for `rate`).
         #[arg(long)]
-        curve: Option<String>,
+        method: Option<String>,
         #[arg(long, value_enum, default_value_t = FormatArg::Text)]
         format: FormatArg,
         #[arg(long)]
@@ -168,8 +170,9 @@ pub enum Command {
         /// Differentiate the worst check and deflection of this load case.
         #[arg(long)]
         case: Option<String>,
+        /// Rating method (as for `rate`).
         #[arg(long)]
-        curve: Option<String>,
+        method: Option<String>,
         #[arg(long, value_enum, default_value_t = FormatArg::Text)]
         format: FormatArg,
         #[arg(long)]
@@ -187,9 +190,9 @@ pub enum Command {
         case: Option<String>,
         #[arg(long, value_enum, default_value_t = ShowArg::Forces)]
         show: ShowArg,
-        /// Column curve for --show utilization (as for `rate`).
+        /// Rating method for --show utilization (as for `rate`).
         #[arg(long)]
-        curve: Option<String>,
+        method: Option<String>,
     },
     /// Write one self-contained HTML report: summary, model tables, results
     /// per case, capacity checks with clauses and formulas, drawings, cautions.
@@ -198,9 +201,9 @@ pub enum Command {
         /// Write to this file (atomically) instead of standard output.
         #[arg(short = 'o', long = "out")]
         out: Option<PathBuf>,
-        /// Column curve (as for `rate`).
+        /// Rating method (as for `rate`).
         #[arg(long)]
-        curve: Option<String>,
+        method: Option<String>,
     },
 }
 

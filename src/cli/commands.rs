@@ -194,14 +194,14 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
         }
         Command::Rate {
             model,
-            curve,
+            method,
             format: f,
             out,
             all,
         } => {
             let c = load(&model)?;
             let m = &c.model;
-            let chosen = rate::choose_curve(m, curve.as_deref()).map_err(Error::Usage)?;
+            let chosen = rate::choose_method(m, method.as_deref()).map_err(Error::Usage)?;
             let a = analysis::analyse(m).map_err(|source| Error::Analysis {
                 path: model.clone(),
                 source,
@@ -259,7 +259,7 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             sweep,
             jobs,
             shard,
-            curve,
+            method,
             format: f,
             out,
             detail,
@@ -268,30 +268,32 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             sweep,
             jobs,
             shard,
-            curve,
+            method,
             format: format(f),
             out,
             detail,
         }),
         Command::Redundancy {
             model,
-            curve,
+            method,
             format: f,
             out,
-        } => super::whatif::redundancy(&model, curve.as_deref(), format(f), &out),
+        } => super::whatif::redundancy(&model, method.as_deref(), format(f), &out),
         Command::Sensitivity {
             model,
             case,
-            curve,
+            method,
             format: f,
             out,
-        } => super::whatif::sensitivity(&model, case.as_deref(), curve.as_deref(), format(f), &out),
+        } => {
+            super::whatif::sensitivity(&model, case.as_deref(), method.as_deref(), format(f), &out)
+        }
         Command::Draw {
             model,
             out,
             case,
             show,
-            curve,
+            method,
         } => {
             let c = load(&model)?;
             let m = &c.model;
@@ -321,7 +323,7 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
                 ShowArg::Model => report::svg::Show::Model,
             };
             let rating = if show == report::svg::Show::Utilization {
-                let chosen = rate::choose_curve(m, curve.as_deref()).map_err(Error::Usage)?;
+                let chosen = rate::choose_method(m, method.as_deref()).map_err(Error::Usage)?;
                 Some(rate::rate(m, &a, chosen).map_err(|e| Error::Rate {
                     path: model.clone(),
                     source: e,
@@ -341,10 +343,10 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             write(&out, |w| w.write_all(svg.as_bytes()))?;
             Ok(0)
         }
-        Command::Report { model, out, curve } => {
+        Command::Report { model, out, method } => {
             let c = load(&model)?;
             let m = &c.model;
-            let chosen = rate::choose_curve(m, curve.as_deref()).map_err(Error::Usage)?;
+            let chosen = rate::choose_method(m, method.as_deref()).map_err(Error::Usage)?;
             let a = analysis::analyse(m).map_err(|source| Error::Analysis {
                 path: model.clone(),
                 source,

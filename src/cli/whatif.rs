@@ -74,7 +74,7 @@ pub struct SweepArgs {
     pub sweep: PathBuf,
     pub jobs: Option<usize>,
     pub shard: Option<String>,
-    pub curve: Option<String>,
+    pub method: Option<String>,
     pub format: Format,
     pub out: Option<PathBuf>,
     pub detail: bool,
@@ -134,7 +134,7 @@ impl Sink {
 pub fn sweep(a: SweepArgs) -> Result<u8, Error> {
     let c = load(&a.model)?;
     let model = &c.model;
-    let curve = rate::choose_curve(model, a.curve.as_deref()).map_err(Error::Usage)?;
+    let method = rate::choose_method(model, a.method.as_deref()).map_err(Error::Usage)?;
     let text = fs::read_to_string(&a.sweep).map_err(|source| Error::Read {
         path: a.sweep.clone(),
         source,
@@ -154,7 +154,7 @@ pub fn sweep(a: SweepArgs) -> Result<u8, Error> {
     }
     let indices = sweep::shard_indices(sw.variants.len(), shard);
     let opts = RunOptions {
-        curve,
+        method,
         jobs: a.jobs,
         detail: a.detail,
     };
@@ -216,11 +216,11 @@ pub fn sweep(a: SweepArgs) -> Result<u8, Error> {
 
 fn analysed(
     path: &Path,
-    curve: Option<&str>,
+    method: Option<&str>,
 ) -> Result<(input::Converted, analysis::Analysis, rate::Rating), Error> {
     let c = load(path)?;
     let m = &c.model;
-    let chosen = rate::choose_curve(m, curve).map_err(Error::Usage)?;
+    let chosen = rate::choose_method(m, method).map_err(Error::Usage)?;
     let a = analysis::analyse(m).map_err(|source| Error::Analysis {
         path: path.to_path_buf(),
         source,
@@ -234,13 +234,13 @@ fn analysed(
 
 pub fn redundancy(
     path: &Path,
-    curve: Option<&str>,
+    method: Option<&str>,
     format: Format,
     out: &Option<PathBuf>,
 ) -> Result<u8, Error> {
-    let (c, a, r) = analysed(path, curve)?;
+    let (c, a, r) = analysed(path, method)?;
     let opts = RunOptions {
-        curve: r.curve,
+        method: r.method,
         jobs: None,
         detail: false,
     };
@@ -255,11 +255,11 @@ pub fn redundancy(
 pub fn sensitivity(
     path: &Path,
     case: Option<&str>,
-    curve: Option<&str>,
+    method: Option<&str>,
     format: Format,
     out: &Option<PathBuf>,
 ) -> Result<u8, Error> {
-    let (c, a, r) = analysed(path, curve)?;
+    let (c, a, r) = analysed(path, method)?;
     let m = &c.model;
     let case = match case {
         None => None,

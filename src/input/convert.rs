@@ -430,8 +430,24 @@ pub fn convert_deferred(
             q.as_ref()
                 .and_then(|q| positive(ctx, q, dim, u, &what(f), at))
         };
-        let fy = opt(&mut ctx, &m.fy, Dimension::Stress, "fy");
-        let fu = opt(&mut ctx, &m.fu, Dimension::Stress, "fu");
+        let mut fy = opt(&mut ctx, &m.fy, Dimension::Stress, "fy");
+        let mut fu = opt(&mut ctx, &m.fu, Dimension::Stress, "fu");
+        if let Some(year) = m.year {
+            if !(1800..=2100).contains(&year) {
+                ctx.error(
+                    format!(
+                        "material \"{}\" year {year} is not a plausible year of construction (1800 to 2100)",
+                        m.id
+                    ),
+                    at,
+                );
+            } else {
+                // MBE Table 6A.6.2.1-1: steel of unknown grade by year.
+                let (y, t, _) = crate::method::steel_year::strengths(year);
+                fy = fy.or(Some(y));
+                fu = fu.or(Some(t));
+            }
+        }
         let density = opt(&mut ctx, &m.density, Dimension::Density, "density");
         let alpha = m.alpha.as_ref().and_then(|q| {
             value(
@@ -458,6 +474,7 @@ pub fn convert_deferred(
             fu,
             density,
             alpha,
+            year: m.year.filter(|_| m.fy.is_none() || m.fu.is_none()),
         });
     }
 
@@ -714,6 +731,7 @@ pub fn convert_deferred(
     for c in &file.load_cases {
         let kind = match c.kind {
             Some(CaseKindFile::Dead) => CaseKind::Dead,
+            Some(CaseKindFile::Wearing) => CaseKind::Wearing,
             Some(CaseKindFile::Live) => CaseKind::Live,
             Some(CaseKindFile::Other) | None => CaseKind::Other,
         };
@@ -737,10 +755,21 @@ pub fn convert_deferred(
                 at,
             );
         }
+        if c.legal == Some(true) && kind != CaseKind::Live {
+            let at = ctx.loc.field("id", &c.id, 0);
+            ctx.error(
+                format!(
+                    "case \"{}\" is marked legal but is not a Live case; only live loads are rated as legal loads",
+                    c.id
+                ),
+                at,
+            );
+        }
         let mut case = LoadCase {
             id: c.id.clone(),
             kind,
             impact: if kind == CaseKind::Live { impact } else { 0.0 },
+            legal: c.legal == Some(true),
             ..Default::default()
         };
         let owner = format!("a load in case \"{}\"", c.id);
@@ -875,76 +904,10 @@ pub fn convert_deferred(
     }
 
     // Rating settings.
-    let mut rating = RatingSettings::default();
-    if let Some(r) = &file.rating {
-        rating.curve = r.curve.clone();
-        if let Some(name) = &r.curve {
-            if crate::capacity::Curve::from_name(name).is_none() {
-                let at = ctx.loc.field("curve", name, 0);
-                ctx.error(
-                    format!(
-                        "rating.curve \"{name}\" is not a column curve (one of {})",
-                        crate::capacity::Curve::names().join(", ")
-                    ),
-                    at,
-                );
-            }
-        }
-        let factor = |ctx: &mut Ctx, v: Option<f64>, name: &str, into: &mut f64| {
-            if let Some(v) = v {
-                if v.is_finite() && v > 0.0 {
-                    *into = v;
-                } else {
-                    ctx.error(
-                        format!("rating.{name} must be a positive number, not {v}"),
-                        None,
-                    );
-                }
-            }
-        };
-        factor(
-            &mut ctx,
-            r.condition_factor,
-            "condition_factor",
-            &mut rating.condition_factor,
-        );
-        factor(
-            &mut ctx,
-            r.system_factor,
-            "system_factor",
-            &mut rating.system_factor,
-        );
-        for (v, name, into) in [
-            (r.gamma_m1, "gamma_m1", &mut rating.gamma_m1),
-            (r.safety_factor, "safety_factor", &mut rating.safety_factor),
-            (r.csa_n, "csa_n", &mut rating.csa_n),
-        ] {
-            if let Some(v) = v {
-                let mut x = 1.0;
-                factor(&mut ctx, Some(v), name, &mut x);
-                *into = Some(x);
-            }
-        }
-        for (level, name, into) in [
-            (&r.inventory, "inventory", &mut rating.inventory),
-            (&r.operating, "operating", &mut rating.operating),
-        ] {
-            if let Some(l) = level {
-                factor(
-                    &mut ctx,
-                    l.gamma_dead,
-                    &format!("{name}.gamma_dead"),
-                    &mut into.gamma_dead,
-                );
-                factor(
-                    &mut ctx,
-                    l.gamma_live,
-                    &format!("{name}.gamma_live"),
-                    &mut into.gamma_live,
-                );
-            }
-        }
-    }
+    let rating = match &file.rating {
+        Some(r) => super::rating::convert_rating(&mut ctx, r),
+        None => RatingSettings::default(),
+    };
 
     if !ctx.errors.is_empty() {
         return Err(Diagnostics { errors: ctx.errors });

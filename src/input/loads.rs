@@ -349,6 +349,7 @@ pub(super) fn live_loads(
                 step,
                 impact,
                 impact_on_lane: ml.impact_on_lane.unwrap_or(false),
+                legal: ml.legal.unwrap_or(false),
             });
         }
     }

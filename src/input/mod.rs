@@ -8,6 +8,7 @@ pub mod diagnostics;
 mod loads;
 pub mod parts;
 pub mod quantity;
+mod rating;
 pub mod ron_writer;
 pub mod schema;
 mod sections;

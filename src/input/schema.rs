@@ -72,9 +72,18 @@ pub struct LevelFile {
 #[derive(Debug, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct RatingFile {
-    /// Column curve name (see `panelpoint rate --help`); default "aisc360".
+    /// Rating method name (see `panelpoint rate --help`); default "lrfr".
+    #[serde(default)]
+    pub method: Option<String>,
+    /// Replaced by `method`; kept so that old models get a clear message.
     #[serde(default)]
     pub curve: Option<String>,
+    /// Single-lane ADTT, for the LRFR legal-load factor.
+    #[serde(default)]
+    pub adtt: Option<f64>,
+    /// Legal-load live-load factor, given directly.
+    #[serde(default)]
+    pub gamma_legal: Option<f64>,
     /// Condition factor φc and system factor φs (bridge-evaluation practice), default 1.0.
     #[serde(default)]
     pub condition_factor: Option<f64>,
@@ -83,7 +92,7 @@ pub struct RatingFile {
     /// EN 1993-1-1 partial factor γM1 (recommended 1.0).
     #[serde(default)]
     pub gamma_m1: Option<f64>,
-    /// Safety factor of the allowable-stress bridge column formula (default 2.12).
+    /// Safety factor of a screening curve (euler, johnson): RF only with it.
     #[serde(default)]
     pub safety_factor: Option<f64>,
     /// CSA S16 exponent n (1.34, or 2.24 for low residual stress sections).
@@ -99,6 +108,8 @@ pub struct RatingFile {
 #[derive(Debug, Deserialize, Clone, Copy, PartialEq, Eq)]
 pub enum CaseKindFile {
     Dead,
+    /// Wearing surfaces and utilities (DW).
+    Wearing,
     Live,
     Other,
 }
@@ -127,6 +138,10 @@ pub struct MaterialFile {
     /// Coefficient of thermal expansion, per degree.
     #[serde(default)]
     pub alpha: Option<Quantity>,
+    /// Year of construction, for steel of unknown grade (MBE Table
+    /// 6A.6.2.1-1) in place of `fy`/`fu`.
+    #[serde(default)]
+    pub year: Option<i32>,
 }
 
 #[derive(Debug, Deserialize)]
@@ -155,6 +170,26 @@ pub struct SectionFile {
     /// Lacing or battens of a built-up member.
     #[serde(default)]
     pub lacing: Option<super::parts::LacingFile>,
+    /// Shear-lag factor of the end connections: `0.85`, or
+    /// `(length: .., eccentricity: ..)` for U = 1 − x̄/L.
+    #[serde(default)]
+    pub shear_lag: Option<ShearLagFile>,
+    /// Holes punched full size (Rp = 0.90).
+    #[serde(default)]
+    pub holes_punched: Option<bool>,
+}
+
+/// The shear-lag factor U given directly or from the connection.
+#[derive(Debug, Deserialize)]
+#[serde(untagged)]
+pub enum ShearLagFile {
+    Factor(f64),
+    Connection {
+        /// Connection length L (first to last fastener), section unit.
+        length: Quantity,
+        /// Connection eccentricity x̄, section unit.
+        eccentricity: Quantity,
+    },
 }
 
 #[derive(Debug, Deserialize)]
@@ -213,6 +248,9 @@ pub struct LoadCaseFile {
     /// Dynamic load allowance of a live case, as a fraction (0.10 = 10 %).
     #[serde(default)]
     pub impact: Option<f64>,
+    /// A live case rated at the legal level.
+    #[serde(default)]
+    pub legal: Option<bool>,
     #[serde(default)]
     pub loads: Vec<NodalLoadFile>,
     /// Prescribed support displacements, in the section unit.
@@ -299,6 +337,9 @@ pub struct MovingLoadFile {
     /// Apply the dynamic allowance to the lane load too.
     #[serde(default)]
     pub impact_on_lane: Option<bool>,
+    /// A legal load: rated at the legal level and posted.
+    #[serde(default)]
+    pub legal: Option<bool>,
 }
 
 /// The separate vehicles file: `(vehicles: [...])`.

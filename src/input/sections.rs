@@ -2,12 +2,48 @@
 
 use super::convert::{positive, Ctx};
 use super::parts::{self, convert_parts, LacedAxisFile, PartFile, PlaneAxisFile};
-use super::schema::SectionFile;
+use super::schema::{SectionFile, ShearLagFile};
 use crate::model::{BuiltUp, Lacing, Section};
 use crate::section;
 use crate::units::{Dimension, DisplayUnits};
 
 pub(super) fn convert_section(ctx: &mut Ctx, s: &SectionFile, u: &DisplayUnits) -> Section {
+    let mut section = properties(ctx, s, u);
+    section.holes_punched = s.holes_punched;
+    if let Some(sl) = &s.shear_lag {
+        let at = ctx.loc.field("id", &s.id, 0);
+        let what = |f: &str| format!("section \"{}\" shear_lag {f}", s.id);
+        let u_factor = match sl {
+            ShearLagFile::Factor(v) => Some(*v),
+            ShearLagFile::Connection {
+                length,
+                eccentricity,
+            } => {
+                let l = parts::section_length(ctx, length, u, &what("length"));
+                let x = parts::section_length(ctx, eccentricity, u, &what("eccentricity"));
+                // AASHTO LRFD Table 6.8.2.2-1 / AISC 360-16 Table D3.1 case 2.
+                (l > 0.0).then(|| 1.0 - x / l)
+            }
+        };
+        match u_factor {
+            Some(v) if v.is_finite() && v > 0.0 && v <= 1.0 => {
+                section.shear_lag = v;
+                section.shear_lag_given = true;
+            }
+            Some(v) => ctx.error(
+                format!(
+                    "section \"{}\" shear_lag U = {v:.4} must lie in (0, 1] (U = 1 − x̄/L needs x̄ < L)",
+                    s.id
+                ),
+                at,
+            ),
+            None => {}
+        }
+    }
+    section
+}
+
+fn properties(ctx: &mut Ctx, s: &SectionFile, u: &DisplayUnits) -> Section {
     if let Some(parts) = &s.parts {
         return built_up(ctx, s, parts, u);
     }
@@ -70,6 +106,9 @@ pub(super) fn convert_section(ctx: &mut Ctx, s: &SectionFile, u: &DisplayUnits) 
         i_out: i_out.unwrap_or(1.0),
         net_area: net.unwrap_or(area),
         built_up: None,
+        shear_lag: 1.0,
+        shear_lag_given: false,
+        holes_punched: None,
     }
 }
 
@@ -92,6 +131,9 @@ fn built_up(ctx: &mut Ctx, s: &SectionFile, parts: &[PartFile], u: &DisplayUnits
         i_out: 1.0,
         net_area: 1.0,
         built_up: None,
+        shear_lag: 1.0,
+        shear_lag_given: false,
+        holes_punched: None,
     };
     let props = match section::properties_with_original(&placed) {
         Ok(p) => p,
@@ -213,6 +255,9 @@ fn built_up(ctx: &mut Ctx, s: &SectionFile, parts: &[PartFile], u: &DisplayUnits
             x_in_plane,
             lacing,
         }),
+        shear_lag: 1.0,
+        shear_lag_given: false,
+        holes_punched: None,
     }
 }
 

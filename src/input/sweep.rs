@@ -199,6 +199,7 @@ impl Ctx<'_> {
 fn kind(k: Option<CaseKindFile>) -> CaseKind {
     match k {
         Some(CaseKindFile::Dead) => CaseKind::Dead,
+        Some(CaseKindFile::Wearing) => CaseKind::Wearing,
         Some(CaseKindFile::Live) => CaseKind::Live,
         _ => CaseKind::Other,
     }

@@ -37,6 +37,11 @@ pub struct Vehicle {
 }
 
 impl Vehicle {
+    /// Gross weight: the sum of the axle loads, N (a lane load has none).
+    pub fn weight(&self) -> f64 {
+        self.axles.iter().map(|a| a.load).sum()
+    }
+
     /// Distance from the front axle to the rear axle, m.
     pub fn length(&self) -> f64 {
         self.axles.last().map_or(0.0, |a| a.offset)
@@ -55,6 +60,8 @@ pub struct MovingLoad {
     pub impact: f64,
     /// Whether the lane load is multiplied by 1 + impact too.
     pub impact_on_lane: bool,
+    /// A legal load: rated at the legal level and posted.
+    pub legal: bool,
 }
 
 /// The moving-load part of a model.

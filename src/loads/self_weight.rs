@@ -86,6 +86,9 @@ mod tests {
             i_out: 1e-6,
             net_area: 0.01,
             built_up: None,
+            shear_lag: 1.0,
+            shear_lag_given: false,
+            holes_punched: None,
         }];
         let materials = vec![Material {
             id: "steel".into(),
@@ -94,6 +97,7 @@ mod tests {
             fu: None,
             density: Some(77_000.0),
             alpha: None,
+            year: None,
         }];
         let loads = self_weight_loads(&nodes, &members, &sections, &materials, 1.1).unwrap();
         // Statics: W = 77 kN/m³ × 0.01 m² × 5 m × 1.1 = 4235 N, half per end.

@@ -1,9 +1,11 @@
 //! The capacity of one member, independent of load: slenderness about both
-//! section axes, the column check of the chosen curve on the governing
-//! axis, and the tension check on gross and net area.
+//! section axes, the nominal column strength of the method's curve on the
+//! governing axis, the nominal tension strengths on gross and net area, and
+//! the resistances a rating method's level makes of them.
 
 use super::RateError;
-use crate::capacity::{self, ColumnCheck, Curve};
+use crate::capacity::{self, ColumnCheck};
+use crate::method::{Method, Resistance};
 use crate::model::Model;
 use crate::section;
 
@@ -33,12 +35,26 @@ pub struct MemberCapacity {
     /// L/r with K = 1 on the smaller radius, for the tension limit.
     pub slenderness_tension: f64,
     pub axis: Axis,
-    /// The column check on the governing axis (stresses in Pa).
+    /// The column check on the governing axis (stresses in Pa); its
+    /// `capacity` is the check-level resistance of the method.
     pub compression: ColumnCapacity,
-    /// Design tension capacity, N, and the nominal value it came from.
+    /// Check-level tension resistance, N (the method's check factors, and
+    /// φc·φs where the method applies them), and the nominal value
+    /// min(Fy·Ag, Fu·An·U).
     pub tension_capacity: f64,
     pub tension_nominal: f64,
-    pub tension: capacity::TensionCheck,
+    /// Nominal gross-section yield Fy·Ag and net-section fracture
+    /// Fu·An·U (without Rp), N.
+    pub tension_yield_nominal: f64,
+    pub tension_fracture_nominal: f64,
+    /// Reduction factor for holes Rp (AASHTO LRFD 6.8.2.1): 0.90 punched
+    /// full size, 1.0 drilled or reamed.
+    pub rp: f64,
+    /// Shear-lag factor U used on the net area.
+    pub shear_lag: f64,
+    /// Which tension limit governs at the check level, and its clause.
+    pub tension_governs: &'static str,
+    pub tension_clause: &'static str,
     pub fy: f64,
     pub e: f64,
     /// The effect of lacing on slenderness, for built-up laced members.
@@ -61,6 +77,10 @@ pub struct LacingEffect {
 #[derive(Clone, Debug, PartialEq)]
 pub struct ColumnCapacity {
     pub check: ColumnCheck,
+    /// Nominal compressive strength Pn = Fcr·Ag, N.
+    pub nominal: f64,
+    /// The method's compression clause.
+    pub clause: &'static str,
     pub regime: capacity::Regime,
     pub critical_stress: f64,
     pub euler_stress: f64,
@@ -76,12 +96,30 @@ impl MemberCapacity {
     pub fn slenderness_unit_k(&self) -> f64 {
         self.slenderness_tension
     }
+
+    /// Tension resistance with a level's factors (before φc·φs), N, and
+    /// which limit governs.
+    pub fn tension_at(&self, r: &Resistance) -> (f64, &'static str) {
+        let y = r.tension_yield * self.tension_yield_nominal;
+        let rp = if r.uses_rp { self.rp } else { 1.0 };
+        let f = r.tension_fracture * self.tension_fracture_nominal * rp;
+        if f < y {
+            (f, "fracture")
+        } else {
+            (y, "yield")
+        }
+    }
+
+    /// Compression resistance with a level's factors (before φc·φs), N.
+    pub fn compression_at(&self, r: &Resistance) -> f64 {
+        r.compression * self.compression.nominal
+    }
 }
 
 pub fn member_capacity(
     model: &Model,
     m: usize,
-    curve: &Curve,
+    method: &Method,
 ) -> Result<MemberCapacity, RateError> {
     let mem = &model.members[m];
     let mat = &model.materials[mem.material];
@@ -125,10 +163,23 @@ pub fn member_capacity(
         member: mem.id.to_string(),
         source,
     };
-    let check = capacity::column(curve, fy, mat.e, kl_r).map_err(err)?;
-    let tension = capacity::tension(curve, fy, fu, sec.area, sec.net_area).map_err(err)?;
-    let nominal_tension = (fy * sec.area).min(fu * sec.net_area);
-    Ok(MemberCapacity {
+    let check = capacity::column(&method.curve, fy, mat.e, kl_r).map_err(err)?;
+    // The nominal tension strengths; checked for sign and overflow by the
+    // shared tension check (its factors are not used).
+    capacity::tension(&method.curve, fy, fu, sec.area, sec.net_area).map_err(err)?;
+    let fracture_nominal = fu * sec.net_area * sec.shear_lag;
+    let nominal_tension = (fy * sec.area).min(fracture_nominal);
+    let rp = if sec.holes_punched.unwrap_or(true) {
+        RP_PUNCHED
+    } else {
+        1.0
+    };
+    // The check level: the method's check factors and, for LRFR, φc·φs.
+    let cs = method
+        .design_levels
+        .first()
+        .map_or(1.0, |l| method.condition_system(l));
+    let mut cap = MemberCapacity {
         slenderness_in,
         slenderness_out,
         slenderness_tension: l / r_in.min(r_out),
@@ -137,15 +188,30 @@ pub fn member_capacity(
             regime: check.regime,
             critical_stress: check.critical_stress,
             euler_stress: check.euler_stress,
-            capacity: check.design_stress * sec.area,
+            nominal: check.critical_stress * sec.area,
+            capacity: 0.0,
+            clause: method.check.compression_clause,
             yields_before_buckling: check.yields_before_buckling,
             check,
         },
-        tension_capacity: tension.design_capacity,
+        tension_capacity: 0.0,
         tension_nominal: nominal_tension,
-        tension,
+        tension_yield_nominal: fy * sec.area,
+        tension_fracture_nominal: fracture_nominal,
+        rp,
+        shear_lag: sec.shear_lag,
+        tension_governs: "yield",
+        tension_clause: method.check.tension_clause,
         fy,
         e: mat.e,
         lacing,
-    })
+    };
+    let (t, governs) = cap.tension_at(&method.check);
+    cap.tension_capacity = cs * t;
+    cap.tension_governs = governs;
+    cap.compression.capacity = cs * cap.compression_at(&method.check);
+    Ok(cap)
 }
+
+/// AASHTO LRFD 6.8.2.1: Rp = 0.90 for holes punched full size (from memory).
+pub const RP_PUNCHED: f64 = 0.90;

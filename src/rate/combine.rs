@@ -13,6 +13,9 @@ pub struct LoadEffect {
     pub case: Option<usize>,
     /// For a moving-load envelope: the moving load's index and which side.
     pub moving: Option<(usize, Side)>,
+    /// A combination (factored by the user); false for a single case and
+    /// for a service envelope (dead + moving load).
+    pub factored: bool,
     pub forces: Vec<f64>,
 }
 
@@ -36,8 +39,92 @@ pub fn load_effects(model: &Model, analysis: &Analysis) -> Vec<LoadEffect> {
     load_effects_of(model, &analysis.cases)
 }
 
+/// The minimum permanent-load factors (DC, DW) taken where a dead case
+/// relieves the live part of a combination: the rating method's (AASHTO
+/// LRFD 3.4.1: 0.90 and 0.65 for LRFR), or none (the factors as written).
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct Relief {
+    pub dc: f64,
+    pub dw: f64,
+}
+
+impl Relief {
+    /// The method's minima at its first level.
+    pub fn of(method: &crate::method::Method) -> Option<Relief> {
+        method.design_levels.first().map(|l| Relief {
+            dc: l.dc.min,
+            dw: l.dw.min,
+        })
+    }
+}
+
+/// Sum a combination's cases into `forces`: live cases with their impact;
+/// with `relief`, a dead case whose force relieves the combination's live
+/// part in a member is taken at min(factor, the minimum factor). Returns the
+/// number of member-case terms so reduced.
+fn sum_cases(
+    model: &Model,
+    results: &[CaseResult],
+    factors: &[(usize, f64)],
+    live_extra: Option<&[f64]>,
+    relief: Option<Relief>,
+    forces: &mut [f64],
+) -> usize {
+    let mut live = vec![0.0; forces.len()];
+    if let Some(extra) = live_extra {
+        live.copy_from_slice(extra);
+    }
+    for &(ci, f) in factors {
+        let case = &model.cases[ci];
+        if case.kind == CaseKind::Live {
+            let f = f * (1.0 + case.impact);
+            for (acc, v) in live.iter_mut().zip(&results[ci].forces) {
+                *acc += f * v;
+            }
+        }
+    }
+    let mut reduced = 0;
+    for &(ci, f) in factors {
+        let case = &model.cases[ci];
+        if case.kind == CaseKind::Live {
+            continue;
+        }
+        let min = match (relief, case.kind) {
+            (Some(r), CaseKind::Dead) => Some(r.dc),
+            (Some(r), CaseKind::Wearing) => Some(r.dw),
+            _ => None,
+        };
+        for (m, (acc, v)) in forces.iter_mut().zip(&results[ci].forces).enumerate() {
+            let g = match min {
+                Some(min) if f > min && v * live[m] < 0.0 => {
+                    reduced += 1;
+                    min
+                }
+                _ => f,
+            };
+            *acc += g * v;
+        }
+    }
+    for (acc, l) in forces.iter_mut().zip(&live) {
+        *acc += l;
+    }
+    reduced
+}
+
 /// As [`load_effects`], from the case results alone.
 pub fn load_effects_of(model: &Model, results: &[CaseResult]) -> Vec<LoadEffect> {
+    load_effects_relieved(model, results, None).0
+}
+
+/// As [`load_effects_of`], with the method's minimum dead-load factors
+/// where a dead case relieves a combination's live part; also the ids of
+/// the combinations where that happened.
+pub fn load_effects_relieved(
+    model: &Model,
+    results: &[CaseResult],
+    relief: Option<Relief>,
+) -> (Vec<LoadEffect>, Vec<String>) {
+    let mut relieved = Vec::new();
     let analysis_cases = results;
     let mut out: Vec<LoadEffect> = model
         .cases
@@ -48,31 +135,33 @@ pub fn load_effects_of(model: &Model, results: &[CaseResult]) -> Vec<LoadEffect>
             id: c.id.clone(),
             case: Some(i),
             moving: None,
+            factored: false,
             forces: r.forces.clone(),
         })
         .collect();
     // Combinations that name a moving load are built by `moving_effects`.
     for combo in model.combinations.iter().filter(|c| c.moving.is_empty()) {
         let mut forces = vec![0.0; model.members.len()];
-        for &(ci, factor) in &combo.factors {
-            let case = &model.cases[ci];
-            let f = if case.kind == CaseKind::Live {
-                factor * (1.0 + case.impact)
-            } else {
-                factor
-            };
-            for (acc, v) in forces.iter_mut().zip(&analysis_cases[ci].forces) {
-                *acc += f * v;
-            }
+        let n = sum_cases(
+            model,
+            analysis_cases,
+            &combo.factors,
+            None,
+            relief,
+            &mut forces,
+        );
+        if n > 0 {
+            relieved.push(combo.id.clone());
         }
         out.push(LoadEffect {
             id: combo.id.clone(),
             case: None,
             moving: None,
+            factored: true,
             forces,
         });
     }
-    out
+    (out, relieved)
 }
 
 /// Effects of moving-load envelopes: for each moving load, the dead-load
@@ -84,6 +173,18 @@ pub fn moving_effects(
     results: &[CaseResult],
     envelopes: &[crate::loads::MovingEnvelope],
 ) -> Vec<LoadEffect> {
+    moving_effects_relieved(model, results, envelopes, None).0
+}
+
+/// As [`moving_effects`], with the method's minimum dead-load factors where
+/// a dead case relieves the combination's live part.
+pub fn moving_effects_relieved(
+    model: &Model,
+    results: &[CaseResult],
+    envelopes: &[crate::loads::MovingEnvelope],
+    relief: Option<Relief>,
+) -> (Vec<LoadEffect>, Vec<String>) {
+    let mut relieved = Vec::new();
     let mut out = Vec::new();
     for (k, env) in envelopes.iter().enumerate() {
         for side in [Side::Tension, Side::Compression] {
@@ -103,6 +204,7 @@ pub fn moving_effects(
                 id: format!("dead + {} ({})", env.moving_load, side.label()),
                 case: None,
                 moving: Some((k, side)),
+                factored: false,
                 forces,
             });
         }
@@ -113,33 +215,43 @@ pub fn moving_effects(
                 continue;
             };
             for side in [Side::Tension, Side::Compression] {
+                let vehicle: Vec<f64> = env
+                    .per_member
+                    .iter()
+                    .map(|e| {
+                        factor
+                            * match side {
+                                Side::Tension => e.max_tension(),
+                                Side::Compression => e.max_compression(),
+                            }
+                    })
+                    .collect();
                 let mut forces = vec![0.0; model.members.len()];
-                for &(ci, f) in &combo.factors {
-                    let case = &model.cases[ci];
-                    let f = if case.kind == CaseKind::Live {
-                        f * (1.0 + case.impact)
-                    } else {
-                        f
-                    };
-                    for (acc, v) in forces.iter_mut().zip(&results[ci].forces) {
-                        *acc += f * v;
-                    }
-                }
-                for (acc, e) in forces.iter_mut().zip(&env.per_member) {
-                    *acc += factor
-                        * match side {
-                            Side::Tension => e.max_tension(),
-                            Side::Compression => e.max_compression(),
-                        };
+                let n = sum_cases(
+                    model,
+                    results,
+                    &combo.factors,
+                    Some(&vehicle),
+                    relief,
+                    &mut forces,
+                );
+                if n > 0 && !relieved.contains(&combo.id) {
+                    relieved.push(combo.id.clone());
                 }
                 out.push(LoadEffect {
-                    id: format!("{} ({} {})", combo.id, env.moving_load, side.label()),
+                    id: format!(
+                        "{} ({factor} × {} {})",
+                        combo.id,
+                        env.moving_load,
+                        side.label()
+                    ),
                     case: None,
                     moving: None,
+                    factored: true,
                     forces,
                 });
             }
         }
     }
-    out
+    (out, relieved)
 }

@@ -1,21 +1,24 @@
 //! Member capacity checks and load rating for a solved model: for every
 //! member under every load case and combination, the slenderness in both
-//! planes, the Euler and critical stresses of the chosen column curve or
-//! the tension capacity, utilization and margin; then rating factors from
-//! the dead and live cases.
+//! planes, the Euler and critical stresses of the rating method's column
+//! curve or the tension capacity, utilization and margin; then rating
+//! factors at each of the method's levels, and postings for legal loads.
+//! The method (`crate::method`) supplies every factor.
 //!
 //! Everything here is in SI; the report layer converts.
 
 mod checks;
 mod combine;
+mod levels;
+mod notes;
 
-pub use checks::{member_capacity, Axis, LacingEffect, MemberCapacity};
-pub use combine::{load_effects, moving_effects, LoadEffect, Side};
+pub use checks::{member_capacity, Axis, LacingEffect, MemberCapacity, RP_PUNCHED};
+pub use combine::{load_effects, moving_effects, LoadEffect, Relief, Side};
 
 use crate::analysis::{Analysis, CaseResult};
-use crate::capacity::{self, Curve, Regime};
+use crate::capacity::{self, Regime};
+use crate::method::Method;
 use crate::model::{CaseKind, Model};
-use crate::section;
 
 #[derive(Debug, Clone, PartialEq, thiserror::Error)]
 pub enum RateError {
@@ -42,19 +45,25 @@ pub struct Check {
     pub force: f64,
     pub stress: f64,
     pub regime: Regime,
-    /// Design capacity in the sense of the force, N (after φ, 1/Ω, 1/γ).
+    /// Resistance at the method's check level in the sense of the force, N
+    /// (φ·Rn, with φc·φs for LRFR; Rn/FS or Rn/Ω for allowable stress).
     pub capacity: f64,
     /// |force| / capacity.
     pub utilization: f64,
     /// Critical (nominal) stress / |stress|: the factor of safety against
     /// buckling as practitioners quote it; None when the force is zero.
     pub margin: Option<f64>,
-    /// Rating factor at inventory level for rows of a live case.
+    /// Rating factor at the method's first level for rows of a live load.
     pub rating_factor: Option<f64>,
+    /// Not this method's comparison, so shown for information and not
+    /// counted as a failure: an unfactored effect (a single case or a
+    /// service envelope) under a method with factored resistances, or a
+    /// combination under an allowable-stress method.
+    pub service: bool,
 }
 
-/// Rating factors of one member for one live load (a Live case or a
-/// moving load's envelope).
+/// The rating factor of one member for one live load at one level, with
+/// every factor used.
 #[derive(Clone, Debug, PartialEq)]
 pub struct MemberRating {
     pub member: usize,
@@ -62,67 +71,115 @@ pub struct MemberRating {
     pub live_id: String,
     /// For a moving load: where the vehicle stood for the governing effect.
     pub at: Option<String>,
-    /// Dead-load force (sum of Dead cases), N.
-    pub dead: f64,
+    /// Whether the live load is a legal load.
+    pub legal: bool,
+    /// "inventory", "operating", "legal", "design", "screening".
+    pub level: &'static str,
+    pub rf: Option<f64>,
+    /// Dead-load forces DC and DW, N (tension positive).
+    pub dc: f64,
+    pub dw: f64,
     /// Live force with impact, N.
     pub live: f64,
-    /// Capacity used (tension or compression side, design value), N.
+    /// C = φc·φs·φ·Rn in the sense of the live force, N.
     pub capacity: f64,
-    pub inventory: Option<f64>,
-    pub operating: Option<f64>,
+    /// Nominal resistance Rn on that side, N.
+    pub nominal: f64,
+    /// "compression", "tension yield" or "tension fracture".
+    pub governs: &'static str,
+    /// Load factors as applied (γDC, γDW: max or min by sign; γL).
+    pub gamma_dc: f64,
+    pub gamma_dw: f64,
+    pub gamma_live: f64,
+    /// Resistance factor on Rn (φ, or 1/FS for allowable stress).
+    pub phi: f64,
+    /// Condition and system factors as given, and their product as applied
+    /// (with the 0.85 floor of MBE Eq. 6A.4.2.1-3; 1.0 where not applied).
+    pub phi_c: f64,
+    pub phi_s: f64,
+    pub phi_cs: f64,
+    /// Rp and U where they entered (tension fracture), else 1.0.
+    pub rp: f64,
+    pub u: f64,
+    /// The rating equation's clause for this level.
+    pub clause: &'static str,
 }
 
-/// All checks of a model on one curve.
+impl MemberRating {
+    /// Total dead-load force DC + DW, N.
+    pub fn dead(&self) -> f64 {
+        self.dc + self.dw
+    }
+}
+
+/// A legal vehicle's posting.
+#[derive(Clone, Debug, PartialEq)]
+pub struct PostingRow {
+    /// The legal live load's id.
+    pub vehicle: String,
+    /// Gross weight W, N.
+    pub weight: f64,
+    /// Lowest legal-load RF and its member.
+    pub rf: f64,
+    pub member: usize,
+    pub posting: crate::method::posting::Posting,
+    pub clause: &'static str,
+}
+
+/// All checks of a model under one rating method.
 pub struct Rating {
-    pub curve: Curve,
+    pub method: Method,
     /// Load cases then combinations, forces per member.
     pub effects: Vec<LoadEffect>,
     /// Per-member capacity (both axes, both senses).
     pub members: Vec<MemberCapacity>,
     /// Every member under every effect.
     pub checks: Vec<Check>,
-    /// Index of the check with the highest utilization.
+    /// Index of the check with the highest utilization (service rows only
+    /// when there is nothing else).
     pub controlling: Option<usize>,
+    /// One row per member, live load and level.
     pub ratings: Vec<MemberRating>,
-    /// Index into `ratings` of the lowest inventory rating factor.
+    /// Index into `ratings` of the lowest factor at the method's first
+    /// level (else at any level).
     pub lowest: Option<usize>,
-    /// Notes for the report: slenderness limits, σe > Fy, and the like.
+    /// The lowest rating factor at each level, in the method's level order.
+    pub lowest_by_level: Vec<(&'static str, usize)>,
+    pub postings: Vec<PostingRow>,
+    /// Notes for the report: stated defaults, slenderness limits, σe > Fy.
     pub notes: Vec<String>,
 }
 
-/// The curve named on the command line, else the model's, else the default.
-pub fn choose_curve(model: &Model, cli: Option<&str>) -> Result<Curve, String> {
-    let name = cli.or(model.rating.curve.as_deref());
-    let curve = match name {
-        None => Curve::default_curve(),
-        Some(n) => Curve::from_name(n).ok_or_else(|| {
-            format!(
-                "\"{n}\" is not a column curve; use one of {}",
-                Curve::names().join(", ")
-            )
-        })?,
-    };
-    // Parameters set in the model's rating block apply to their curve.
-    let s = &model.rating;
-    Ok(match curve {
-        Curve::En1993 { class, gamma_m1 } => Curve::En1993 {
-            class,
-            gamma_m1: s.gamma_m1.unwrap_or(gamma_m1),
-        },
-        Curve::BridgeAsd { safety_factor } => Curve::BridgeAsd {
-            safety_factor: s.safety_factor.unwrap_or(safety_factor),
-        },
-        Curve::CsaS16 { n } => Curve::CsaS16 {
-            n: s.csa_n.unwrap_or(n),
-        },
-        other => other,
-    })
+impl Rating {
+    /// The lowest rating factor at `level`, if any.
+    pub fn lowest_at(&self, level: &str) -> Option<&MemberRating> {
+        self.lowest_by_level
+            .iter()
+            .find(|(l, _)| *l == level)
+            .map(|&(_, i)| &self.ratings[i])
+    }
+
+    /// Checks that count toward the verdict (not service rows).
+    pub fn failing(&self) -> usize {
+        self.checks
+            .iter()
+            .filter(|c| !c.service && c.utilization > 1.0)
+            .count()
+    }
+}
+
+/// The method named on the command line, else the model's, else LRFR.
+pub fn choose_method(model: &Model, cli: Option<&str>) -> Result<Method, String> {
+    let name = cli
+        .or(model.rating.method.as_deref())
+        .unwrap_or(crate::method::DEFAULT);
+    Method::from_name(name, &model.rating.settings).map_err(|e| e.to_string())
 }
 
 /// Check every member under every case and combination, and rate it.
-pub fn rate(model: &Model, analysis: &Analysis, curve: Curve) -> Result<Rating, RateError> {
+pub fn rate(model: &Model, analysis: &Analysis, method: Method) -> Result<Rating, RateError> {
     let envelopes = moving_envelopes(model, &analysis.prepared)?;
-    rate_results(model, &analysis.cases, curve, &envelopes)
+    rate_results(model, &analysis.cases, method, &envelopes)
 }
 
 /// The moving-load envelopes of a model (none when it has no moving loads).
@@ -139,124 +196,70 @@ pub fn moving_envelopes(
 
 /// As [`rate`], from the case results alone (one per `model.cases`), for
 /// callers that solved many variants on one factorization.
-// Members, dead forces and envelopes are parallel arrays indexed by member.
-#[allow(clippy::needless_range_loop)]
 pub fn rate_results(
     model: &Model,
     results: &[CaseResult],
-    curve: Curve,
+    method: Method,
     envelopes: &[crate::loads::MovingEnvelope],
 ) -> Result<Rating, RateError> {
     let members = (0..model.members.len())
-        .map(|m| member_capacity(model, m, &curve))
+        .map(|m| member_capacity(model, m, &method))
         .collect::<Result<Vec<_>, _>>()?;
-    let mut effects = combine::load_effects_of(model, results);
-    effects.extend(moving_effects(model, results, envelopes));
-    let dead_cases = model.dead_cases();
-    let dead: Vec<f64> = (0..model.members.len())
-        .map(|m| dead_cases.iter().map(|&c| results[c].forces[m]).sum())
-        .collect();
-    let phi = model.rating.condition_factor * model.rating.system_factor;
-    let s = &model.rating;
-    let asr = matches!(curve, Curve::BridgeAsd { .. });
-    // RF of member m for a live force (impact included), both levels.
-    let rf = |m: usize, live: f64| -> (Option<f64>, Option<f64>, f64) {
-        let cap = &members[m];
-        let (ct, cc) = (phi * cap.tension_capacity, phi * cap.compression.capacity);
-        let level = |g: crate::model::Level| {
-            capacity::member_rating(ct, cc, dead[m], live, g.gamma_dead, g.gamma_live)
-        };
-        let capacity = if live >= 0.0 { ct } else { cc };
-        if asr {
-            // Allowable-stress form RF = (C − D)/(L(1 + I)), one level.
-            (
-                capacity::member_rating(ct, cc, dead[m], live, 1.0, 1.0),
-                None,
-                capacity,
-            )
-        } else {
-            (level(s.inventory), level(s.operating), capacity)
-        }
+    let relief = combine::Relief::of(&method);
+    let (mut effects, mut relieved) = combine::load_effects_relieved(model, results, relief);
+    let (moving, more) = combine::moving_effects_relieved(model, results, envelopes, relief);
+    effects.extend(moving);
+    relieved.extend(more);
+    let ratings = if method.rates {
+        levels::rate_live_loads(model, results, envelopes, &method, &members)
+    } else {
+        Vec::new()
     };
-
-    let mut ratings = Vec::new();
-    // Inventory RF of (member, effect) for the check rows.
-    let mut rf_of = std::collections::HashMap::new();
-    for (ci, case) in model.cases.iter().enumerate() {
-        if case.kind != CaseKind::Live {
-            continue;
-        }
-        let ei = effects.iter().position(|e| e.case == Some(ci)).unwrap_or(0);
-        for m in 0..members.len() {
-            let live = results[ci].forces[m] * (1.0 + case.impact);
-            let (inventory, operating, capacity) = rf(m, live);
-            rf_of.insert((m, ei), inventory);
-            ratings.push(MemberRating {
-                member: m,
-                live_id: case.id.clone(),
-                at: None,
-                dead: dead[m],
-                live,
-                capacity,
-                inventory,
-                operating,
-            });
-        }
+    let checks = check_rows(model, &effects, &members, &method, &ratings);
+    let controlling = controlling(&checks);
+    let lowest_by_level = levels::lowest_by_level(&method, &ratings);
+    let lowest = lowest_by_level
+        .iter()
+        .find(|(l, _)| *l == method.primary_level())
+        .or(lowest_by_level.first())
+        .map(|&(_, i)| i);
+    let postings = levels::postings(model, &method, &ratings);
+    let mut notes = method.notes.clone();
+    for id in &relieved {
+        notes.push(format!(
+            "combination \"{id}\": where a dead case relieves the live effect in a member it is taken at its minimum factor (AASHTO LRFD 3.4.1 for LRFR; the method's own minimum otherwise)"
+        ));
     }
-    let length = model.units.length;
-    for (k, env) in envelopes.iter().enumerate() {
-        for m in 0..members.len() {
-            let e = &env.per_member[m];
-            // Rate each side of the envelope; the lower factor governs.
-            let mut best: Option<MemberRating> = None;
-            for (side, extreme) in [
-                (Side::Tension, &e.tension),
-                (Side::Compression, &e.compression),
-            ] {
-                let live = extreme.force;
-                let (inventory, operating, capacity) = rf(m, live);
-                let ei = effects.iter().position(|x| x.moving == Some((k, side)));
-                if let Some(ei) = ei {
-                    rf_of.insert((m, ei), inventory);
-                }
-                let Some(inv) = inventory else { continue };
-                let at = extreme.at.as_ref().map(|p| {
-                    format!(
-                        "{} with the front axle at {:.2} {} ({})",
-                        side.label(),
-                        p.position / length.to_si,
-                        length.name,
-                        format!("{:?}", p.direction).to_lowercase()
-                    )
-                });
-                let row = MemberRating {
-                    member: m,
-                    live_id: env.moving_load.clone(),
-                    at,
-                    dead: dead[m],
-                    live,
-                    capacity,
-                    inventory,
-                    operating,
-                };
-                if best
-                    .as_ref()
-                    .is_none_or(|b| inv < b.inventory.unwrap_or(f64::INFINITY))
-                {
-                    best = Some(row);
-                }
-            }
-            if let Some(b) = best {
-                ratings.push(b);
-            }
-        }
-    }
+    notes.extend(notes::member_notes(model, &method, &effects, &members));
+    Ok(Rating {
+        method,
+        effects,
+        members,
+        checks,
+        controlling,
+        ratings,
+        lowest,
+        lowest_by_level,
+        postings,
+        notes,
+    })
+}
 
+/// Every member under every effect.
+fn check_rows(
+    model: &Model,
+    effects: &[LoadEffect],
+    members: &[MemberCapacity],
+    method: &Method,
+    ratings: &[MemberRating],
+) -> Vec<Check> {
+    let first = method.primary_level();
     let mut checks = Vec::with_capacity(effects.len() * members.len());
     for (ei, effect) in effects.iter().enumerate() {
         // Forces below 1e-10 of the largest in this effect are round-off of a
         // zero-force member: checked as zero, on the compression side.
         let largest = effect.forces.iter().fold(0.0f64, |a, f| a.max(f.abs()));
+        let service = effect.factored == method.checks_service();
         for (m, cap) in members.iter().enumerate() {
             let raw = effect.forces[m];
             let force = if raw.abs() <= 1e-10 * largest {
@@ -281,7 +284,15 @@ pub fn rate_results(
             };
             let utilization = force.abs() / capacity;
             let margin = (stress.abs() > 0.0).then(|| critical / stress.abs());
-            let rating_factor = rf_of.get(&(m, ei)).copied().flatten();
+            // The first level's factor of this member for the live load the
+            // row shows (a live case, or a moving load's side).
+            let rating_factor = live_of(model, effect).and_then(|id| {
+                ratings
+                    .iter()
+                    .filter(|r| r.member == m && r.live_id == id && r.level == first)
+                    .filter_map(|r| r.rf)
+                    .reduce(f64::min)
+            });
             checks.push(Check {
                 member: m,
                 effect: ei,
@@ -292,71 +303,33 @@ pub fn rate_results(
                 utilization,
                 margin,
                 rating_factor,
+                service,
             });
         }
     }
-    let controlling = (0..checks.len()).max_by(|&a, &b| {
-        checks[a]
-            .utilization
-            .total_cmp(&checks[b].utilization)
-            .then(b.cmp(&a))
-    });
-    let lowest = (0..ratings.len())
-        .filter(|&i| ratings[i].inventory.is_some())
-        .min_by(|&a, &b| {
-            ratings[a]
-                .inventory
-                .unwrap()
-                .total_cmp(&ratings[b].inventory.unwrap())
-        });
-    let mut notes = Vec::new();
-    for (m, cap) in members.iter().enumerate() {
-        let id = &model.members[m].id;
-        let compressed = effects.iter().any(|e| e.forces[m] < 0.0);
-        let tensioned = effects.iter().any(|e| e.forces[m] > 0.0);
-        if let (Some(le), true) = (&cap.lacing, compressed) {
-            let pmax = effects.iter().map(|e| -e.forces[m]).fold(0.0f64, f64::max);
-            let s = crate::report::Scale::of(model);
-            notes.push(format!(
-                "member \"{id}\": laced built-up member, (KL/r)o = {:.1} → (KL/r)m = {:.1} (AISC 360-16 §E6.1); lacing designed for V = 2% of {:.1} {} = {:.2} {} (§E6.2)",
-                le.overall,
-                le.modified,
-                pmax / s.force,
-                s.force_name,
-                section::lacing_shear(pmax) / s.force,
-                s.force_name
-            ));
-            if !le.component_ok {
-                notes.push(format!(
-                    "member \"{id}\": component slenderness a/ri = {:.1} exceeds 3/4 of the governing slenderness (AISC 360-16 §E6.2)",
-                    le.component
-                ));
-            }
-        }
-        if compressed {
-            if let Some(w) = capacity::slenderness_warning(cap.slenderness(), true) {
-                notes.push(format!("member \"{id}\": {w}"));
-            }
-            if cap.compression.yields_before_buckling && matches!(curve, Curve::Euler) {
-                notes.push(format!(
-                    "member \"{id}\": Euler stress exceeds Fy, so the member would yield before it buckles elastically; the Euler curve is capped at Fy and an inelastic curve should govern"
-                ));
-            }
-        }
-        if tensioned && !compressed {
-            if let Some(w) = capacity::slenderness_warning(cap.slenderness_unit_k(), false) {
-                notes.push(format!("member \"{id}\": {w}"));
-            }
-        }
+    checks
+}
+
+/// The live load an effect shows alone, if it is one: a Live case or a
+/// moving load's service envelope.
+fn live_of<'a>(model: &'a Model, effect: &LoadEffect) -> Option<&'a str> {
+    if let Some(c) = effect.case {
+        return (model.cases[c].kind == CaseKind::Live).then(|| model.cases[c].id.as_str());
     }
-    Ok(Rating {
-        curve,
-        effects,
-        members,
-        checks,
-        controlling,
-        ratings,
-        lowest,
-        notes,
-    })
+    effect.moving.map(|(k, _)| model.live.moving[k].id.as_str())
+}
+
+/// The check with the highest utilization, preferring rows that count.
+fn controlling(checks: &[Check]) -> Option<usize> {
+    let pick = |service_ok: bool| {
+        (0..checks.len())
+            .filter(|&i| service_ok || !checks[i].service)
+            .max_by(|&a, &b| {
+                checks[a]
+                    .utilization
+                    .total_cmp(&checks[b].utilization)
+                    .then(b.cmp(&a))
+            })
+    };
+    pick(false).or_else(|| pick(true))
 }

@@ -257,37 +257,60 @@ fn summary(
         Ok(r) => {
             let failing: Vec<usize> = by_utilization(r)
                 .into_iter()
-                .filter(|&i| r.checks[i].utilization > 1.0)
+                .filter(|&i| !r.checks[i].service && r.checks[i].utilization > 1.0)
                 .collect();
+            let counted = r.checks.iter().filter(|c| !c.service).count();
             if failing.is_empty() {
                 let _ = writeln!(
                     h,
-                    r#"<p class="verdict">All {} checks within capacity (utilization ≤ 1).</p>"#,
-                    r.checks.len()
+                    r#"<p class="verdict">All {counted} strength checks within capacity (utilization ≤ 1).</p>"#
                 );
             } else {
                 let _ = writeln!(
                     h,
-                    r#"<p class="verdict fails">{} of {} checks exceed capacity (utilization &gt; 1).</p>"#,
-                    failing.len(),
-                    r.checks.len()
+                    r#"<p class="verdict fails">{} of {counted} strength checks exceed capacity (utilization &gt; 1).</p>"#,
+                    failing.len()
                 );
             }
             h.push_str(r#"<dl class="facts">"#);
-            let _ = write!(h, "<dt>Column curve</dt><dd>{}</dd>", esc(&r.curve.name()));
-            if let Some(i) = r.lowest {
-                let mr = &r.ratings[i];
+            let _ = write!(
+                h,
+                "<dt>Rating method</dt><dd>{} — {}</dd>",
+                esc(&r.method.name),
+                esc(r.method.equation)
+            );
+            if r.lowest_by_level.is_empty() {
+                h.push_str(
+                    "<dt>Rating factors</dt><dd>none: the model declares no Live load case or moving load, or the method is a screening curve without a safety factor</dd>",
+                );
+            }
+            for &(level, i) in &r.lowest_by_level {
+                let row = super::rate_rows::rating_row(model, r, &r.ratings[i]);
                 let _ = write!(
                     h,
-                    "<dt>Lowest rating factor</dt><dd><strong>{}</strong> inventory, {} operating — member <strong>{}</strong> for live case “{}”</dd>",
-                    esc(&mr.inventory.map_or("-".into(), |v| sig(v, 3))),
-                    esc(&mr.operating.map_or("-".into(), |v| sig(v, 3))),
-                    esc(&model.members[mr.member].id),
-                    esc(&mr.live_id)
+                    "<dt>Controlling, {}</dt><dd>RF <strong>{}</strong> — member <strong>{}</strong> for “{}”{} <span class=\"note\">({})</span></dd>",
+                    esc(level),
+                    esc(&row.rf.map_or("-".into(), |v| sig(v, 3))),
+                    esc(row.member),
+                    esc(row.live),
+                    row.at.map_or(String::new(), |a| format!(", {}", esc(a))),
+                    esc(&row.factors)
                 );
-            } else {
-                h.push_str(
-                    "<dt>Rating factors</dt><dd>none: the model declares no Live load case</dd>",
+            }
+            for p in &r.postings {
+                let v = super::rate_rows::posting_view(model, p);
+                let _ = write!(
+                    h,
+                    "<dt>Posting, “{}”</dt><dd>W = {} {} ({} {}); lowest legal RF {} at member {}: <strong>{}</strong> <span class=\"note\">({})</span></dd>",
+                    esc(v.vehicle),
+                    esc(&sig(v.weight, 4)),
+                    esc(s.force_name),
+                    esc(&sig(v.weight_tons, 3)),
+                    v.ton_name,
+                    esc(&sig(v.rf, 3)),
+                    esc(v.member),
+                    esc(&super::rate_rows::posting_words(&v)),
+                    esc(v.clause)
                 );
             }
             if let Some(i) = r.controlling {
@@ -515,7 +538,8 @@ fn model_tables(h: &mut String, model: &Model, s: &Scale) {
     h.push_str("<h3>Load cases</h3>\n");
     for case in &model.cases {
         let kind = match case.kind {
-            CaseKind::Dead => "dead",
+            CaseKind::Dead => "dead (DC)",
+            CaseKind::Wearing => "wearing surface (DW)",
             CaseKind::Live => "live",
             CaseKind::Other => "other",
         };
@@ -591,20 +615,55 @@ fn model_tables(h: &mut String, model: &Model, s: &Scale) {
     }
     h.push_str("<h3>Rating settings</h3>\n");
     let r = &model.rating;
+    let name = r.method.as_deref().unwrap_or(crate::method::DEFAULT);
+    let st = &r.settings;
     let _ = writeln!(
         h,
-        r#"<dl class="facts"><dt>Column curve in the model</dt><dd>{}</dd><dt>Condition factor φc</dt><dd>{}</dd><dt>System factor φs</dt><dd>{}</dd><dt>Inventory</dt><dd>γD = {}, γL = {}</dd><dt>Operating</dt><dd>γD = {}, γL = {}</dd></dl>"#,
-        esc(r
-            .curve
-            .as_deref()
-            .unwrap_or("(not set: the default or --curve)")),
-        sig(r.condition_factor, 3),
-        sig(r.system_factor, 3),
-        sig(r.inventory.gamma_dead, 3),
-        sig(r.inventory.gamma_live, 3),
-        sig(r.operating.gamma_dead, 3),
-        sig(r.operating.gamma_live, 3)
+        r#"<dl class="facts"><dt>Rating method in the model</dt><dd>{}</dd><dt>Condition factor φc</dt><dd>{}</dd><dt>System factor φs</dt><dd>{}</dd><dt>ADTT (legal-load factor)</dt><dd>{}</dd></dl>"#,
+        esc(name),
+        st.condition_factor
+            .map_or("1.0 (not given)".into(), |v| sig(v, 3)),
+        st.system_factor
+            .map_or("1.0 (not given)".into(), |v| sig(v, 3)),
+        st.adtt.map_or("not given".into(), |v| sig(v, 4)),
     );
+    if let Ok(m) = crate::method::Method::from_name(name, st) {
+        let mut tb = HTable::new(&[
+            "level",
+            "for",
+            "γL",
+            "γDC max / min",
+            "γDW max / min",
+            "compression factor",
+            "tension yield factor",
+            "tension fracture factor",
+            "φc·φs as applied",
+            "clause",
+        ]);
+        let rows = m
+            .design_levels
+            .iter()
+            .map(|l| (l, "design loads"))
+            .chain(m.legal_levels.iter().map(|l| (l, "legal loads")));
+        for (l, what) in rows {
+            tb.row(
+                "",
+                vec![
+                    t(l.name),
+                    t(what),
+                    n(l.gamma_live, 3),
+                    t(&format!("{} / {}", sig(l.dc.max, 3), sig(l.dc.min, 3))),
+                    t(&format!("{} / {}", sig(l.dw.max, 3), sig(l.dw.min, 3))),
+                    n(l.resistance.compression, 4),
+                    n(l.resistance.tension_yield, 4),
+                    n(l.resistance.tension_fracture, 4),
+                    n(m.condition_system(l), 3),
+                    t(l.clause),
+                ],
+            );
+        }
+        tb.html(h);
+    }
     h.push_str("</section>\n");
 }
 
@@ -716,8 +775,10 @@ fn checks(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: &S
     };
     let _ = writeln!(
         h,
-        "<p>Column curve: <strong>{}</strong>. Each member is checked on its governing axis (the larger of KL/r in and out of plane) in compression, and on gross-section yield and net-section fracture in tension.</p>",
-        esc(&r.curve.name())
+        "<p>Rating method: <strong>{}</strong>. Each member is checked on its governing axis (the larger of KL/r in and out of plane) in compression, and on gross-section yield and net-section fracture in tension. The capacity C is the method's factor ({}) on the nominal strength{}. Rows marked “service” are unfactored effects shown against C for information; they are not strength checks and are not counted.</p>",
+        esc(&r.method.name),
+        esc(r.method.check.symbol),
+        if r.method.family == crate::method::Family::Lrfr { ", times φc·φs (MBE Eq. 6A.4.2.1-2)" } else { "" }
     );
     h.push_str("<h3>Capacity of each member: inputs, formula and clause</h3>\n");
     let au = format!("A {}²", s.disp_name);
@@ -770,18 +831,18 @@ fn checks(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: &S
                         esc(cap.compression.check.formula)
                     ),
                 ),
-                t(cap.compression.check.clause),
+                t(cap.compression.clause),
                 n(cap.compression.capacity / s.force, 4),
                 n(cap.tension_capacity / s.force, 4),
-                t(cap.tension.governs),
-                t(cap.tension.clause),
+                t(cap.tension_governs),
+                t(cap.tension_clause),
             ],
         );
     }
     tb.html(h);
     let _ = writeln!(
         h,
-        r#"<p class="note">Fe = π²E/(KL/r)² (Euler). Fcr is the curve's nominal critical stress; the design capacity applies the curve's resistance or safety factor to Fcr·A. Tension: min(yield on gross area, fracture on net area), with the factors of the clause shown. Capacities before the condition and system factors, which enter the rating factors only.</p>"#
+        r#"<p class="note">Fe = π²E/(KL/r)² (Euler). Fcr is the curve's nominal critical stress; the design capacity applies the curve's resistance or safety factor to Fcr·A. Tension: min(yield on gross area, fracture on net area), with the factors of the clause shown. Capacities include the condition and system factors where the method applies them (LRFR: φc·φs ≥ 0.85).</p>"#
     );
 
     h.push_str("<h3>Every check, highest utilization first</h3>\n");
@@ -856,23 +917,31 @@ fn ratings(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: &
         h.push_str("<p>None: the model declares no Live load case (set kind: Live, and kind: Dead on dead cases).</p></section>\n");
         return;
     }
-    h.push_str("<p>RF = (φc·φs·C − γD·D) / (γL·(L + IM)), C the design capacity in the sense of the live force, D the sum of the Dead cases.</p>\n");
+    let _ = writeln!(
+        h,
+        "<p>{} Each permanent-load factor is at its maximum where that load adds to the live effect and at its minimum where it relieves it. One row per member, live load and level, lowest first.</p>",
+        esc(r.method.equation)
+    );
     let idx = super::rate_rows::by_rating(r);
-    let du = format!("dead {}", s.force_name);
-    let lu = format!("live + IM {}", s.force_name);
-    let cu = format!("capacity {}", s.force_name);
+    let dcu = format!("DC {}", s.force_name);
+    let dwu = format!("DW {}", s.force_name);
+    let lu = format!("LL + IM {}", s.force_name);
+    let cu = format!("C = φc·φs·φ·Rn {}", s.force_name);
     let mut tb = HTable::new(&[
         "member",
-        "live case",
-        &du,
+        "live load",
+        "level",
+        &dcu,
+        &dwu,
         &lu,
         &cu,
-        "RF inventory",
-        "RF operating",
+        "governs",
+        "factors",
+        "RF",
     ]);
     for &i in &idx {
-        let mr = &r.ratings[i];
-        let class = if mr.inventory.is_some_and(|v| v < 1.0) {
+        let row = super::rate_rows::rating_row(model, r, &r.ratings[i]);
+        let class = if row.rf.is_some_and(|v| v < 1.0) {
             "fails"
         } else {
             ""
@@ -880,13 +949,16 @@ fn ratings(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: &
         tb.row(
             class,
             vec![
-                t(&model.members[mr.member].id),
-                t(&mr.live_id),
-                n(mr.dead / s.force, 4),
-                n(mr.live / s.force, 4),
-                n(mr.capacity / s.force, 4),
-                on(mr.inventory, 3),
-                on(mr.operating, 3),
+                t(row.member),
+                t(row.live),
+                t(row.level),
+                n(row.dc, 4),
+                n(row.dw, 4),
+                n(row.live_force, 4),
+                n(row.capacity, 4),
+                t(row.governs),
+                t(&row.factors),
+                on(row.rf, 3),
             ],
         );
     }

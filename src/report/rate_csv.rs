@@ -1,8 +1,10 @@
 //! `panelpoint rate --format csv`: one row per member and load case or
-//! combination, units in the headers.
+//! combination, units in the headers; then, after a blank line, one row
+//! per member, live load and rating level with every factor; then, after
+//! another blank line, the postings of legal loads (when there are any).
 
 use super::csv::{field, num};
-use super::rate_rows::{by_utilization, check_row};
+use super::rate_rows::{by_rating, by_utilization, check_row, posting_view, rating_row};
 use super::Scale;
 use crate::model::Model;
 use crate::rate::Rating;
@@ -12,16 +14,16 @@ pub fn rate(w: &mut dyn Write, model: &Model, rating: &Rating) -> io::Result<()>
     let s = Scale::of(model);
     writeln!(
         w,
-        "member,case,force_{f},stress_{st},axis,slenderness,euler_stress_{st},critical_stress_{st},capacity_{f},utilization,margin,regime,rating_factor,curve,clause",
+        "member,case,force_{f},stress_{st},axis,slenderness,euler_stress_{st},critical_stress_{st},capacity_{f},utilization,margin,regime,rating_factor,method,service,clause",
         f = s.force_name,
         st = s.stress_name
     )?;
-    let curve = rating.curve.name();
+    let method = &rating.method.name;
     for i in by_utilization(rating) {
         let r = check_row(model, rating, &rating.checks[i]);
         writeln!(
             w,
-            "{},{},{},{},{},{},{},{},{},{},{},{},{},{},{}",
+            "{},{},{},{},{},{},{},{},{},{},{},{},{},{},{},{}",
             field(r.member),
             field(r.case),
             num(r.force),
@@ -35,9 +37,69 @@ pub fn rate(w: &mut dyn Write, model: &Model, rating: &Rating) -> io::Result<()>
             r.margin.map_or(String::new(), num),
             r.regime,
             r.rating_factor.map_or(String::new(), num),
-            field(&curve),
+            field(method),
+            r.service,
             field(r.clause)
         )?;
+    }
+    if !rating.ratings.is_empty() {
+        writeln!(
+            w,
+            "\nmember,live_load,level,rf,dc_{f},dw_{f},live_with_impact_{f},capacity_{f},nominal_{f},governs,gamma_dc,gamma_dw,gamma_live,phi,phi_c,phi_s,phi_cs,rp,u,position,clause",
+            f = s.force_name
+        )?;
+        for i in by_rating(rating) {
+            let mr = &rating.ratings[i];
+            let r = rating_row(model, rating, mr);
+            writeln!(
+                w,
+                "{},{},{},{},{},{},{},{},{},{},{},{},{},{},{},{},{},{},{},{},{}",
+                field(r.member),
+                field(r.live),
+                r.level,
+                r.rf.map_or(String::new(), num),
+                num(r.dc),
+                num(r.dw),
+                num(r.live_force),
+                num(r.capacity),
+                num(r.nominal),
+                r.governs,
+                num(mr.gamma_dc),
+                num(mr.gamma_dw),
+                num(mr.gamma_live),
+                num(mr.phi),
+                num(mr.phi_c),
+                num(mr.phi_s),
+                num(mr.phi_cs),
+                num(mr.rp),
+                num(mr.u),
+                field(r.at.unwrap_or("")),
+                field(r.clause)
+            )?;
+        }
+    }
+    if !rating.postings.is_empty() {
+        writeln!(
+            w,
+            "\nvehicle,weight_{f},weight_tons,rf,member,posting_{f},posting_tons,verdict,clause",
+            f = s.force_name
+        )?;
+        for p in &rating.postings {
+            let v = posting_view(model, p);
+            writeln!(
+                w,
+                "{},{},{},{},{},{},{},{},{}",
+                field(v.vehicle),
+                num(v.weight),
+                num(v.weight_tons),
+                num(v.rf),
+                field(v.member),
+                v.posting.flatten().map_or(String::new(), num),
+                v.posting_tons.map_or(String::new(), num),
+                field(&super::rate_rows::posting_words(&v)),
+                field(v.clause)
+            )?;
+        }
     }
     Ok(())
 }

@@ -3,7 +3,6 @@
 
 use super::json::{num, string, write_cases, write_header};
 use super::rate_rows::check_row;
-use super::Scale;
 use crate::analysis::Analysis;
 use crate::input::Diagnostic;
 use crate::model::Model;
@@ -21,13 +20,49 @@ pub fn rate(
     rating: &Rating,
     warnings: &[Diagnostic],
 ) -> io::Result<()> {
-    let s = Scale::of(model);
     write_header(w, model, warnings, &analysis.warnings)?;
     write_cases(w, model, analysis)?;
+    let m = &rating.method;
     write!(
         w,
-        ",\"curve\":{},\"checks\":[",
-        string(&rating.curve.name())
+        ",\"method\":{},\"equation\":{},\"levels\":[",
+        string(&m.name),
+        string(m.equation)
+    )?;
+    let levels: Vec<_> = m
+        .design_levels
+        .iter()
+        .map(|l| (l, false))
+        .chain(m.legal_levels.iter().map(|l| (l, true)))
+        .collect();
+    for (i, (l, legal)) in levels.iter().enumerate() {
+        if i > 0 {
+            w.write_all(b",")?;
+        }
+        write!(
+            w,
+            "{{\"level\":{},\"for_legal_loads\":{},\"gamma_live\":{},\"gamma_dc_max\":{},\"gamma_dc_min\":{},\"gamma_dw_max\":{},\"gamma_dw_min\":{},\"phi_compression\":{},\"phi_tension_yield\":{},\"phi_tension_fracture\":{},\"phi_cs\":{},\"clause\":{}}}",
+            string(l.name),
+            legal,
+            num(l.gamma_live),
+            num(l.dc.max),
+            num(l.dc.min),
+            num(l.dw.max),
+            num(l.dw.min),
+            num(l.resistance.compression),
+            num(l.resistance.tension_yield),
+            num(l.resistance.tension_fracture),
+            num(m.condition_system(l)),
+            string(l.clause)
+        )?;
+    }
+    write!(
+        w,
+        "],\"phi_c\":{},\"phi_s\":{},\"compression_clause\":{},\"tension_clause\":{},\"checks\":[",
+        num(m.phi_c),
+        num(m.phi_s),
+        string(m.check.compression_clause),
+        string(m.check.tension_clause)
     )?;
     for (i, c) in rating.checks.iter().enumerate() {
         if i > 0 {
@@ -36,7 +71,7 @@ pub fn rate(
         let r = check_row(model, rating, c);
         write!(
             w,
-            "{{\"member\":{},\"case\":{},\"force\":{},\"stress\":{},\"axis\":{},\"slenderness\":{},\"slenderness_in\":{},\"slenderness_out\":{},\"euler_stress\":{},\"critical_stress\":{},\"capacity\":{},\"utilization\":{},\"margin\":{},\"regime\":{},\"rating_factor\":{},\"clause\":{},\"formula\":{}}}",
+            "{{\"member\":{},\"case\":{},\"force\":{},\"stress\":{},\"axis\":{},\"slenderness\":{},\"slenderness_in\":{},\"slenderness_out\":{},\"euler_stress\":{},\"critical_stress\":{},\"capacity\":{},\"utilization\":{},\"margin\":{},\"regime\":{},\"rating_factor\":{},\"service\":{},\"clause\":{},\"formula\":{}}}",
             string(r.member),
             string(r.case),
             num(r.force),
@@ -52,6 +87,7 @@ pub fn rate(
             opt(r.margin),
             string(r.regime),
             opt(r.rating_factor),
+            r.service,
             string(r.clause),
             string(r.formula),
         )?;
@@ -71,21 +107,37 @@ pub fn rate(
         None => w.write_all(b"null")?,
     }
     w.write_all(b",\"ratings\":[")?;
-    for (i, r) in rating.ratings.iter().enumerate() {
+    for (i, mr) in rating.ratings.iter().enumerate() {
         if i > 0 {
             w.write_all(b",")?;
         }
+        let r = super::rate_rows::rating_row(model, rating, mr);
         write!(
             w,
-            "{{\"member\":{},\"live_case\":{},\"dead\":{},\"live_with_impact\":{},\"capacity\":{},\"inventory\":{},\"operating\":{},\"position\":{}}}",
-            string(&model.members[r.member].id),
-            string(&r.live_id),
-            num(r.dead / s.force),
-            num(r.live / s.force),
-            num(r.capacity / s.force),
-            opt(r.inventory),
-            opt(r.operating),
-            r.at.as_ref().map_or("null".into(), |a| string(a))
+            "{{\"member\":{},\"live_case\":{},\"legal\":{},\"level\":{},\"rf\":{},\"capacity\":{},\"nominal\":{},\"governs\":{},\"dead\":{},\"dead_dc\":{},\"dead_dw\":{},\"live_with_impact\":{},\"gamma_dead\":{},\"gamma_dw\":{},\"gamma_live\":{},\"phi\":{},\"phi_c\":{},\"phi_s\":{},\"phi_cs\":{},\"rp\":{},\"u\":{},\"clause\":{},\"position\":{}}}",
+            string(r.member),
+            string(r.live),
+            mr.legal,
+            string(r.level),
+            opt(r.rf),
+            num(r.capacity),
+            num(r.nominal),
+            string(r.governs),
+            num(r.dc + r.dw),
+            num(r.dc),
+            num(r.dw),
+            num(r.live_force),
+            num(mr.gamma_dc),
+            num(mr.gamma_dw),
+            num(mr.gamma_live),
+            num(mr.phi),
+            num(mr.phi_c),
+            num(mr.phi_s),
+            num(mr.phi_cs),
+            num(mr.rp),
+            num(mr.u),
+            string(r.clause),
+            r.at.map_or("null".into(), string)
         )?;
     }
     w.write_all(b"],\"lowest_rating\":")?;
@@ -94,15 +146,51 @@ pub fn rate(
             let r = &rating.ratings[i];
             write!(
                 w,
-                "{{\"member\":{},\"live_case\":{},\"inventory\":{},\"operating\":{}}}",
+                "{{\"member\":{},\"live_case\":{},\"level\":{},\"rf\":{}}}",
                 string(&model.members[r.member].id),
                 string(&r.live_id),
-                opt(r.inventory),
-                opt(r.operating)
+                string(r.level),
+                opt(r.rf)
             )?;
         }
         None => w.write_all(b"null")?,
     }
+    w.write_all(b",\"controlling_by_level\":[")?;
+    for (k, &(level, i)) in rating.lowest_by_level.iter().enumerate() {
+        if k > 0 {
+            w.write_all(b",")?;
+        }
+        let r = &rating.ratings[i];
+        write!(
+            w,
+            "{{\"level\":{},\"member\":{},\"live_case\":{},\"rf\":{}}}",
+            string(level),
+            string(&model.members[r.member].id),
+            string(&r.live_id),
+            opt(r.rf)
+        )?;
+    }
+    w.write_all(b"],\"postings\":[")?;
+    for (k, p) in rating.postings.iter().enumerate() {
+        if k > 0 {
+            w.write_all(b",")?;
+        }
+        let v = super::rate_rows::posting_view(model, p);
+        write!(
+            w,
+            "{{\"vehicle\":{},\"weight\":{},\"weight_tons\":{},\"rf\":{},\"member\":{},\"posting\":{},\"posting_tons\":{},\"restrict_or_close\":{},\"clause\":{}}}",
+            string(v.vehicle),
+            num(v.weight),
+            num(v.weight_tons),
+            num(v.rf),
+            string(v.member),
+            opt(v.posting.flatten()),
+            opt(v.posting_tons),
+            v.posting == Some(None),
+            string(v.clause)
+        )?;
+    }
+    w.write_all(b"]")?;
     w.write_all(b",\"notes\":[")?;
     for (i, n) in rating.notes.iter().enumerate() {
         if i > 0 {

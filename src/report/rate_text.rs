@@ -50,7 +50,8 @@ pub fn rate_term(
 ) -> io::Result<()> {
     header(w, model, "rate", warnings, &analysis.warnings)?;
     let s = Scale::of(model);
-    writeln!(w, "Column curve: {}", rating.curve.name())?;
+    let method = &rating.method;
+    writeln!(w, "Rating method: {} — {}", method.name, method.equation)?;
     if let Some(i) = rating.controlling {
         let r = check_row(model, rating, &rating.checks[i]);
         let verdict = if r.utilization > 1.0 {
@@ -72,36 +73,74 @@ pub fn rate_term(
             r.clause
         )?;
     }
-    if let Some(i) = rating.lowest {
-        let r = &rating.ratings[i];
+    if rating.lowest_by_level.is_empty() {
+        if method.rates {
+            writeln!(
+                w,
+                "No rating factors: the model declares no Live load case or moving load (set kind: Live, and kind: Dead on dead cases)."
+            )?;
+        } else {
+            writeln!(
+                w,
+                "No rating factors: \"{}\" is a screening curve; give rating.safety_factor to rate with it.",
+                method.name
+            )?;
+        }
+    }
+    for &(level, i) in &rating.lowest_by_level {
+        let r = super::rate_rows::rating_row(model, rating, &rating.ratings[i]);
         writeln!(
             w,
-            "Lowest rating factor: {} (inventory), {} (operating) — member {} for live load \"{}\"{}",
-            opt(r.inventory, 3),
-            opt(r.operating, 3),
-            model.members[r.member].id,
-            r.live_id,
-            r.at.as_ref().map_or(String::new(), |a| format!(", {a}"))
-        )?;
-    } else {
-        writeln!(
-            w,
-            "No rating factors: the model declares no Live load case (set kind: Live, and kind: Dead on dead cases)."
+            "Lowest rating factor, {level}: {} — member {} for live load \"{}\"{} ({})",
+            opt(r.rf, 3),
+            r.member,
+            r.live,
+            r.at.map_or(String::new(), |a| format!(", {a}")),
+            r.factors
         )?;
     }
-    let failing = rating.checks.iter().filter(|c| c.utilization > 1.0).count();
+    for p in &rating.postings {
+        let v = super::rate_rows::posting_view(model, p);
+        writeln!(
+            w,
+            "Legal load \"{}\" (W = {} {}, {} {}): lowest RF {} at member {}: {} [{}]",
+            v.vehicle,
+            sig(v.weight, 4),
+            s.force_name,
+            sig(v.weight_tons, 3),
+            v.ton_name,
+            sig(v.rf, 3),
+            v.member,
+            super::rate_rows::posting_words(&v),
+            v.clause
+        )?;
+    }
+    let failing = rating.failing();
     if failing > 0 {
         let line = format!("{failing} check(s) exceed capacity (utilization > 1).");
         writeln!(w, "{}", term.paint(&line, Mark::Fail))?;
+    }
+    let service = rating.checks.iter().filter(|c| c.service).count();
+    if service > 0 {
+        writeln!(
+            w,
+            "{}",
+            if method.checks_service() {
+                "Rows marked \"factored\" are factored combinations shown against the allowable resistance for information; they are not this method's check and are not counted."
+            } else {
+                "Rows marked \"service\" are unfactored effects (single cases, dead + moving load) shown against the factored resistance for information; they are not strength checks and are not counted."
+            }
+        )?;
     }
 
     writeln!(w, "\n== Checks, highest utilization first ==")?;
     let fu = format!("force {}", s.force_name);
     let eu = format!("Fe {}", s.stress_name);
     let cu = format!("Fcr {}", s.stress_name);
-    let pu = format!("capacity {}", s.force_name);
+    let pu = format!("C {}", s.force_name);
+    let rf_head = format!("RF {}", method.primary_level());
     let mut t = Table::new(&[
-        "member", "case", &fu, "axis", "KL/r", &eu, &cu, "regime", &pu, "util", "margin", "RF inv",
+        "member", "case", &fu, "axis", "KL/r", &eu, &cu, "regime", &pu, "util", "margin", &rf_head,
     ]);
     let order = by_utilization(rating);
     let limit = if all_rows {
@@ -111,7 +150,7 @@ pub fn rate_term(
     };
     for (k, &i) in order[..limit].iter().enumerate() {
         let r = check_row(model, rating, &rating.checks[i]);
-        let mark = if r.utilization > 1.0 {
+        let mark = if r.utilization > 1.0 && !r.service {
             Mark::Fail
         } else if k == 0 {
             Mark::Strong
@@ -121,7 +160,11 @@ pub fn rate_term(
         t.row_marked(
             vec![
                 r.member.into(),
-                r.case.into(),
+                if r.service {
+                    format!("{} [{}]", r.case, r.label)
+                } else {
+                    r.case.into()
+                },
                 sig(r.force, 4),
                 r.axis.into(),
                 sig(r.slenderness, 4),
@@ -149,17 +192,20 @@ pub fn rate_term(
     if !rating.ratings.is_empty() {
         writeln!(w, "\n== Rating factors, lowest first ==")?;
         let idx = super::rate_rows::by_rating(rating);
-        let du = format!("dead {}", s.force_name);
-        let lu = format!("live+IM {}", s.force_name);
-        let cu = format!("capacity {}", s.force_name);
+        let dcu = format!("DC {}", s.force_name);
+        let dwu = format!("DW {}", s.force_name);
+        let lu = format!("LL+IM {}", s.force_name);
+        let cu = format!("C {}", s.force_name);
         let mut t = Table::new(&[
             "member",
-            "live case",
-            &du,
+            "live load",
+            "level",
+            &dcu,
+            &dwu,
             &lu,
             &cu,
-            "RF inventory",
-            "RF operating",
+            "RF",
+            "factors",
         ]);
         let limit = if all_rows {
             idx.len()
@@ -167,18 +213,28 @@ pub fn rate_term(
             idx.len().min(25)
         };
         for &i in &idx[..limit] {
-            let r = &rating.ratings[i];
+            let r = super::rate_rows::rating_row(model, rating, &rating.ratings[i]);
             t.row(vec![
-                model.members[r.member].id.to_string(),
-                r.live_id.clone(),
-                sig(r.dead / s.force, 4),
-                sig(r.live / s.force, 4),
-                sig(r.capacity / s.force, 4),
-                opt(r.inventory, 3),
-                opt(r.operating, 3),
+                r.member.to_string(),
+                r.live.to_string(),
+                r.level.to_string(),
+                sig(r.dc, 4),
+                sig(r.dw, 4),
+                sig(r.live_force, 4),
+                sig(r.capacity, 4),
+                opt(r.rf, 3),
+                r.factors,
             ]);
         }
+        t.optional(&["factors", dwu.as_str()]);
         write!(w, "{}", t.render_for(term))?;
+        if limit < idx.len() {
+            writeln!(
+                w,
+                "({} more rows; --all shows every row, --format csv gives them all)",
+                idx.len() - limit
+            )?;
+        }
     }
     if !rating.notes.is_empty() {
         writeln!(w, "\nNotes:")?;
@@ -188,7 +244,12 @@ pub fn rate_term(
     }
     writeln!(
         w,
-        "\nutil = |force| / design capacity; margin = critical stress / |stress| (factor of safety against buckling, or against yield/fracture in tension); RF = (φC − γD·D) / (γL·(L + IM))."
+        "\nutil = |force| / C, C the resistance of the method ({} on the nominal strength{}); margin = critical stress / |stress| (factor of safety against buckling, or against yield/fracture in tension); {}.\nCompression: {}\nTension: {}",
+        method.check.symbol,
+        if method.family == crate::method::Family::Lrfr { ", times φc·φs" } else { "" },
+        method.equation,
+        method.check.compression_clause,
+        method.check.tension_clause
     )?;
     Ok(())
 }

@@ -231,11 +231,13 @@ fn capacity_per_length(
         member: mem.id.to_string(),
         source,
     };
-    let curve: &Curve = &rating.curve;
+    let curve: &Curve = &rating.method.curve;
     let hi = capacity::column(curve, cap.fy, cap.e, lambda + h).map_err(err)?;
     let lo = capacity::column(curve, cap.fy, cap.e, (lambda - h).max(0.0)).map_err(err)?;
-    let dfdl = (hi.design_stress - lo.design_stress) / (lambda + h - (lambda - h).max(0.0));
-    Ok(sec.area * dfdl * k / r)
+    let dfdl = (hi.critical_stress - lo.critical_stress) / (lambda + h - (lambda - h).max(0.0));
+    // The method's factors on the nominal strength (φ, φc·φs, 1/FS).
+    let factor = cap.compression.capacity / cap.compression.nominal;
+    Ok(sec.area * factor * dfdl * k / r)
 }
 
 /// Both gradients for the controlling check (or the worst check of

@@ -23,7 +23,7 @@ use crate::analysis::dofs::Dofs;
 use crate::analysis::results::{AnalysisError, Prepared};
 use crate::analysis::solve::Symbolic;
 use crate::analysis::CaseResult;
-use crate::capacity::Curve;
+use crate::method::Method;
 use crate::model::Model;
 use crate::rate::{self, Rating};
 use std::collections::BTreeMap;
@@ -35,7 +35,7 @@ pub const CHUNK: usize = 32;
 
 #[derive(Clone, Debug)]
 pub struct RunOptions {
-    pub curve: Curve,
+    pub method: Method,
     /// Worker threads; None: one per core.
     pub jobs: Option<usize>,
     /// Keep per-member results in each outcome.
@@ -307,7 +307,8 @@ pub fn summarise(
 ) -> Result<Outcome, String> {
     // Moving loads are rolled on each variant's own stiffness.
     let envelopes = rate::moving_envelopes(model, prepared).map_err(|e| e.to_string())?;
-    let r = rate::rate_results(model, cases, opts.curve, &envelopes).map_err(|e| e.to_string())?;
+    let r = rate::rate_results(model, cases, opts.method.clone(), &envelopes)
+        .map_err(|e| e.to_string())?;
     Ok(outcome(model, cases, &r, opts.detail))
 }
 
@@ -336,8 +337,8 @@ fn outcome(model: &Model, cases: &[CaseResult], r: &Rating, detail: bool) -> Out
             let rf = r
                 .ratings
                 .iter()
-                .filter(|x| x.member == m)
-                .filter_map(|x| x.inventory)
+                .filter(|x| x.member == m && x.level == r.method.primary_level())
+                .filter_map(|x| x.rf)
                 .min_by(f64::total_cmp);
             members.push(MemberDetail {
                 member: mem.id.to_string(),
@@ -351,7 +352,7 @@ fn outcome(model: &Model, cases: &[CaseResult], r: &Rating, detail: bool) -> Out
         max_utilization: ctrl.map(|c| c.utilization),
         controlling_member: ctrl.map(|c| model.members[c.member].id.to_string()),
         controlling_case: ctrl.map(|c| r.effects[c.effect].id.clone()),
-        lowest_rating_factor: low.and_then(|l| l.inventory),
+        lowest_rating_factor: low.and_then(|l| l.rf),
         rating_member: low.map(|l| model.members[l.member].id.to_string()),
         rating_case: low.map(|l| l.live_id.clone()),
         max_deflection: max_def,

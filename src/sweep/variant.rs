@@ -104,6 +104,7 @@ fn apply_one(m: &mut Model, change: &Change) -> Result<(), VariantError> {
                 id: add.id.clone(),
                 kind: add.kind,
                 impact: add.impact,
+                legal: false,
                 nodal,
                 settlements: vec![],
                 elongations: vec![],
