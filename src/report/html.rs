@@ -7,8 +7,9 @@
 //! checks with clause, formula and inputs, rating factors, sections,
 //! cautions.
 
+use super::html_table::{esc, n, on, t, HTable};
 use super::rate_rows::{by_utilization, check_row};
-use super::svg::{self, esc, Drawing, Effect, Show};
+use super::svg::{self, Drawing, Effect, Show};
 use super::table::sig;
 use super::{Scale, CAUTION};
 use crate::analysis::Analysis;
@@ -70,58 +71,6 @@ footer { margin-top: 30px; border-top: 1px solid var(--ink); padding-top: 8px; f
   figure svg { border: none; }
 }
 "#;
-
-/// A table under construction: header cells, then rows of (class, cells);
-/// a cell is (is_number, already-escaped HTML).
-struct HTable {
-    head: Vec<String>,
-    rows: Vec<(String, Vec<(bool, String)>)>,
-}
-
-impl HTable {
-    fn new(head: &[&str]) -> HTable {
-        HTable {
-            head: head.iter().map(|h| esc(h)).collect(),
-            rows: Vec::new(),
-        }
-    }
-    fn row(&mut self, class: &str, cells: Vec<(bool, String)>) {
-        self.rows.push((class.to_string(), cells));
-    }
-    fn html(&self, out: &mut String) {
-        out.push_str("<div class=\"wide\"><table>\n<thead><tr>");
-        for h in &self.head {
-            let _ = write!(out, "<th>{h}</th>");
-        }
-        out.push_str("</tr></thead>\n<tbody>\n");
-        for (class, cells) in &self.rows {
-            if class.is_empty() {
-                out.push_str("<tr>");
-            } else {
-                let _ = write!(out, r#"<tr class="{class}">"#);
-            }
-            for (num, c) in cells {
-                if *num {
-                    let _ = write!(out, r#"<td class="n">{c}</td>"#);
-                } else {
-                    let _ = write!(out, "<td>{c}</td>");
-                }
-            }
-            out.push_str("</tr>\n");
-        }
-        out.push_str("</tbody>\n</table></div>\n");
-    }
-}
-
-fn t(s: &str) -> (bool, String) {
-    (false, esc(s))
-}
-fn n(v: f64, d: usize) -> (bool, String) {
-    (true, esc(&sig(v, d)))
-}
-fn on(v: Option<f64>, d: usize) -> (bool, String) {
-    (true, v.map_or("-".into(), |v| esc(&sig(v, d))))
-}
 
 /// A utilization bar with its value; the tick marks 1.0 on a 0–1.5 scale.
 fn ubar(u: f64, big: bool) -> String {
@@ -201,25 +150,33 @@ pub fn report(
     h.push_str("</header>\n<nav><strong>Contents</strong><ol>");
     for (id, name) in [
         ("summary", "Summary"),
+        ("moving", "Moving loads"),
+        ("ratings", "Rating factors"),
+        ("checks", "Capacity of each member"),
         ("drawings", "Drawings"),
         ("model", "Model"),
         ("results", "Results per load case and combination"),
-        ("checks", "Capacity checks"),
-        ("ratings", "Rating factors"),
         ("sections", "Sections"),
+        ("appendix", "Appendix: every check"),
         ("cautions", "Cautions"),
     ] {
+        if id == "moving" && model.live.moving.is_empty() {
+            continue;
+        }
         let _ = write!(h, r##"<li><a href="#{id}">{name}</a></li>"##);
     }
     h.push_str("</ol></nav>\n");
 
     summary(&mut h, model, analysis, &rating, warnings, &s);
+    summary_drawing(&mut h, model, rating.as_ref().ok().copied());
+    super::html_loads::moving_loads(&mut h, model, rating.as_ref().ok().copied(), &s);
+    ratings(&mut h, model, &rating, &s);
+    checks(&mut h, model, &rating, &s);
     drawings(&mut h, model, &effects, rating.as_ref().ok().copied());
     model_tables(&mut h, model, &s);
     results(&mut h, model, analysis, &effects, &s);
-    checks(&mut h, model, &rating, &s);
-    ratings(&mut h, model, &rating, &s);
     sections(&mut h, model, &s);
+    appendix(&mut h, model, &rating, &s);
 
     h.push_str(r#"<section class="major" id="cautions"><h2>Cautions</h2>"#);
     let _ = writeln!(h, "<p><strong>{}</strong></p>", esc(CAUTION));
@@ -386,7 +343,7 @@ fn summary(
         }
         h.push_str("</ul>\n");
     }
-    h.push_str("</section>\n");
+    // The section is closed by `summary_drawing`.
 }
 
 fn figure(h: &mut String, svg_text: &str, caption: &str) {
@@ -398,6 +355,21 @@ fn figure(h: &mut String, svg_text: &str, caption: &str) {
     );
 }
 
+/// The summary page's drawing: utilization of every member (or the model
+/// when no checks were made), so the first page answers the owner alone.
+fn summary_drawing(h: &mut String, model: &Model, rating: Option<&Rating>) {
+    if let Some(r) = rating {
+        let mut d = Drawing::new(model, Show::Utilization);
+        d.rating = Some(r);
+        figure(
+            h,
+            &svg::draw(&d),
+            "Utilization of each member: the highest of every counted check (strength combinations, or the method's own service checks).",
+        );
+    }
+    h.push_str("</section>\n");
+}
+
 fn drawings(h: &mut String, model: &Model, effects: &[Effect], rating: Option<&Rating>) {
     h.push_str(r#"<section class="major" id="drawings"><h2>Drawings</h2>"#);
     let mut d = Drawing::new(model, Show::Model);
@@ -407,7 +379,7 @@ fn drawings(h: &mut String, model: &Model, effects: &[Effect], rating: Option<&R
         &svg::draw(&d),
         "The model to scale: node and member labels, supports, and the loads of the first load case.",
     );
-    h.push_str("<h3>Member forces</h3>\n");
+    h.push_str("<h3>Member forces</h3>\n<details><summary>Member forces of each load case and combination (open to read or print)</summary>\n");
     for e in effects {
         let mut d = Drawing::new(model, Show::Forces);
         d.effect = Some(e);
@@ -421,6 +393,7 @@ fn drawings(h: &mut String, model: &Model, effects: &[Effect], rating: Option<&R
             ),
         );
     }
+    h.push_str("</details>\n");
     if let Some(r) = rating {
         h.push_str("<h3>Utilization</h3>\n");
         let mut d = Drawing::new(model, Show::Utilization);
@@ -431,7 +404,7 @@ fn drawings(h: &mut String, model: &Model, effects: &[Effect], rating: Option<&R
             "Utilization, the highest of every load case and combination for each member.",
         );
     }
-    h.push_str("<h3>Deflected shape</h3>\n");
+    h.push_str("<h3>Deflected shape</h3>\n<details><summary>Deflected shape of each load case and combination (open to read or print)</summary>\n");
     for e in effects {
         let mut d = Drawing::new(model, Show::Deflection);
         d.effect = Some(e);
@@ -449,7 +422,7 @@ fn drawings(h: &mut String, model: &Model, effects: &[Effect], rating: Option<&R
             ),
         );
     }
-    h.push_str("</section>\n");
+    h.push_str("</details>\n</section>\n");
 }
 
 fn model_tables(h: &mut String, model: &Model, s: &Scale) {
@@ -497,7 +470,9 @@ fn model_tables(h: &mut String, model: &Model, s: &Scale) {
     let eu = format!("E {}", s.stress_name);
     let fyu = format!("Fy {}", s.stress_name);
     let fuu = format!("Fu {}", s.stress_name);
-    let mut tb = HTable::new(&["material", &eu, &fyu, &fuu, "density N/m³", "α per degree"]);
+    let du = format!("density {}/{}³", s.force_name, s.length_name);
+    let density_unit = s.force / s.length.powi(3);
+    let mut tb = HTable::new(&["material", &eu, &fyu, &fuu, &du, "α per degree"]);
     for mat in &model.materials {
         tb.row(
             "",
@@ -506,7 +481,7 @@ fn model_tables(h: &mut String, model: &Model, s: &Scale) {
                 n(mat.e / s.stress, 5),
                 on(mat.fy.map(|v| v / s.stress), 4),
                 on(mat.fu.map(|v| v / s.stress), 4),
-                on(mat.density, 4),
+                on(mat.density.map(|d| d / density_unit), 4),
                 on(mat.alpha, 3),
             ],
         );
@@ -608,6 +583,13 @@ fn model_tables(h: &mut String, model: &Model, s: &Scale) {
                 .factors
                 .iter()
                 .map(|&(ci, f)| format!("{} × “{}”", sig(f, 4), model.cases[ci].id))
+                .chain(c.moving.iter().map(|&(k, f)| {
+                    format!(
+                        "{} × moving load “{}” (its envelope, impact included: greatest tension and greatest compression of each member)",
+                        sig(f, 4),
+                        model.live.moving[k].id
+                    )
+                }))
                 .collect();
             tb.row("", vec![t(&c.id), t(&terms.join(" + "))]);
         }
@@ -674,7 +656,7 @@ fn results(h: &mut String, model: &Model, analysis: &Analysis, effects: &[Effect
     for (k, e) in effects.iter().enumerate() {
         let _ = writeln!(
             h,
-            "<h3>{} “{}”</h3>",
+            "<details><summary><strong>{} “{}”</strong> (open to read or print)</summary>",
             if e.combination {
                 "Combination"
             } else {
@@ -747,25 +729,61 @@ fn results(h: &mut String, model: &Model, analysis: &Analysis, effects: &[Effect
         }
         tb.html(h);
         if let Some(c) = (!e.combination).then(|| analysis.cases.get(k)).flatten() {
+            // Sums below 1e-9 of the largest are round-off: shown as 0.
+            let big = c
+                .load_sum
+                .iter()
+                .chain(&c.reaction_sum)
+                .fold(0.0f64, |a, v| a.max(v.abs()));
+            let show = |v: f64| {
+                if v.abs() <= 1e-9 * big {
+                    "0".to_string()
+                } else {
+                    sig(v / s.force, 5)
+                }
+            };
+            let residual = if c.relative_residual < 1e-9 {
+                "below 10⁻⁹ of the largest force".to_string()
+            } else {
+                format!(
+                    "{} {} ({} of the largest force)",
+                    sig(c.residual / s.force, 2),
+                    s.force_name,
+                    sig(c.relative_residual, 2)
+                )
+            };
             let _ = writeln!(
                 h,
-                r#"<p class="note">Equilibrium: largest |K·u − f| = {} {} ({} of the largest force); loads ({}, {}) {f}, reactions ({}, {}) {f}.</p>"#,
-                esc(&sig(c.residual / s.force, 2)),
-                esc(s.force_name),
-                esc(&sig(c.relative_residual, 2)),
-                esc(&sig(c.load_sum[0] / s.force, 5)),
-                esc(&sig(c.load_sum[1] / s.force, 5)),
-                esc(&sig(c.reaction_sum[0] / s.force, 5)),
-                esc(&sig(c.reaction_sum[1] / s.force, 5)),
+                r#"<p class="note">Equilibrium: largest |K·u − f| {}; loads ({}, {}) {f}, reactions ({}, {}) {f}.</p>"#,
+                esc(&residual),
+                esc(&show(c.load_sum[0])),
+                esc(&show(c.load_sum[1])),
+                esc(&show(c.reaction_sum[0])),
+                esc(&show(c.reaction_sum[1])),
                 f = esc(s.force_name)
             );
         }
+        if let Some(combo) = model
+            .combinations
+            .iter()
+            .find(|c| e.combination && c.id == e.id)
+        {
+            for &(k, f) in &combo.moving {
+                let _ = writeln!(
+                    h,
+                    r#"<p class="note">This combination also holds {} × moving load “{}”: the forces above are its load cases alone; the checks and ratings use each member's envelope of the moving load (see Moving loads and the rating factors).</p>"#,
+                    esc(&sig(f, 4)),
+                    esc(&model.live.moving[k].id)
+                );
+            }
+        }
+        h.push_str("</details>\n");
     }
     h.push_str("</section>\n");
 }
 
 fn checks(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: &Scale) {
-    h.push_str(r#"<section class="major" id="checks"><h2>Capacity checks</h2>"#);
+    h.push_str(r#"<section class="major" id="checks"><h2>Capacity of each member</h2>"#);
     let r = match rating {
         Ok(r) => *r,
         Err(why) => {
@@ -845,7 +863,21 @@ fn checks(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: &S
         r#"<p class="note">Fe = π²E/(KL/r)² (Euler). Fcr is the curve's nominal critical stress; the design capacity applies the curve's resistance or safety factor to Fcr·A. Tension: min(yield on gross area, fracture on net area), with the factors of the clause shown. Capacities include the condition and system factors where the method applies them (LRFR: φc·φs ≥ 0.85).</p>"#
     );
 
-    h.push_str("<h3>Every check, highest utilization first</h3>\n");
+    h.push_str("</section>\n");
+}
+
+/// The appendix: every check, collapsed on screen.
+fn appendix(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: &Scale) {
+    let Ok(r) = rating else {
+        return;
+    };
+    h.push_str(r#"<section class="major" id="appendix"><h2>Appendix: every check</h2>"#);
+    let _ = writeln!(
+        h,
+        "<details><summary>Every member under every load case and combination, highest utilization first ({} rows; open to read or print)</summary>",
+        r.checks.len()
+    );
+
     let fu = format!("force {}", s.force_name);
     let su = format!("stress {}", s.stress_name);
     let cu = format!("capacity {}", s.force_name);
@@ -900,8 +932,8 @@ fn checks(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: &S
         );
     }
     tb.html(h);
-    h.push_str(r#"<p class="note">utilization = |force| / design capacity; margin = critical stress / |stress|; the first row controls.</p>"#);
-    h.push_str("</section>\n");
+    h.push_str(r#"<p class="note">utilization = |force| / C; margin = critical stress / |stress|; the first counted row controls; rows marked service or factored are not the method's own comparison and are not counted.</p>"#);
+    h.push_str("</details></section>\n");
 }
 
 fn ratings(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: &Scale) {
@@ -971,10 +1003,10 @@ fn sections(h: &mut String, model: &Model, s: &Scale) {
     h.push_str("<p>Section properties used by the checks (built-up sections after the recorded section loss):</p>\n");
     let au = format!("A {}²", s.disp_name);
     let anu = format!("An {}²", s.disp_name);
-    let iin = format!("I in {}⁴", s.disp_name);
-    let iout = format!("I out {}⁴", s.disp_name);
-    let rin = format!("r in {}", s.disp_name);
-    let rout = format!("r out {}", s.disp_name);
+    let iin = format!("I in-plane {}⁴", s.disp_name);
+    let iout = format!("I out-of-plane {}⁴", s.disp_name);
+    let rin = format!("r in-plane {}", s.disp_name);
+    let rout = format!("r out-of-plane {}", s.disp_name);
     let mut tb = HTable::new(&["section", &au, &anu, &iin, &iout, &rin, &rout, "used by"]);
     let i4 = s.disp.powi(4);
     for (k, sec) in model.sections.iter().enumerate() {

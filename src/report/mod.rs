@@ -5,6 +5,8 @@
 pub mod atomic;
 pub mod csv;
 pub mod html;
+mod html_loads;
+mod html_table;
 pub mod influence_csv;
 pub mod influence_json;
 pub mod influence_text;

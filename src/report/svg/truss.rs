@@ -105,8 +105,10 @@ fn utilizations(d: &Drawing) -> Option<Vec<(f64, String)>> {
         .effect
         .and_then(|e| r.effects.iter().position(|x| x.id == e.id));
     let mut out = vec![(0.0, String::new()); d.model.members.len()];
+    // The envelope shows the counted checks (not service rows) when any.
+    let counted = r.checks.iter().any(|c| !c.service);
     for c in &r.checks {
-        if want.is_some_and(|w| w != c.effect) {
+        if want.is_some_and(|w| w != c.effect) || (want.is_none() && counted && c.service) {
             continue;
         }
         let slot = &mut out[c.member];
@@ -119,7 +121,7 @@ fn utilizations(d: &Drawing) -> Option<Vec<(f64, String)>> {
 
 fn subtitle(d: &Drawing, mag: Option<f64>) -> String {
     let what = match (d.show, d.effect) {
-        (Show::Utilization, None) => "envelope of all cases and combinations".to_string(),
+        (Show::Utilization, None) => "envelope of the counted checks".to_string(),
         (_, Some(e)) if e.combination => format!("combination \"{}\" (factored)", e.id),
         (_, Some(e)) => format!("load case \"{}\"", e.id),
         (_, None) => "no load case".to_string(),
