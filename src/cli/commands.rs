@@ -233,6 +233,12 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             format: f,
             out,
         } => super::loads::envelope(&model, format(f), &out),
+        Command::Fatigue {
+            model,
+            format: f,
+            out,
+            all,
+        } => super::fatigue::fatigue(&model, format(f), &out, all),
         Command::New {
             family,
             panels,

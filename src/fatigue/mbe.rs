@@ -219,13 +219,7 @@ pub fn total_life(y: f64, traffic: &Traffic) -> Option<f64> {
 /// MBE Section 7 evaluation of one detail of category `c` under `n`
 /// cycles per passage of calculated effective range `range` (Pa, with the
 /// dynamic allowance already in it).
-pub fn evaluate(
-    c: Category,
-    p: &MbeParameters,
-    range: f64,
-    n: f64,
-    traffic: &Traffic,
-) -> MbeLife {
+pub fn evaluate(c: Category, p: &MbeParameters, range: f64, n: f64, traffic: &Traffic) -> MbeLife {
     let (a, threshold) = p.constants_si(c);
     let eff = p.rs * p.load_factor * range;
     let max_range = p.infinite_factor * eff;

@@ -78,9 +78,7 @@ pub fn count(history: &[f64]) -> Cycles {
 /// every closed range a whole cycle (ASTM E1049 §5.4.5, from memory).
 pub fn count_repeating(history: &[f64]) -> Cycles {
     let Some(k) = (0..history.len()).max_by(|&a, &b| {
-        history[a]
-            .total_cmp(&history[b])
-            .then(b.cmp(&a)) // the first occurrence wins a tie
+        history[a].total_cmp(&history[b]).then(b.cmp(&a)) // the first occurrence wins a tie
     }) else {
         return Vec::new();
     };

@@ -548,6 +548,7 @@ fn node(r: &mut Row) -> Option<NodeFile> {
 fn member(r: &mut Row) -> Option<MemberFile> {
     let (mut id, mut start, mut end, mut section, mut material) = (None, None, None, None, None);
     let (mut k_in, mut k_out, mut unbraced_in, mut unbraced_out) = (None, None, None, None);
+    let mut detail = None;
     r.fields(|r, name| match name {
         b"id" => once(&mut id, r.id()),
         b"start" => once(&mut start, r.id()),
@@ -558,6 +559,7 @@ fn member(r: &mut Row) -> Option<MemberFile> {
         b"k_out" => once(&mut k_out, r.number(false)),
         b"unbraced_in" => once(&mut unbraced_in, r.quantity()),
         b"unbraced_out" => once(&mut unbraced_out, r.quantity()),
+        b"detail" => once(&mut detail, r.string()),
         _ => None,
     })?;
     Some(MemberFile {
@@ -570,6 +572,7 @@ fn member(r: &mut Row) -> Option<MemberFile> {
         k_out,
         unbraced_in,
         unbraced_out,
+        detail,
     })
 }
 

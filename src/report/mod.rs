@@ -4,6 +4,10 @@
 
 pub mod atomic;
 pub mod csv;
+pub mod fatigue_csv;
+pub mod fatigue_json;
+pub mod fatigue_rows;
+pub mod fatigue_text;
 pub mod html;
 pub mod influence_csv;
 pub mod influence_json;
