@@ -10,7 +10,7 @@ pub mod history;
 pub mod mbe;
 pub mod rainflow;
 
-pub use evaluate::{evaluate, Fatigue, MemberFatigue};
+pub use evaluate::{evaluate, evaluate_model, Fatigue, MemberFatigue};
 
 use crate::loads::LoadError;
 use en1993_1_9::EnParameters;
