@@ -63,14 +63,23 @@ pub fn parameters(model: &Model, f: &Fatigue) -> Vec<Parameter> {
         let given = s.mbe.constants.iter().any(|o| o.0 == c);
         out.push(p(
             "category constants",
-            format!(
-                "{}: A = {:.3e} ksi^3, (DF)TH = {} ksi = {} {}",
-                c.name(),
-                a / crate::fatigue::mbe::KSI.powi(3),
-                super::table::sig(th / crate::fatigue::mbe::KSI, 3),
-                super::table::sig(th / stress.stress, 4),
-                stress.stress_name
-            ),
+            {
+                let ksi = crate::fatigue::mbe::KSI;
+                let mut v = format!(
+                    "{}: A = {:.3e} ksi^3, (DF)TH = {} ksi",
+                    c.name(),
+                    a / ksi.powi(3),
+                    super::table::sig(th / ksi, 3)
+                );
+                if stress.stress_name != "ksi" {
+                    v += &format!(
+                        " = {} {}",
+                        super::table::sig(th / stress.stress, 4),
+                        stress.stress_name
+                    );
+                }
+                v
+            },
             if given {
                 "model fatigue.constants"
             } else {
