@@ -273,3 +273,50 @@ fn bad_fatigue_input_is_named() {
         assert!(err.contains(want), "{err}");
     }
 }
+
+#[test]
+fn drawing_and_html_section() {
+    // L1-L2 under the 32-kip axle: minimum life 132.29 years (above). At
+    // age 80 it has used 80/132.29 = 0.605 of it; at age 140 it is spent.
+    for (age, spent) in [(80.0, false), (140.0, true)] {
+        let m = load(&truss(
+            6.0,
+            "(id: \"axle\", axles: [(load: \"32 kip\")])",
+            &format!("fatigue: (vehicle: \"axle\", impact: 0.0, adtt: 500.0, age: {age:?})"),
+            "",
+        ));
+        let f = fatigue::evaluate_model(&m).unwrap();
+        let svg = panelpoint::report::fatigue_svg::draw(&m, &f, 900.0);
+        let doc = roxmltree::Document::parse(&svg).expect("well-formed SVG");
+        let r = member_of(&f, &m, "L1-L2");
+        let u = panelpoint::report::fatigue_svg::used(age, r.mbe.life[0]);
+        assert_close!(u, age / 132.2886, 1e-4);
+        let colour = panelpoint::report::svg::palette::utilization(u);
+        assert_eq!(colour == panelpoint::report::svg::palette::FAIL, spent);
+        assert!(doc
+            .descendants()
+            .any(|n| n.attribute("stroke") == Some(colour.as_str())));
+        let label = if spent { "L1-L2 spent" } else { "L1-L2 52 yr" };
+        assert!(doc.descendants().any(|n| n.text() == Some(label)), "{svg}");
+    }
+    let path = temp_model(
+        "fatigue.ron",
+        &truss(
+            6.0,
+            "(id: \"axle\", axles: [(load: \"32 kip\")])",
+            "fatigue: (vehicle: \"axle\", adtt: 500.0, age: 80.0)",
+            "",
+        ),
+    );
+    let html = path.with_extension("html");
+    let (code, _, err) = run(&[
+        "report",
+        path.to_str().unwrap(),
+        "-o",
+        html.to_str().unwrap(),
+    ]);
+    assert_eq!(code, 0, "{err}");
+    let text = std::fs::read_to_string(&html).unwrap();
+    assert!(text.contains(r#"<section class="major" id="fatigue"><h2>Fatigue</h2>"#));
+    assert!(text.contains("MBE 2nd ed. Eq. 7.2.5.1-1"));
+}

@@ -162,6 +162,18 @@ pub fn report(
     rating: Result<&Rating, String>,
     warnings: &[Diagnostic],
 ) -> String {
+    report_with_fatigue(model, analysis, rating, warnings, None)
+}
+
+/// [`report`] with a fatigue section when `fatigue` is given (the
+/// evaluation, or why it could not be made).
+pub fn report_with_fatigue(
+    model: &Model,
+    analysis: &Analysis,
+    rating: Result<&Rating, String>,
+    warnings: &[Diagnostic],
+    fatigue: Option<Result<&crate::fatigue::Fatigue, String>>,
+) -> String {
     let s = Scale::of(model);
     let effects = svg::effects(model, analysis);
     let title = if model.title.is_empty() {
@@ -207,8 +219,12 @@ pub fn report(
         ("checks", "Capacity checks"),
         ("ratings", "Rating factors"),
         ("sections", "Sections"),
+        ("fatigue", "Fatigue"),
         ("cautions", "Cautions"),
     ] {
+        if id == "fatigue" && fatigue.is_none() {
+            continue;
+        }
         let _ = write!(h, r##"<li><a href="#{id}">{name}</a></li>"##);
     }
     h.push_str("</ol></nav>\n");
@@ -220,6 +236,9 @@ pub fn report(
     checks(&mut h, model, &rating, &s);
     ratings(&mut h, model, &rating, &s);
     sections(&mut h, model, &s);
+    if let Some(f) = &fatigue {
+        fatigue_section(&mut h, model, f);
+    }
 
     h.push_str(r#"<section class="major" id="cautions"><h2>Cautions</h2>"#);
     let _ = writeln!(h, "<p><strong>{}</strong></p>", esc(CAUTION));
@@ -965,4 +984,86 @@ fn sections(h: &mut String, model: &Model, s: &Scale) {
         }
     }
     h.push_str("</section>\n");
+}
+
+/// The fatigue section: the drawing by life used, the parameters with
+/// their sources and one row per member (finite remaining life first).
+fn fatigue_section(h: &mut String, model: &Model, f: &Result<&crate::fatigue::Fatigue, String>) {
+    use super::fatigue_rows::{parameters, rows};
+    h.push_str(r#"<section class="major" id="fatigue"><h2>Fatigue</h2>"#);
+    let f = match f {
+        Ok(f) => *f,
+        Err(why) => {
+            let _ = writeln!(
+                h,
+                "<p>The fatigue evaluation could not be made: {}</p></section>",
+                esc(why)
+            );
+            return;
+        }
+    };
+    h.push_str("<p class=\"note\">Stress history of each member under one crossing of the fatigue vehicle (influence lines, the worse direction), counted by rainflow as a repeating passage (ASTM E1049); AASHTO MBE Section 7 lives at the minimum, evaluation and mean levels and the EN 1993-1-9 damage. Constants from memory of the editions stated, overridable in the model; a * marks a stated default category.</p>\n");
+    figure(
+        h,
+        &super::fatigue_svg::draw(model, f, 900.0),
+        "Fatigue life used at the MBE minimum level: present age over the minimum life, on the utilization ramp; spent members in the failure colour with a broken core.",
+    );
+    let mut p = HTable::new(&["parameter", "value", "source"]);
+    for x in parameters(model, f) {
+        p.row("", vec![t(x.name), t(&x.value), t(x.source)]);
+    }
+    p.html(h);
+    let st = Scale::of(model).stress_name;
+    let eff = format!("(Δf)eff {st}");
+    let max = format!("(Δf)max {st}");
+    let th = format!("(ΔF)TH {st}");
+    let mut m = HTable::new(&[
+        "member",
+        "category",
+        &eff,
+        "cycles / passage",
+        &max,
+        &th,
+        "life min yr",
+        "life eval yr",
+        "life mean yr",
+        "remaining min yr",
+        "EN cat MPa",
+        "EN damage / passage",
+        "EN remaining yr",
+    ]);
+    let yrs = |v: Option<f64>| {
+        (
+            true,
+            v.map_or("infinite".into(), |v| esc(&format!("{v:.1}"))),
+        )
+    };
+    for r in rows(model, f) {
+        let star = |d: bool| if d { "*" } else { "" };
+        let class = if r.remaining[0].is_some_and(|y| y < 0.0) {
+            "fails"
+        } else {
+            ""
+        };
+        m.row(
+            class,
+            vec![
+                t(r.member),
+                t(&format!("{}{}", r.category, star(r.category_default))),
+                n(r.mbe_effective_range, 4),
+                n(r.cycles_per_passage, 3),
+                n(r.max_range, 4),
+                n(r.threshold, 4),
+                yrs(r.life[0]),
+                yrs(r.life[1]),
+                yrs(r.life[2]),
+                yrs(r.remaining[0]),
+                t(&format!("{}{}", sig(r.en_category, 3), star(r.en_default))),
+                n(r.en_damage, 3),
+                yrs(r.en_remaining),
+            ],
+        );
+    }
+    m.html(h);
+    h.push_str("<p class=\"note\">Lives are years from opening; remaining = life − present age, negative (bold) when the calculated life is spent. Infinite life when (Δf)max = factor·(Δf)eff ≤ (ΔF)TH (MBE 7.2.4).</p>\n</section>\n");
 }

@@ -7,6 +7,7 @@ pub mod csv;
 pub mod fatigue_csv;
 pub mod fatigue_json;
 pub mod fatigue_rows;
+pub mod fatigue_svg;
 pub mod fatigue_text;
 pub mod html;
 pub mod influence_csv;
