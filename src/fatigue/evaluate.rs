@@ -53,9 +53,17 @@ pub struct Fatigue {
     pub members: Vec<MemberFatigue>,
 }
 
+/// Ranges below this fraction of the history's largest |stress| are
+/// round-off ripples on a plateau (a sum of ordinates that should be
+/// constant), not cycles: counted, they would raise n and lower (Δf)eff,
+/// which could turn the infinite-life check unconservative.
+pub const RIPPLE: f64 = 1e-9;
+
 /// Cycles with their Σ n·r³ of one stress history.
 fn counted(history: &[f64]) -> (Vec<(f64, f64)>, f64) {
-    let cycles = histogram(&count_repeating(history));
+    let largest = history.iter().fold(0.0f64, |a, v| a.max(v.abs()));
+    let mut cycles = histogram(&count_repeating(history));
+    cycles.retain(|c| c.0 > RIPPLE * largest);
     let s3 = cycles.iter().map(|&(r, n)| n * r.powi(3)).sum();
     (cycles, s3)
 }
@@ -132,4 +140,22 @@ pub fn evaluate(model: &Model, prepared: &Prepared) -> Result<Fatigue, FatigueEr
 pub fn evaluate_model(model: &Model) -> Result<Fatigue, FatigueError> {
     let prepared = Prepared::new(model).map_err(LoadError::Analysis)?;
     evaluate(model, &prepared)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn ripples_on_a_plateau_are_not_cycles() {
+        // 0 → 10 → 10 ± 1e-15 wiggles → 0: one cycle of 10 (by hand), not
+        // one of 10 plus ripples that would halve (Δf)eff's cube mean.
+        let h = [0.0, 10.0, 10.0 - 1e-14, 10.0, 10.0 - 2e-14, 10.0, 0.0];
+        let (cycles, s3) = counted(&h);
+        assert_eq!(cycles, vec![(10.0, 1.0)]);
+        assert_eq!(s3, 1000.0);
+        // A real small cycle stays: 0 → 10 → 9 → 10 → 0 gives 10 and 1.
+        let (cycles, _) = counted(&[0.0, 10.0, 9.0, 10.0, 0.0]);
+        assert_eq!(cycles, vec![(10.0, 1.0), (1.0, 1.0)]);
+    }
 }
