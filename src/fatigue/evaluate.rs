@@ -4,7 +4,7 @@
 //! MBE Section 7 lives and the EN 1993-1-9 damage.
 
 use super::en1993_1_9::{self, EnLife};
-use super::history::{force_history, passages};
+use super::history::{force_history, passages, Passage};
 use super::mbe::{self, Category, MbeLife};
 use super::rainflow::{count_repeating, effective, histogram};
 use super::{FatigueError, Settings, StressArea};
@@ -68,6 +68,68 @@ fn counted(history: &[f64]) -> (Vec<(f64, f64)>, f64) {
     (cycles, s3)
 }
 
+/// The governing passage of one member: its direction, stress history,
+/// cycles and Σ n·r³.
+struct Governing {
+    direction: Direction,
+    history: Vec<f64>,
+    cycles: Vec<(f64, f64)>,
+    s3: f64,
+}
+
+/// One member's evaluation from its influence `ordinates`.
+fn member(
+    model: &Model,
+    s: &Settings,
+    both: &[Passage; 2],
+    ordinates: &[f64],
+    m: usize,
+) -> MemberFatigue {
+    let section = &model.sections[model.members[m].section];
+    let area = match s.area {
+        StressArea::Net => section.net_area,
+        StressArea::Gross => section.area,
+    };
+    let factor = (1.0 + s.impact) / area;
+    let mut best: Option<Governing> = None;
+    for p in both {
+        let history: Vec<f64> = force_history(p, ordinates)
+            .into_iter()
+            .map(|f| f * factor)
+            .collect();
+        let (cycles, s3) = counted(&history);
+        if best.as_ref().is_none_or(|b| s3 > b.s3) {
+            best = Some(Governing {
+                direction: p.direction,
+                history,
+                cycles,
+                s3,
+            });
+        }
+    }
+    let g = best.expect("two passages");
+    let (n, eff) = effective(&g.cycles);
+    let given = s.detail(m);
+    let category = given.aashto.unwrap_or(s.default_category);
+    let en_category = given.en.unwrap_or(s.default_en);
+    MemberFatigue {
+        member: m,
+        category,
+        category_default: given.aashto.is_none(),
+        en_category,
+        en_default: given.en.is_none(),
+        area,
+        direction: g.direction,
+        max_stress: g.history.iter().fold(0.0f64, |a, &v| a.max(v)),
+        min_stress: g.history.iter().fold(0.0f64, |a, &v| a.min(v)),
+        mbe: mbe::evaluate(category, &s.mbe, eff, n, &s.traffic),
+        en: en1993_1_9::evaluate(en_category, &s.en, &g.cycles, &s.traffic),
+        cycles: g.cycles,
+        cycles_per_passage: n,
+        effective_range: eff,
+    }
+}
+
 /// Evaluate every member of `model` under its fatigue settings, with the
 /// influence lines solved on the factorization in `prepared`.
 ///
@@ -81,47 +143,7 @@ pub fn evaluate(model: &Model, prepared: &Prepared) -> Result<Fatigue, FatigueEr
     let both = passages(&deck, vehicle)?;
     let mut members: Vec<MemberFatigue> = (0..model.members.len())
         .into_par_iter()
-        .map(|m| {
-            let section = &model.sections[model.members[m].section];
-            let area = match s.area {
-                StressArea::Net => section.net_area,
-                StressArea::Gross => section.area,
-            };
-            let factor = (1.0 + s.impact) / area;
-            let ordinates = lines.member(m);
-            let mut best: Option<(Direction, Vec<f64>, Vec<(f64, f64)>, f64)> = None;
-            for p in &both {
-                let h: Vec<f64> = force_history(p, ordinates)
-                    .into_iter()
-                    .map(|f| f * factor)
-                    .collect();
-                let (cycles, s3) = counted(&h);
-                if best.as_ref().is_none_or(|b| s3 > b.3) {
-                    best = Some((p.direction, h, cycles, s3));
-                }
-            }
-            let (direction, h, cycles, _) = best.expect("two passages");
-            let (n, eff) = effective(&cycles);
-            let given = s.detail(m);
-            let category = given.aashto.unwrap_or(s.default_category);
-            let en_category = given.en.unwrap_or(s.default_en);
-            MemberFatigue {
-                member: m,
-                category,
-                category_default: given.aashto.is_none(),
-                en_category,
-                en_default: given.en.is_none(),
-                area,
-                direction,
-                max_stress: h.iter().fold(0.0f64, |a, &v| a.max(v)),
-                min_stress: h.iter().fold(0.0f64, |a, &v| a.min(v)),
-                mbe: mbe::evaluate(category, &s.mbe, eff, n, &s.traffic),
-                en: en1993_1_9::evaluate(en_category, &s.en, &cycles, &s.traffic),
-                cycles,
-                cycles_per_passage: n,
-                effective_range: eff,
-            }
-        })
+        .map(|m| member(model, s, &both, lines.member(m), m))
         .collect();
     members.sort_by(|a, b| match (a.mbe.remaining[0], b.mbe.remaining[0]) {
         (Some(x), Some(y)) => x.total_cmp(&y).then(a.member.cmp(&b.member)),

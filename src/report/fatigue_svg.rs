@@ -38,9 +38,9 @@ pub fn draw(model: &Model, f: &Fatigue, width: f64) -> String {
     let h = top + sy * scale + 140.0;
     let p = |x: f64, y: f64| (left + (x - x0) * scale, top + (y1 - y) * scale);
     let mut svg = Svg::default();
-    let _ = write!(
+    let _ = writeln!(
         svg.out,
-        "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{w:.0}\" height=\"{h:.0}\" viewBox=\"0 0 {w:.0} {h:.0}\" font-family=\"DejaVu Sans, Arial, sans-serif\">\n"
+        "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{w:.0}\" height=\"{h:.0}\" viewBox=\"0 0 {w:.0} {h:.0}\" font-family=\"DejaVu Sans, Arial, sans-serif\">"
     );
     svg.rect(0.0, 0.0, w, h, &format!("fill=\"{PAPER}\""));
     let title = format!(
