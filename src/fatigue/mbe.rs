@@ -86,7 +86,9 @@ impl Category {
     }
 
     /// (R_R evaluation, R_R mean): MBE 2nd edition Table 7.2.5.2-1 (from
-    /// memory); the minimum life takes R_R = 1.0 throughout.
+    /// memory); the minimum life takes R_R = 1.0 throughout. C′ is not
+    /// recalled with certainty (possibly 1.4 and 2.0): C's lower values are
+    /// taken, which can only shorten the lives.
     pub fn rr(self) -> (f64, f64) {
         match self {
             Category::A => (1.7, 2.8),
