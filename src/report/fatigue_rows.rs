@@ -49,6 +49,7 @@ pub fn parameters(model: &Model, f: &Fatigue) -> Vec<Parameter> {
         p("default EN category, MPa", format!("{}", s.default_en / 1e6), "model fatigue.en_category; default 71 for riveted details (common practice, from memory)"),
         p("gamma_Mf", format!("{}", s.en.gamma_mf), "EN 1993-1-9:2005 Table 3.1, default 1.35 safe life / high consequence (from memory)"),
         p("gamma_Ff", format!("{}", s.en.gamma_ff), "EN 1993-1-9:2005 6.1, recommended 1.0 (from memory)"),
+        p("members evaluated", "all, including those in permanent compression".into(), "the LRFD 6.6.1.2.1 net-compression exemption is not applied (conservative)"),
         p("EN S-N curve", "m = 3 to 5e6, m = 5 to the cut-off at 1e8".into(), "EN 1993-1-9:2005 7.1, Eq. 7.1-7.2, Fig. 7.1 (from memory)"),
     ];
     let used: Vec<_> = {
