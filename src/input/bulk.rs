@@ -594,4 +594,18 @@ mod tests {
         assert_eq!(concat(parts), expected);
         assert!(concat(Vec::<Vec<u8>>::new()).is_empty());
     }
+
+    /// The fatigue `detail` field is read by the fast reader itself (the
+    /// list is taken, not handed back to the RON parser).
+    #[test]
+    fn reads_the_detail_field() {
+        let text = r#"(members: [
+            (id: "a", start: "A", end: "B", section: "s", material: "m", detail: "D 71"),
+            (id: "b", start: "B", end: "C", section: "s", material: "m"),
+        ])"#;
+        let b = super::read_with(text, 0, 64);
+        let members = b.members.expect("the fast reader took the list");
+        assert_eq!(members[0].detail.as_deref(), Some("D 71"));
+        assert_eq!(members[1].detail, None);
+    }
 }
