@@ -308,6 +308,18 @@ fn drawing_and_html_section() {
             "",
         ),
     );
+    let svg = path.with_extension("svg");
+    let (code, _, err) = run(&[
+        "fatigue",
+        path.to_str().unwrap(),
+        "--draw",
+        svg.to_str().unwrap(),
+    ]);
+    assert_eq!(code, 0, "{err}");
+    let svg = std::fs::read_to_string(&svg).unwrap();
+    assert!(roxmltree::Document::parse(&svg).is_ok());
+    // Default impact 0.15 here: Y = 132.29/1.15³ = 86.98 years, 6.98 left.
+    assert!(svg.contains("L1-L2 7 yr"), "{svg}");
     let html = path.with_extension("html");
     let (code, _, err) = run(&[
         "report",

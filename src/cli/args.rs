@@ -204,6 +204,9 @@ pub enum Command {
         /// Show every member in the text table (default: the first 40).
         #[arg(long)]
         all: bool,
+        /// Also write the truss coloured by fatigue life used to this SVG file.
+        #[arg(long, value_name = "FILE.svg")]
+        draw: Option<PathBuf>,
     },
     /// Write one self-contained HTML report: summary, model tables, results
     /// per case, capacity checks with clauses and formulas, drawings, cautions.

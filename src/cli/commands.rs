@@ -238,7 +238,8 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             format: f,
             out,
             all,
-        } => super::fatigue::fatigue(&model, format(f), &out, all),
+            draw,
+        } => super::fatigue::fatigue(&model, format(f), &out, all, &draw),
         Command::New {
             family,
             panels,

@@ -5,12 +5,18 @@ use super::commands::{load, write};
 use crate::analysis::results::Prepared;
 use crate::error::Error;
 use crate::fatigue::{self, FatigueError};
-use crate::report::{fatigue_csv, fatigue_json, fatigue_text, Format};
+use crate::report::{self, fatigue_csv, fatigue_json, fatigue_text, Format};
 use std::io::Write;
 use std::path::{Path, PathBuf};
 
 /// `panelpoint fatigue`.
-pub fn fatigue(path: &Path, format: Format, out: &Option<PathBuf>, all: bool) -> Result<u8, Error> {
+pub fn fatigue(
+    path: &Path,
+    format: Format,
+    out: &Option<PathBuf>,
+    all: bool,
+    draw: &Option<PathBuf>,
+) -> Result<u8, Error> {
     let c = load(path)?;
     let m = &c.model;
     let to_error = |e: FatigueError| match e {
@@ -36,6 +42,10 @@ pub fn fatigue(path: &Path, format: Format, out: &Option<PathBuf>, all: bool) ->
         for line in fatigue_csv::notes(m, &f) {
             let _ = writeln!(err, "panelpoint: {line}");
         }
+    }
+    if draw.is_some() {
+        let svg = report::fatigue_svg::draw(m, &f, 900.0);
+        write(draw, |w| w.write_all(svg.as_bytes()))?;
     }
     write(out, |w| match format {
         Format::Text => fatigue_text::fatigue(w, m, &f, &c.warnings, all),
