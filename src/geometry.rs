@@ -329,6 +329,7 @@ mod tests {
             combinations: vec![],
             rating: Default::default(),
             live: Default::default(),
+            fatigue: None,
         }
     }
 

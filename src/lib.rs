@@ -11,6 +11,7 @@ pub mod analysis;
 pub mod capacity;
 pub mod cli;
 pub mod error;
+pub mod fatigue;
 pub mod generate;
 pub mod geometry;
 pub mod input;

@@ -214,6 +214,8 @@ pub struct Model {
     pub rating: RatingSettings,
     /// Deck line, vehicles and moving loads (empty when not given).
     pub live: crate::loads::LiveLoads,
+    /// Fatigue vehicle, traffic and member details (the `fatigue` block).
+    pub fatigue: Option<crate::fatigue::Settings>,
 }
 
 /// A named linear combination of load cases: Σ factor × case (live cases

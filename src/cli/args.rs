@@ -194,6 +194,23 @@ pub enum Command {
         #[arg(long)]
         method: Option<String>,
     },
+    /// Fatigue of every member under the model's fatigue vehicle and traffic:
+    /// rainflow-counted stress ranges, AASHTO MBE Section 7 lives and the
+    /// EN 1993-1-9 damage (see docs/fatigue.md).
+    Fatigue {
+        model: PathBuf,
+        #[arg(long, value_enum, default_value_t = FormatArg::Text)]
+        format: FormatArg,
+        /// Write to this file (atomically) instead of standard output.
+        #[arg(short = 'o', long = "out")]
+        out: Option<PathBuf>,
+        /// Show every member in the text table (default: the first 40).
+        #[arg(long)]
+        all: bool,
+        /// Also write the truss coloured by fatigue life used to this SVG file.
+        #[arg(long, value_name = "FILE.svg")]
+        draw: Option<PathBuf>,
+    },
     /// Write one self-contained HTML report: summary, model tables, results
     /// per case, capacity checks with clauses and formulas, drawings, cautions.
     Report {

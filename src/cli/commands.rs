@@ -233,6 +233,13 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             format: f,
             out,
         } => super::loads::envelope(&model, format(f), &out),
+        Command::Fatigue {
+            model,
+            format: f,
+            out,
+            all,
+            draw,
+        } => super::fatigue::fatigue(&model, format(f), &out, all, &draw),
         Command::New {
             family,
             panels,
@@ -353,8 +360,20 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             })?;
             // A model without fy/fu still gets a report, without the checks.
             let r = rate::rate(m, &a, chosen);
-            let html =
-                report::html::report(m, &a, r.as_ref().map_err(|e| e.to_string()), &c.warnings);
+            // A model with a fatigue block gets a fatigue section.
+            let fatigue = m
+                .fatigue
+                .as_ref()
+                .map(|_| crate::fatigue::evaluate_model(m));
+            let html = report::html::report_with_fatigue(
+                m,
+                &a,
+                r.as_ref().map_err(|e| e.to_string()),
+                &c.warnings,
+                fatigue
+                    .as_ref()
+                    .map(|f| f.as_ref().map_err(|e| e.to_string())),
+            );
             write(&out, |w| w.write_all(html.as_bytes()))?;
             Ok(0)
         }

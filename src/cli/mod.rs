@@ -4,6 +4,7 @@
 
 mod args;
 mod commands;
+mod fatigue;
 mod loads;
 mod whatif;
 

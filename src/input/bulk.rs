@@ -548,6 +548,7 @@ fn node(r: &mut Row) -> Option<NodeFile> {
 fn member(r: &mut Row) -> Option<MemberFile> {
     let (mut id, mut start, mut end, mut section, mut material) = (None, None, None, None, None);
     let (mut k_in, mut k_out, mut unbraced_in, mut unbraced_out) = (None, None, None, None);
+    let mut detail = None;
     r.fields(|r, name| match name {
         b"id" => once(&mut id, r.id()),
         b"start" => once(&mut start, r.id()),
@@ -558,6 +559,7 @@ fn member(r: &mut Row) -> Option<MemberFile> {
         b"k_out" => once(&mut k_out, r.number(false)),
         b"unbraced_in" => once(&mut unbraced_in, r.quantity()),
         b"unbraced_out" => once(&mut unbraced_out, r.quantity()),
+        b"detail" => once(&mut detail, r.string()),
         _ => None,
     })?;
     Some(MemberFile {
@@ -570,6 +572,7 @@ fn member(r: &mut Row) -> Option<MemberFile> {
         k_out,
         unbraced_in,
         unbraced_out,
+        detail,
     })
 }
 
@@ -590,5 +593,19 @@ mod tests {
         let expected: Vec<String> = parts.iter().flatten().cloned().collect();
         assert_eq!(concat(parts), expected);
         assert!(concat(Vec::<Vec<u8>>::new()).is_empty());
+    }
+
+    /// The fatigue `detail` field is read by the fast reader itself (the
+    /// list is taken, not handed back to the RON parser).
+    #[test]
+    fn reads_the_detail_field() {
+        let text = r#"(members: [
+            (id: "a", start: "A", end: "B", section: "s", material: "m", detail: "D 71"),
+            (id: "b", start: "B", end: "C", section: "s", material: "m"),
+        ])"#;
+        let b = super::read_with(text, 0, 64);
+        let members = b.members.expect("the fast reader took the list");
+        assert_eq!(members[0].detail.as_deref(), Some("D 71"));
+        assert_eq!(members[1].detail, None);
     }
 }

@@ -837,6 +837,7 @@ pub fn convert_deferred(
         .map(|i| degree[i] > 0 || supported[i])
         .collect();
     let live = super::loads::live_loads(&mut ctx, &file, &parts, &node_ids, &carries);
+    let fatigue = super::fatigue::settings(&mut ctx, &file, &live);
 
     // Combinations.
     let _ = intern(&mut ctx, "combination", &file.combinations, |c| &c.id);
@@ -941,6 +942,7 @@ pub fn convert_deferred(
         combinations,
         rating,
         live,
+        fatigue,
     };
     lap.mark("isolated nodes");
     Ok((

@@ -49,6 +49,64 @@ pub struct ModelFile {
     /// Load cases whose sum is the dead load reported beside the envelopes.
     #[serde(default)]
     pub dead_cases: Vec<String>,
+    /// Fatigue vehicle, traffic and evaluation parameters; see
+    /// `docs/fatigue.md` and `input/fatigue.rs`.
+    #[serde(default)]
+    pub fatigue: Option<FatigueFile>,
+}
+
+/// `fatigue: (vehicle: "truck", impact: 0.15, adtt: 500.0, age: 80.0, growth: 0.0, ...)`.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct FatigueFile {
+    /// Id of one of the model's vehicles (its axles; a lane load is not used).
+    pub vehicle: String,
+    /// Dynamic allowance on the axles as a fraction (default 0.15).
+    #[serde(default)]
+    pub impact: Option<f64>,
+    /// Present single-lane average daily truck traffic, (ADTT)SL.
+    pub adtt: f64,
+    /// Present age of the structure, years.
+    pub age: f64,
+    /// Yearly traffic growth rate (0.02 = 2 %), default 0.
+    #[serde(default)]
+    pub growth: Option<f64>,
+    /// `Net` (default) or `Gross`: the area that turns force into stress.
+    #[serde(default)]
+    pub area: Option<StressAreaFile>,
+    /// AASHTO category of members without a `detail` (default "D").
+    #[serde(default)]
+    pub category: Option<String>,
+    /// EN 1993-1-9 category Δσ_C in MPa of members without one (default 71).
+    #[serde(default)]
+    pub en_category: Option<f64>,
+    /// EN 1993-1-9 partial factors (defaults 1.35 and 1.0).
+    #[serde(default)]
+    pub gamma_mf: Option<f64>,
+    #[serde(default)]
+    pub gamma_ff: Option<f64>,
+    /// MBE parameters (defaults in `fatigue/mbe.rs`).
+    #[serde(default)]
+    pub rs: Option<f64>,
+    #[serde(default)]
+    pub load_factor: Option<f64>,
+    #[serde(default)]
+    pub infinite_factor: Option<f64>,
+    #[serde(default)]
+    pub rr_minimum: Option<f64>,
+    #[serde(default)]
+    pub rr_evaluation: Option<f64>,
+    #[serde(default)]
+    pub rr_mean: Option<f64>,
+    /// Replacement detail constants: (category, A in ksi³, (ΔF)TH in ksi).
+    #[serde(default)]
+    pub constants: Vec<(String, f64, f64)>,
+}
+
+#[derive(Debug, Deserialize, Clone, Copy, PartialEq, Eq)]
+pub enum StressAreaFile {
+    Net,
+    Gross,
 }
 
 /// `(id: "strength", factors: [("deck", 1.25), ("crowd", 1.75)])`.
@@ -220,6 +278,10 @@ pub struct MemberFile {
     /// Unbraced length out of the truss plane (default: the member length).
     #[serde(default)]
     pub unbraced_out: Option<Quantity>,
+    /// Fatigue detail: an AASHTO category ("D"), an EN 1993-1-9 category
+    /// ("71"), or both ("D 71").
+    #[serde(default)]
+    pub detail: Option<String>,
 }
 
 #[derive(Debug, Deserialize)]

@@ -111,6 +111,18 @@ pub fn report(
     rating: Result<&Rating, String>,
     warnings: &[Diagnostic],
 ) -> String {
+    report_with_fatigue(model, analysis, rating, warnings, None)
+}
+
+/// [`report`] with a fatigue section when `fatigue` is given (the
+/// evaluation, or why it could not be made).
+pub fn report_with_fatigue(
+    model: &Model,
+    analysis: &Analysis,
+    rating: Result<&Rating, String>,
+    warnings: &[Diagnostic],
+    fatigue: Option<Result<&crate::fatigue::Fatigue, String>>,
+) -> String {
     let s = Scale::of(model);
     let effects = svg::effects(model, analysis);
     let title = if model.title.is_empty() {
@@ -157,10 +169,13 @@ pub fn report(
         ("model", "Model"),
         ("results", "Results per load case and combination"),
         ("sections", "Sections"),
+        ("fatigue", "Fatigue"),
         ("appendix", "Appendix: every check"),
         ("cautions", "Cautions"),
     ] {
-        if id == "moving" && model.live.moving.is_empty() {
+        if (id == "moving" && model.live.moving.is_empty())
+            || (id == "fatigue" && fatigue.is_none())
+        {
             continue;
         }
         let _ = write!(h, r##"<li><a href="#{id}">{name}</a></li>"##);
@@ -176,6 +191,9 @@ pub fn report(
     model_tables(&mut h, model, &s);
     results(&mut h, model, analysis, &effects, &s);
     sections(&mut h, model, &s);
+    if let Some(f) = &fatigue {
+        fatigue_section(&mut h, model, f);
+    }
     appendix(&mut h, model, &rating, &s);
 
     h.push_str(r#"<section class="major" id="cautions"><h2>Cautions</h2>"#);
@@ -183,7 +201,7 @@ pub fn report(
     h.push_str("<ul>\n<li>These are screening results for review by a qualified engineer; they are not a load rating or an approval by themselves.</li>\n");
     h.push_str("<li>The analysis assumes an ideal pin-jointed plane truss: axial members, loads at panel points, small displacements, linear elastic material.</li>\n");
     h.push_str("<li>Section properties, material strengths, condition and effective lengths are as entered in the model file; verify them against the structure as found.</li>\n");
-    h.push_str("<li>Connections, gusset plates, pins, bearings, fatigue, fracture toughness, out-of-plane stability of the whole truss and deck, and local buckling of built-up parts are not checked here.</li>\n");
+    h.push_str("<li>Connections, gusset plates, pins, bearings, fracture toughness, out-of-plane stability of the whole truss and deck, and local buckling of built-up parts are not checked here; fatigue only where the model has a fatigue block (see its section).</li>\n");
     h.push_str("<li>Local codes, the owner's rating rules and licensed practice govern.</li>\n</ul>\n</section>\n");
     let _ = writeln!(
         h,
@@ -1069,4 +1087,86 @@ fn sections(h: &mut String, model: &Model, s: &Scale) {
         }
     }
     h.push_str("</section>\n");
+}
+
+/// The fatigue section: the drawing by life used, the parameters with
+/// their sources and one row per member (finite remaining life first).
+fn fatigue_section(h: &mut String, model: &Model, f: &Result<&crate::fatigue::Fatigue, String>) {
+    use super::fatigue_rows::{parameters, rows};
+    h.push_str(r#"<section class="major" id="fatigue"><h2>Fatigue</h2>"#);
+    let f = match f {
+        Ok(f) => *f,
+        Err(why) => {
+            let _ = writeln!(
+                h,
+                "<p>The fatigue evaluation could not be made: {}</p></section>",
+                esc(why)
+            );
+            return;
+        }
+    };
+    h.push_str("<p class=\"note\">Stress history of each member under one crossing of the fatigue vehicle (influence lines, the worse direction), counted by rainflow as a repeating passage (ASTM E1049); AASHTO MBE Section 7 lives at the minimum, evaluation and mean levels and the EN 1993-1-9 damage. Constants from memory of the editions stated, overridable in the model; a * marks a stated default category.</p>\n");
+    figure(
+        h,
+        &super::fatigue_svg::draw(model, f, 900.0),
+        "Fatigue life used at the MBE minimum level: present age over the minimum life, on the utilization ramp; spent members in the failure colour with a broken core.",
+    );
+    let mut p = HTable::new(&["parameter", "value", "source"]);
+    for x in parameters(model, f) {
+        p.row("", vec![t(x.name), t(&x.value), t(x.source)]);
+    }
+    p.html(h);
+    let st = Scale::of(model).stress_name;
+    let eff = format!("(Δf)eff {st}");
+    let max = format!("(Δf)max {st}");
+    let th = format!("(ΔF)TH {st}");
+    let mut m = HTable::new(&[
+        "member",
+        "category",
+        &eff,
+        "cycles / passage",
+        &max,
+        &th,
+        "life min yr",
+        "life eval yr",
+        "life mean yr",
+        "remaining min yr",
+        "EN cat MPa",
+        "EN damage / passage",
+        "EN remaining yr",
+    ]);
+    let yrs = |v: Option<f64>| {
+        (
+            true,
+            v.map_or("infinite".into(), |v| esc(&format!("{v:.1}"))),
+        )
+    };
+    for r in rows(model, f) {
+        let star = |d: bool| if d { "*" } else { "" };
+        let class = if r.remaining[0].is_some_and(|y| y < 0.0) {
+            "fails"
+        } else {
+            ""
+        };
+        m.row(
+            class,
+            vec![
+                t(r.member),
+                t(&format!("{}{}", r.category, star(r.category_default))),
+                n(r.mbe_effective_range, 4),
+                n(r.cycles_per_passage, 3),
+                n(r.max_range, 4),
+                n(r.threshold, 4),
+                yrs(r.life[0]),
+                yrs(r.life[1]),
+                yrs(r.life[2]),
+                yrs(r.remaining[0]),
+                t(&format!("{}{}", sig(r.en_category, 3), star(r.en_default))),
+                n(r.en_damage, 3),
+                yrs(r.en_remaining),
+            ],
+        );
+    }
+    m.html(h);
+    h.push_str("<p class=\"note\">Lives are years from opening; remaining = life − present age, negative (bold) when the calculated life is spent. Infinite life when (Δf)max = factor·(Δf)eff ≤ (ΔF)TH (MBE 7.2.4).</p>\n</section>\n");
 }

@@ -4,6 +4,11 @@
 
 pub mod atomic;
 pub mod csv;
+pub mod fatigue_csv;
+pub mod fatigue_json;
+pub mod fatigue_rows;
+pub mod fatigue_svg;
+pub mod fatigue_text;
 pub mod html;
 mod html_loads;
 mod html_table;
