@@ -1,7 +1,7 @@
 //! Member capacity for load rating: axial compression on a choice of column
 //! curves (Euler, Johnson, AISC 360-16, EN 1993-1-1, CSA S16, the older bridge
-//! allowable-stress formula), axial tension in the same factor family, and
-//! rating factors. All functions are unit-agnostic: stresses in one
+//! allowable-stress formula), axial tension in the same factor family. Rating factors live in the
+//! rating methods (`crate::method`). All functions are unit-agnostic: stresses in one
 //! consistent unit, areas in one consistent unit, forces = stress × area.
 
 pub mod aisc360;
@@ -11,11 +11,7 @@ pub mod curve;
 pub mod en1993;
 pub mod euler;
 pub mod johnson;
-pub mod rating;
 pub mod tension;
 
 pub use curve::{column, BucklingClass, CapacityError, ColumnCheck, Curve, DesignMethod, Regime};
-pub use rating::{
-    member_rating, rating_factor_asr, rating_factor_lrfr, RatingLevel, INVENTORY, OPERATING,
-};
 pub use tension::{slenderness_warning, tension, TensionCheck};
