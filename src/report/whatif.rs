@@ -269,7 +269,8 @@ pub fn redundancy(
 ) -> io::Result<()> {
     let s = Scale::of(model);
     match format {
-        Format::Json | Format::Csv => {
+        Format::Csv => redundancy_csv(w, model, losses, &s),
+        Format::Json => {
             write!(
                 w,
                 "{{\"title\":{},\"caution\":{},\"units\":{{\"force\":{}}},\"members\":[",
@@ -317,17 +318,10 @@ pub fn redundancy(
                 "case",
             ]);
             for l in losses {
-                let verdict = if l.fracture_critical {
-                    "fracture-critical"
-                } else if l.critical {
-                    "critical"
-                } else {
-                    "redundant"
-                };
                 t.row(vec![
                     model.members[l.member].id.to_string(),
                     sig(l.service_force / s.force, 4),
-                    verdict.into(),
+                    verdict(l).into(),
                     opt(l.max_utilization_after, 3),
                     l.controlling_member.clone().unwrap_or("-".into()),
                     l.controlling_case.clone().unwrap_or("-".into()),
@@ -342,6 +336,42 @@ pub fn redundancy(
                 losses.len()
             )
         }
+    }
+}
+
+/// `panelpoint redundancy --format csv`: one row per member removed.
+fn redundancy_csv(w: &mut dyn Write, model: &Model, losses: &[Loss], s: &Scale) -> io::Result<()> {
+    writeln!(
+        w,
+        "member,verdict,critical,fracture_critical,service_force_{},max_utilization_after,controlling_member,controlling_case,mechanism",
+        s.force_name
+    )?;
+    let f = |v: &Option<String>| v.as_deref().map_or(String::new(), csv::field);
+    for l in losses {
+        writeln!(
+            w,
+            "{},{},{},{},{},{},{},{},{}",
+            csv::field(&model.members[l.member].id),
+            verdict(l),
+            l.critical,
+            l.fracture_critical,
+            csv::num(l.service_force / s.force),
+            l.max_utilization_after.map_or(String::new(), csv::num),
+            f(&l.controlling_member),
+            f(&l.controlling_case),
+            f(&l.mechanism)
+        )?;
+    }
+    Ok(())
+}
+
+fn verdict(l: &Loss) -> &'static str {
+    if l.fracture_critical {
+        "fracture-critical"
+    } else if l.critical {
+        "critical"
+    } else {
+        "redundant"
     }
 }
 
@@ -373,7 +403,41 @@ pub fn sensitivity(
     let dd = sc.length / sc.disp;
     let axis = |a: usize| if a == 0 { "x" } else { "y" };
     match format {
-        Format::Json | Format::Csv => {
+        Format::Csv => {
+            writeln!(
+                w,
+                "row,id,case,axis,value,d_utilization_per_{l},d_deflection_{d}_per_{l}",
+                l = sc.length_name,
+                d = sc.disp_name
+            )?;
+            writeln!(
+                w,
+                "governing utilization,{},{},,{},,",
+                csv::field(&model.members[s.member].id),
+                csv::field(effect),
+                csv::num(s.utilization)
+            )?;
+            writeln!(
+                w,
+                "greatest deflection {},{},{},,{},,",
+                sc.disp_name,
+                csv::field(&model.nodes[s.deflection_node].id),
+                csv::field(&model.cases[s.deflection_case].id),
+                csv::num(s.deflection / sc.disp)
+            )?;
+            for c in &s.coordinates {
+                writeln!(
+                    w,
+                    "coordinate,{},,{},,{},{}",
+                    csv::field(&model.nodes[c.node].id),
+                    axis(c.axis),
+                    csv::num(c.d_utilization * du),
+                    csv::num(c.d_deflection * dd)
+                )?;
+            }
+            Ok(())
+        }
+        Format::Json => {
             write!(
                 w,
                 "{{\"title\":{},\"caution\":{},\"units\":{{\"length\":{},\"deflection\":{}}},\"utilization\":{{\"member\":{},\"case\":{},\"value\":{}}},\"deflection\":{{\"node\":{},\"case\":{},\"value\":{}}},\"coordinates\":[",
