@@ -44,7 +44,10 @@ fn redundancy_and_sensitivity_write_csv_when_asked() {
     for cmd in ["redundancy", "sensitivity"] {
         let (code, out, err) = run(&[cmd, &demo(), "--format", "csv"]);
         assert_eq!(code, 0, "{cmd}: {err}");
-        assert!(!out.trim_start().starts_with('{'), "{cmd} printed JSON:\n{out}");
+        assert!(
+            !out.trim_start().starts_with('{'),
+            "{cmd} printed JSON:\n{out}"
+        );
         let rows = csv_rows(&out);
         assert!(rows.len() > 2, "{cmd}: {out}");
         let width = rows[0].len();
@@ -56,4 +59,167 @@ fn redundancy_and_sensitivity_write_csv_when_asked() {
     // One row per member for redundancy (21 members in the demo).
     let (_, out, _) = run(&["redundancy", &demo(), "--format", "csv"]);
     assert_eq!(out.lines().count(), 1 + 21);
+}
+
+/// The demo with one edit applied to its text.
+fn demo_edited(edit: impl Fn(&str) -> String) -> String {
+    let t = edit(&demo_text());
+    assert_ne!(t, demo_text(), "the edit changed nothing");
+    t
+}
+
+fn both_rollers() -> String {
+    demo_edited(|t| {
+        t.replace(
+            r#"(node: "L0", kind: Pin)"#,
+            r#"(node: "L0", kind: Roller)"#,
+        )
+    })
+}
+
+fn without_member(id: &str) -> String {
+    let key = format!(r#"(id: "{id}","#);
+    demo_edited(|t| {
+        t.lines()
+            .filter(|l| !l.trim_start().starts_with(&key))
+            .collect::<Vec<_>>()
+            .join("\n")
+    })
+}
+
+/// Check a free motion by statics/kinematics alone (not through K): a
+/// mechanism's mode stretches no member (c·Δu = 0 for every bar, the
+/// definition of an inextensional mechanism) and moves no support along a
+/// restrained direction.
+fn assert_is_inextensional(m: &panelpoint::model::Model, u: &[[f64; 2]]) {
+    let largest = u.iter().fold(0.0f64, |a, d| a.max(d[0].hypot(d[1])));
+    assert!(largest > 0.0);
+    for (j, mem) in m.members.iter().enumerate() {
+        let c = m.direction(j);
+        let (a, b) = (u[mem.start], u[mem.end]);
+        let e = c[0] * (b[0] - a[0]) + c[1] * (b[1] - a[1]);
+        assert!(
+            e.abs() <= 1e-8 * largest,
+            "member {} stretches by {e}",
+            mem.id
+        );
+    }
+    for s in &m.supports {
+        let d = u[s.node];
+        match s.restraint.free_direction() {
+            None => assert!(d[0].hypot(d[1]) <= 1e-8 * largest),
+            Some(f) => {
+                let across = d[0] * f[1] - d[1] * f[0];
+                assert!(across.abs() <= 1e-8 * largest);
+            }
+        }
+    }
+}
+
+/// The DOF a message names must be the largest entry of the mode.
+fn assert_named_dof_moves_most(
+    m: &panelpoint::model::Model,
+    u: &[[f64; 2]],
+    node: &str,
+    axis: usize,
+) {
+    let largest = u
+        .iter()
+        .fold(0.0f64, |a, d| a.max(d[0].abs()).max(d[1].abs()));
+    let v = u[common::node(m, node)][axis];
+    assert!(
+        v.abs() >= 0.999 * largest,
+        "node {node} axis {axis}: {v} against the largest entry {largest}"
+    );
+}
+
+// Defect 5: three different mechanisms all reported `node "U1" is free to
+// move in x`.
+#[test]
+fn mechanism_messages_name_the_node_and_direction_that_move() {
+    // (a) Both supports rollers: nothing holds the truss in x; the free
+    // motion is the rigid-body translation in x (a roller restrains only
+    // the vertical; statics: r = 2 < 3).
+    let text = both_rollers();
+    let path = temp_model("rollers.ron", &text);
+    let (code, _, err) = run(&["solve", path.to_str().unwrap()]);
+    assert_eq!(code, 2, "{err}");
+    assert!(
+        err.contains("the whole truss is free to move in x as a rigid body"),
+        "{err}"
+    );
+    let m = load(&text);
+    let f = panelpoint::analysis::free_motion(&m).expect("a mechanism");
+    assert_is_inextensional(&m, &f.displacements);
+    for d in &f.displacements {
+        // Hand: a rigid translation in x, every node moves the same.
+        assert!(
+            (d[0].abs() - 1.0).abs() < 1e-9 && d[1].abs() < 1e-9,
+            "{d:?}"
+        );
+    }
+
+    // (b) Bottom chord L3-L4 removed: the left part (pinned at L0) and
+    // the right part (L4..L6, U4, U5; roller at L6) meet only at U4, a
+    // three-hinged arrangement that is one degree short. Hand kinematics:
+    // the left part turns θ about L0, so U4 (64, 20 ft) moves θ(−20, 64);
+    // the right part's instantaneous centre lies on line L0-U4 and on the
+    // vertical through the roller L6: (96, 30), with rotation −2θ. Then
+    // L4 (64, 0) moves −2θ·k×(−32, −30) = θ(−60, 64), L5 θ(−60, 32),
+    // U5 θ(−20, 32), L3 θ(0, 48): the largest entry is L4 in y (64θ).
+    let text = without_member("L3-L4");
+    let path = temp_model("no-l3l4.ron", &text);
+    let (code, _, err) = run(&["solve", path.to_str().unwrap()]);
+    assert_eq!(code, 2, "{err}");
+    assert!(err.contains(r#"node "L4" is free to move in y"#), "{err}");
+    let m = load(&text);
+    let f = panelpoint::analysis::free_motion(&m).expect("a mechanism");
+    assert!(f.rigid.is_none());
+    assert_is_inextensional(&m, &f.displacements);
+    assert_named_dof_moves_most(&m, &f.displacements, "L4", 1);
+    let l4 = f.displacements[node(&m, "L4")];
+    assert!((l4[0] / l4[1] + 60.0 / 64.0).abs() < 1e-6, "{l4:?}");
+
+    // (c) Diagonal U2-L3 removed: panel L2-L3-U3-U2 is a rectangle with no
+    // diagonal and shears. Hand: the left part turns θ about L0; the two
+    // horizontal chords U2-U3 and L2-L3 carry the x motion across (U3
+    // −20θ, L3 0), so the right part turns θ too, and the roller at L6
+    // fixes its vertical: L3 and U3 move −48θ in y, the largest entry
+    // (L2, U2 32θ; L4, U4 −32θ).
+    let text = without_member("U2-L3");
+    let path = temp_model("no-u2l3.ron", &text);
+    let (code, _, err) = run(&["solve", path.to_str().unwrap()]);
+    assert_eq!(code, 2, "{err}");
+    let m = load(&text);
+    let f = panelpoint::analysis::free_motion(&m).expect("a mechanism");
+    assert_is_inextensional(&m, &f.displacements);
+    let named = if err.contains(r#"node "L3" is free to move in y"#) {
+        "L3"
+    } else {
+        assert!(err.contains(r#"node "U3" is free to move in y"#), "{err}");
+        "U3"
+    };
+    assert_named_dof_moves_most(&m, &f.displacements, named, 1);
+    let (l2, l3) = (
+        f.displacements[node(&m, "L2")],
+        f.displacements[node(&m, "L3")],
+    );
+    assert!((l2[1] / l3[1] + 32.0 / 48.0).abs() < 1e-6, "{l2:?} {l3:?}");
+}
+
+// Defect 4: `validate` said "valid" (exit 0) for a mechanism.
+#[test]
+fn validate_refuses_a_mechanism_with_node_and_direction() {
+    let path = temp_model("no-l3l4.ron", &without_member("L3-L4"));
+    let (code, out, err) = run(&["validate", path.to_str().unwrap()]);
+    assert_eq!(code, 2, "{out}{err}");
+    assert!(!out.contains("valid"), "{out}");
+    assert!(
+        err.contains(r#"mechanism: node "L4" is free to move in y"#),
+        "{err}"
+    );
+    // The intact demo is still valid.
+    let (code, out, err) = run(&["validate", &demo()]);
+    assert_eq!(code, 0, "{err}");
+    assert!(out.contains("valid"));
 }

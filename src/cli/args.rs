@@ -35,7 +35,8 @@ pub enum ShowArg {
 
 #[derive(Subcommand, Debug)]
 pub enum Command {
-    /// Check a model file and list every problem found, without analysing it.
+    /// Check a model file and list every problem found, then check that it is
+    /// stable (factors the stiffness; a mechanism is named by node and direction).
     Validate {
         /// The model file (RON).
         model: PathBuf,
