@@ -223,3 +223,93 @@ fn validate_refuses_a_mechanism_with_node_and_direction() {
     assert_eq!(code, 0, "{err}");
     assert!(out.contains("valid"));
 }
+
+// Defect 2: `redundancy` ignored moving loads, so members the vehicle puts
+// in tension were labelled "critical" instead of "fracture-critical".
+#[test]
+fn redundancy_counts_the_moving_load_in_the_service_force() {
+    let (code, out, err) = run(&["redundancy", &demo(), "--format", "json"]);
+    assert_eq!(code, 0, "{err}");
+    let v: serde_json::Value = serde_json::from_str(&out).unwrap();
+    let row = |id: &str| {
+        v["members"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .find(|r| r["member"] == id)
+            .unwrap()
+            .clone()
+    };
+    // Hand calculation for the post L2-U2 (Pratt, diagonal U2-L3 in the
+    // panel to its right): its force is minus the shear in panel L2-L3.
+    // Dead: R = 5 × 5.8 / 2 = 14.5 kip, shear 14.5 − 2 × 5.8 = 2.9, so
+    // −2.90 kip. Influence line for a unit load at x (ft): x/96 for
+    // x ≤ 32, falling linearly to −48/96 at x = 48. The truck (6, 16, 16
+    // kip at 0, 12, 16.5 ft) running toward L0 with its rear axle on L2:
+    // 16·32/96 + 16·27.5/96 + 6·15.5/96 = 10.885 kip, × 1.15 impact =
+    // 12.518 kip; dead + truck = +9.618 kip: tension.
+    for id in ["L2-U2", "L4-U4"] {
+        let r = row(id);
+        assert_eq!(r["critical"], true, "{id}");
+        assert_eq!(r["fracture_critical"], true, "{id}: {r}");
+        let f = r["service_force"].as_f64().unwrap();
+        assert!((f - 9.618).abs() < 0.002, "{id}: {f}");
+        assert!(
+            r["service_effect"].as_str().unwrap().contains("truck"),
+            "{r}"
+        );
+    }
+    // The centre post L3-U3 meets two collinear chords at U3 and carries
+    // nothing under deck loads (joint statics): critical, not fracture-critical.
+    assert_eq!(row("L3-U3")["fracture_critical"], false);
+
+    // The utilization after a loss is the damaged truss's rating with its
+    // own envelopes: with a counter-diagonal L2-U3 added, losing U2-L3
+    // leaves a stable truss whose `rate` governs the same number.
+    let text = demo_edited(|t| {
+        t.replace(
+            r#"        (id: "U2-L3","#,
+            "        (id: \"L2-U3\", start: \"L2\", end: \"U3\", section: \"diagonal\", material: \"medium-steel\"),\n        (id: \"U2-L3\",",
+        )
+    });
+    let (m, a) = solve(&text);
+    let curve = panelpoint::rate::choose_curve(&m, None).unwrap();
+    let opts = panelpoint::sweep::RunOptions {
+        curve,
+        jobs: Some(1),
+        detail: false,
+    };
+    let losses = panelpoint::sweep::redundancy::scan(&m, &a, &opts).unwrap();
+    let loss = losses
+        .iter()
+        .find(|l| m.members[l.member].id == "U2-L3")
+        .unwrap();
+    assert!(!loss.critical);
+    let damaged = load(&without_member_in(&text, "U2-L3"));
+    let da = panelpoint::analysis::analyse(&damaged).unwrap();
+    let r = panelpoint::rate::rate(&damaged, &da, curve).unwrap();
+    let worst = &r.checks[r.controlling.unwrap()];
+    assert!(close(
+        loss.max_utilization_after.unwrap(),
+        worst.utilization,
+        1e-9,
+        0.0
+    ));
+    assert_eq!(
+        loss.controlling_case.as_deref(),
+        Some(r.effects[worst.effect].id.as_str())
+    );
+    assert!(
+        r.effects[worst.effect].id.contains("truck"),
+        "{}",
+        r.effects[worst.effect].id
+    );
+}
+
+fn without_member_in(text: &str, id: &str) -> String {
+    let key = format!(r#"(id: "{id}","#);
+    text.lines()
+        .filter(|l| !l.trim_start().starts_with(&key))
+        .collect::<Vec<_>>()
+        .join("\n")
+}

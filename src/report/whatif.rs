@@ -285,11 +285,12 @@ pub fn redundancy(
                 let o = |v: &Option<String>| v.as_deref().map_or("null".into(), string);
                 write!(
                     w,
-                    "\n{{\"member\":{},\"critical\":{},\"fracture_critical\":{},\"service_force\":{},\"max_utilization_after\":{},\"controlling_member\":{},\"controlling_case\":{},\"mechanism\":{}}}",
+                    "\n{{\"member\":{},\"critical\":{},\"fracture_critical\":{},\"service_force\":{},\"service_effect\":{},\"max_utilization_after\":{},\"controlling_member\":{},\"controlling_case\":{},\"mechanism\":{}}}",
                     string(&model.members[l.member].id),
                     l.critical,
                     l.fracture_critical,
                     num(l.service_force / s.force),
+                    string(&l.service_effect),
                     l.max_utilization_after.map_or("null".into(), num),
                     o(&l.controlling_member),
                     o(&l.controlling_case),
@@ -307,11 +308,12 @@ pub fn redundancy(
             writeln!(w, "{CAUTION}")?;
             writeln!(
                 w,
-                "critical = the truss is a mechanism without the member; fracture-critical = critical and in tension under dead + live"
+                "critical = the truss is a mechanism without the member; fracture-critical = critical and in tension under dead + live (live: the live cases with impact, and each moving load's envelope as `rate` checks it; the greatest tension is shown when there is any)"
             )?;
             let mut t = Table::new(&[
                 "member",
                 &format!("D+L force {}", s.force_name),
+                "under",
                 "verdict",
                 "util after",
                 "where",
@@ -321,6 +323,7 @@ pub fn redundancy(
                 t.row(vec![
                     model.members[l.member].id.to_string(),
                     sig(l.service_force / s.force, 4),
+                    l.service_effect.clone(),
                     verdict(l).into(),
                     opt(l.max_utilization_after, 3),
                     l.controlling_member.clone().unwrap_or("-".into()),
@@ -343,19 +346,20 @@ pub fn redundancy(
 fn redundancy_csv(w: &mut dyn Write, model: &Model, losses: &[Loss], s: &Scale) -> io::Result<()> {
     writeln!(
         w,
-        "member,verdict,critical,fracture_critical,service_force_{},max_utilization_after,controlling_member,controlling_case,mechanism",
+        "member,verdict,critical,fracture_critical,service_force_{},service_effect,max_utilization_after,controlling_member,controlling_case,mechanism",
         s.force_name
     )?;
     let f = |v: &Option<String>| v.as_deref().map_or(String::new(), csv::field);
     for l in losses {
         writeln!(
             w,
-            "{},{},{},{},{},{},{},{},{}",
+            "{},{},{},{},{},{},{},{},{},{}",
             csv::field(&model.members[l.member].id),
             verdict(l),
             l.critical,
             l.fracture_critical,
             csv::num(l.service_force / s.force),
+            csv::field(&l.service_effect),
             l.max_utilization_after.map_or(String::new(), csv::num),
             f(&l.controlling_member),
             f(&l.controlling_case),
