@@ -313,3 +313,59 @@ fn without_member_in(text: &str, id: &str) -> String {
         .collect::<Vec<_>>()
         .join("\n")
 }
+
+// Defect 16: a sweep could not vary a moving load (`no load case "truck"`).
+#[test]
+fn a_sweep_scales_a_moving_load_and_changes_its_impact() {
+    let sweep = r#"(
+        variants: [
+            (name: "heavier", scale: [("truck", 1.5)]),
+            (name: "rougher deck", impact: [("truck", 0.33)]),
+        ],
+        axes: [
+            (name: "truck", scale: "truck", values: [0.5, 2.0]),
+            (name: "impact", impact: "truck", values: [0.0]),
+        ],
+    )"#;
+    let model = temp_model("m.ron", &demo_text());
+    let sweep_path = model.with_file_name("s.ron");
+    std::fs::write(&sweep_path, sweep).unwrap();
+    let (code, out, err) = run(&[
+        "sweep",
+        model.to_str().unwrap(),
+        sweep_path.to_str().unwrap(),
+        "--format",
+        "json",
+    ]);
+    assert_eq!(code, 0, "{err}");
+    let v: serde_json::Value = serde_json::from_str(&out).unwrap();
+    let rows = v["variants"].as_array().unwrap_or_else(|| panic!("{v}"));
+    assert_eq!(rows.len(), 5);
+    let rf = |i: usize| rows[i]["lowest_rating_factor"].as_f64().unwrap();
+    // The load rating factor RF = (φC − γD·D) / (γL·L(1 + I)) (AASHTO MBE
+    // 6A.4.2.1, the form `rate` uses) is inversely proportional to the
+    // live load with impact, for the same governing member (L3-U4 under
+    // the truck in every variant). Base impact 0.15.
+    for (i, factor, impact) in [(1, 1.5, 0.15), (2, 1.0, 0.33), (3, 0.5, 0.0), (4, 2.0, 0.0)] {
+        assert_eq!(rows[i]["rating_member"], "L3-U4", "{}", rows[i]);
+        assert_eq!(rows[i]["kind"], "loads");
+        let expected = rf(0) * 1.15 / (factor * (1.0 + impact));
+        assert!(
+            close(rf(i), expected, 1e-9, 0.0),
+            "{i}: {} vs {expected}",
+            rf(i)
+        );
+    }
+    // An unknown id is named as what it could have been.
+    std::fs::write(&sweep_path, r#"(variants: [(scale: [("vehicle", 2.0)])])"#).unwrap();
+    let (code, _, err) = run(&[
+        "sweep",
+        model.to_str().unwrap(),
+        sweep_path.to_str().unwrap(),
+    ]);
+    assert_eq!(code, 2);
+    assert!(
+        err.contains(r#"no load case or moving load "vehicle""#),
+        "{err}"
+    );
+}

@@ -549,6 +549,9 @@ fn sweep_json_parses_and_a_failed_run_keeps_the_old_file() {
         target.to_str().unwrap(),
     ]);
     assert_eq!(code, 2);
-    assert!(err.contains("no load case \"nope\""), "{err}");
+    assert!(
+        err.contains("no load case or moving load \"nope\""),
+        "{err}"
+    );
     assert_eq!(std::fs::read_to_string(&target).unwrap(), "old contents");
 }
