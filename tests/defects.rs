@@ -369,3 +369,114 @@ fn a_sweep_scales_a_moving_load_and_changes_its_impact() {
         "{err}"
     );
 }
+
+/// Utilization of the check (member, effect id) of a model rated as `rate` does.
+fn utilization_of(m: &panelpoint::model::Model, member: usize, effect: &str) -> f64 {
+    let a = panelpoint::analysis::analyse(m).unwrap();
+    let curve = panelpoint::rate::choose_curve(m, None).unwrap();
+    let r = panelpoint::rate::rate(m, &a, curve).unwrap();
+    let e = r.effects.iter().position(|e| e.id == effect).unwrap();
+    r.checks
+        .iter()
+        .find(|c| c.member == member && c.effect == e)
+        .unwrap()
+        .utilization
+}
+
+/// The adjoint derivatives of `sensitivity --case` against central finite
+/// differences of the full `rate` (influence lines, envelopes and all
+/// re-run) at every coordinate except the deck nodes' x. h = 1 mm: the envelope keeps its governing position
+/// (piecewise linear in position), and the central difference of a smooth
+/// function is exact to O(h²) (any numerical analysis text).
+fn check_sensitivity_against_rate(m: &panelpoint::model::Model, case: Option<&str>) -> String {
+    let a = panelpoint::analysis::analyse(m).unwrap();
+    let curve = panelpoint::rate::choose_curve(m, None).unwrap();
+    let r = panelpoint::rate::rate(m, &a, curve).unwrap();
+    let s = panelpoint::sensitivity::sensitivity(m, &a, &r, case).unwrap();
+    let effect = r.effects[s.effect].id.clone();
+    assert!(close(
+        utilization_of(m, s.member, &effect),
+        s.utilization,
+        1e-12,
+        0.0
+    ));
+    let h = 1e-3;
+    let mut compared = 0;
+    for c in &s.coordinates {
+        // Held as nodal forces, the vehicle does not follow a deck node
+        // moved along the (level) deck, while `rate` re-rolls it; a
+        // vertical move changes the chainages only to second order.
+        if m.live.deck.contains(&c.node) && c.axis == 0 {
+            continue;
+        }
+        let moved = |d: f64| {
+            let mut v = m.clone();
+            if c.axis == 0 {
+                v.nodes[c.node].x += d;
+            } else {
+                v.nodes[c.node].y += d;
+            }
+            utilization_of(&v, s.member, &effect)
+        };
+        let fd = (moved(h) - moved(-h)) / (2.0 * h);
+        assert!(
+            close(c.d_utilization, fd, 1e-4, 1e-6),
+            "{effect}: node {} axis {}: adjoint {} vs finite difference {fd}",
+            m.nodes[c.node].id,
+            c.axis,
+            c.d_utilization
+        );
+        compared += 1;
+    }
+    assert!(compared >= 10, "{compared}");
+    effect
+}
+
+// Defect 3: `sensitivity` ignored moving loads and combinations with them:
+// it reported 0.43 under strength-crowd while `rate` governs at 2.18 under
+// strength-truck.
+#[test]
+fn sensitivity_differentiates_the_check_rate_governs_including_the_vehicle() {
+    let m = load(&demo_text());
+    // No --case: the check `rate` reports as controlling (2.175, L3-U4,
+    // strength-truck with the truck's compression envelope).
+    let effect = check_sensitivity_against_rate(&m, None);
+    assert_eq!(effect, "strength-truck (truck max compression)");
+    // --case takes what `draw --case` takes (cases, combinations) and a
+    // moving load's id.
+    for case in ["strength-truck", "truck", "crowd", "deck", "strength-crowd"] {
+        check_sensitivity_against_rate(&m, Some(case));
+    }
+    // A lane (crowd) load: the lane is placed over the parts of the
+    // influence line of the envelope's sign; held as nodal loads it must
+    // rebuild the envelope's force exactly (sensitivity refuses otherwise).
+    let text = demo_text().replace(
+        r#"(id: "truck", vehicle: "maintenance-truck", step: "1 ft", impact: 0.15),"#,
+        r#"(id: "truck", vehicle: "maintenance-truck", step: "1 ft", impact: 0.15),
+        (id: "cart", vehicle: "inspection-cart", step: "1 ft", impact: 0.2, impact_on_lane: true),"#,
+    );
+    assert_ne!(text, demo_text());
+    let m = load(&text);
+    let effect = check_sensitivity_against_rate(&m, Some("cart"));
+    assert!(effect.contains("cart"), "{effect}");
+
+    // The command says where the vehicle stood and that the envelope is
+    // piecewise linear in the position.
+    let (code, out, err) = run(&["sensitivity", &demo()]);
+    assert_eq!(code, 0, "{err}");
+    assert!(
+        out.contains("governing utilization 2.175 of member L3-U4 under strength-truck"),
+        "{out}"
+    );
+    assert!(
+        out.contains("truck held where it governs this check"),
+        "{out}"
+    );
+    assert!(
+        out.contains("piecewise linear in the vehicle position"),
+        "{out}"
+    );
+    let (code, _, err) = run(&["sensitivity", &demo(), "--case", "nope"]);
+    assert_eq!(code, 2);
+    assert!(err.contains(r#""strength-truck", "truck""#), "{err}");
+}

@@ -6,7 +6,8 @@ use super::json::{num, string};
 use super::table::{sig, Table};
 use super::{csv, Format, Scale, CAUTION};
 use crate::model::Model;
-use crate::sensitivity::{best_moves, Sensitivity};
+use crate::rate::Side;
+use crate::sensitivity::{best_moves, Held, Sensitivity};
 use crate::sweep::redundancy::Loss;
 use crate::sweep::{Kind, VariantResult};
 use std::io::{self, Write};
@@ -393,6 +394,51 @@ fn move_name(model: &Model, node: usize, axis: usize, d: f64) -> String {
 /// How many of the best moves the text report lists.
 pub const BEST_MOVES: usize = 6;
 
+/// Where the moving load was held, in the model's units, and what that means.
+fn held_text(model: &Model, h: &Held) -> String {
+    let sc = Scale::of(model);
+    let at = match h.at {
+        Some(p) => format!(
+            "front axle at {:.2} {}, {}",
+            p.position / sc.length,
+            sc.length_name,
+            p.direction.name()
+        ),
+        None => "no axle contributing".into(),
+    };
+    let lane = if h.lane {
+        format!(
+            ", lane load over the {} parts of the influence line",
+            if h.side == Side::Tension {
+                "tension"
+            } else {
+                "compression"
+            }
+        )
+    } else {
+        String::new()
+    };
+    format!(
+        "{} held where it governs this check ({}): {at}{lane}. The envelope is piecewise linear in the vehicle position, so these are the derivatives at that position (one-sided where another position is about to govern); the vehicle's loads are held as nodal forces at the deck nodes, so a moved deck node carries the same load",
+        h.moving_load,
+        h.side.label()
+    )
+}
+
+fn held_json(model: &Model, h: Option<&Held>) -> String {
+    let Some(h) = h else { return "null".into() };
+    let sc = Scale::of(model);
+    format!(
+        "{{\"moving_load\":{},\"side\":{},\"front_axle\":{},\"direction\":{},\"lane\":{},\"note\":{}}}",
+        string(&h.moving_load),
+        string(h.side.label()),
+        h.at.map_or("null".into(), |p| num(p.position / sc.length)),
+        h.at.map_or("null".into(), |p| string(p.direction.name())),
+        h.lane,
+        string(&held_text(model, h))
+    )
+}
+
 /// `panelpoint sensitivity`.
 pub fn sensitivity(
     w: &mut dyn Write,
@@ -429,6 +475,15 @@ pub fn sensitivity(
                 csv::field(&model.cases[s.deflection_case].id),
                 csv::num(s.deflection / sc.disp)
             )?;
+            if let Some(h) = &s.held {
+                writeln!(
+                    w,
+                    "moving load held,{},{},,{},,",
+                    csv::field(&h.moving_load),
+                    csv::field(h.side.label()),
+                    csv::field(&held_text(model, h))
+                )?;
+            }
             for c in &s.coordinates {
                 writeln!(
                     w,
@@ -444,7 +499,7 @@ pub fn sensitivity(
         Format::Json => {
             write!(
                 w,
-                "{{\"title\":{},\"caution\":{},\"units\":{{\"length\":{},\"deflection\":{}}},\"utilization\":{{\"member\":{},\"case\":{},\"value\":{}}},\"deflection\":{{\"node\":{},\"case\":{},\"value\":{}}},\"coordinates\":[",
+                "{{\"title\":{},\"caution\":{},\"units\":{{\"length\":{},\"deflection\":{}}},\"utilization\":{{\"member\":{},\"case\":{},\"value\":{}}},\"deflection\":{{\"node\":{},\"case\":{},\"value\":{}}},\"held\":{},\"coordinates\":[",
                 string(&model.title),
                 string(CAUTION),
                 string(sc.length_name),
@@ -454,7 +509,8 @@ pub fn sensitivity(
                 num(s.utilization),
                 string(&model.nodes[s.deflection_node].id),
                 string(&model.cases[s.deflection_case].id),
-                num(s.deflection / sc.disp)
+                num(s.deflection / sc.disp),
+                held_json(model, s.held.as_ref())
             )?;
             for (i, c) in s.coordinates.iter().enumerate() {
                 if i > 0 {
@@ -485,6 +541,9 @@ pub fn sensitivity(
                 model.nodes[s.deflection_node].id,
                 model.cases[s.deflection_case].id
             )?;
+            if let Some(h) = &s.held {
+                writeln!(w, "{}", held_text(model, h))?;
+            }
             writeln!(
                 w,
                 "\nmoves that lower the governing utilization most, per {} moved:",
