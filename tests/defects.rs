@@ -480,3 +480,156 @@ fn sensitivity_differentiates_the_check_rate_governs_including_the_vehicle() {
     assert_eq!(code, 2);
     assert!(err.contains(r#""strength-truck", "truck""#), "{err}");
 }
+
+// Defect 14: `-o` and `--out` on every command that writes; a narrow
+// terminal; `new` writes a deck line and a Dead panel case.
+#[test]
+fn every_writing_command_takes_dash_o_and_long_out() {
+    let model = temp_model("m.ron", &demo_text());
+    let m = model.to_str().unwrap();
+    let dir = model.parent().unwrap();
+    let sweep = dir.join("s.ron");
+    std::fs::write(&sweep, r#"(variants: [(scale: [("truck", 1.5)])])"#).unwrap();
+    let s = sweep.to_str().unwrap();
+    let commands: Vec<Vec<&str>> = vec![
+        vec!["solve", m],
+        vec!["rate", m],
+        vec!["section", m],
+        vec!["influence", m],
+        vec!["envelope", m],
+        vec!["sweep", m, s],
+        vec!["redundancy", m],
+        vec!["sensitivity", m],
+        vec!["draw", m],
+        vec!["report", m],
+        vec!["new", "pratt", "--height", "20", "--panel-width", "16"],
+    ];
+    for (k, args) in commands.iter().enumerate() {
+        for flag in ["-o", "--out"] {
+            let target = dir.join(format!("out-{k}-{}", flag.trim_start_matches('-')));
+            let mut a = args.clone();
+            a.extend([flag, target.to_str().unwrap()]);
+            let (code, out, err) = run(&a);
+            assert_eq!(code, 0, "{a:?}: {err}");
+            assert!(out.is_empty(), "{a:?} wrote to standard output");
+            let written = std::fs::read_to_string(&target).unwrap();
+            assert!(!written.is_empty(), "{a:?}");
+        }
+    }
+}
+
+/// `rate` text at `COLUMNS=cols`: every table line fits; returns the text.
+fn rate_at_width(cols: usize) -> String {
+    let out = std::process::Command::new(env!("CARGO_BIN_EXE_panelpoint"))
+        .args(["rate", &demo()])
+        .env("COLUMNS", cols.to_string())
+        .env("NO_COLOR", "1")
+        .output()
+        .unwrap();
+    assert_eq!(out.status.code(), Some(0));
+    let text = String::from_utf8(out.stdout).unwrap();
+    // Every table line fits (prose lines wrap in any terminal and lose
+    // nothing; table lines wrapped by the terminal scramble the columns).
+    let mut in_table = false;
+    for line in text.lines() {
+        if line.starts_with("== ") {
+            in_table = true;
+        } else if line.trim().is_empty() {
+            in_table = false;
+        }
+        // Parenthesised notes are prose.
+        if in_table && !line.starts_with('(') {
+            assert!(
+                line.chars().count() <= cols,
+                "{} chars: {line}",
+                line.chars().count()
+            );
+        }
+    }
+    text
+}
+
+#[test]
+fn a_narrow_terminal_loses_no_column_silently() {
+    let text = rate_at_width(80);
+    // Columns left out are named, with how to see them.
+    let flat = text.replace('\n', " ");
+    assert!(
+        flat.contains("left out to fit 80 columns: Fe ksi, Fcr ksi"),
+        "{text}"
+    );
+    assert!(flat.contains("--format csv"), "{text}");
+    // The rest are all there: headers over two lines where needed, the
+    // long case names whole.
+    assert!(
+        text.contains("strength-truck (truck max compression)"),
+        "{text}"
+    );
+    for h in ["RF", "inventory", "operating", "live+IM", "capacity"] {
+        assert!(flat.contains(h), "{h}: {text}");
+    }
+    // Narrower still: the case column wraps, and says so; no word is cut.
+    let text = rate_at_width(60);
+    let flat = text.replace('\n', " ");
+    assert!(
+        flat.contains("column \"case\" wrapped to fit 60 columns"),
+        "{text}"
+    );
+    assert!(text.contains("compression)") && text.contains("strength-truck"));
+}
+
+#[test]
+fn a_generated_truss_with_a_panel_load_has_a_deck_and_a_dead_case() {
+    let dir = temp_model("unused.ron", "");
+    let path = dir.with_file_name("gen.ron");
+    let (code, _, err) = run(&[
+        "new",
+        "pratt",
+        "--panels",
+        "6",
+        "--panel-width",
+        "16",
+        "--height",
+        "20",
+        "--panel-load",
+        "10",
+        "-o",
+        path.to_str().unwrap(),
+    ]);
+    assert_eq!(code, 0, "{err}");
+    let text = std::fs::read_to_string(&path).unwrap();
+    let m = load(&text);
+    // The deck is the loaded (bottom) chord L0..L6, in order.
+    let deck: Vec<&str> = m
+        .live
+        .deck
+        .iter()
+        .map(|&n| m.nodes[n].id.as_str())
+        .collect();
+    assert_eq!(deck, ["L0", "L1", "L2", "L3", "L4", "L5", "L6"]);
+    assert_eq!(m.cases[0].kind, panelpoint::model::CaseKind::Dead);
+    // It rates, and the moving-load commands find their deck, unedited.
+    for cmd in ["rate", "influence", "validate"] {
+        let (code, _, err) = run(&[cmd, path.to_str().unwrap()]);
+        assert_eq!(code, 0, "{cmd}: {err}");
+    }
+    // With a vehicle added (and nothing else edited) it gets rating
+    // factors on the panel load as dead load. Hand: the dead force of the
+    // end post L0-U1 of a 6-panel Pratt with 10 kip at L1..L5: R = 25 kip,
+    // F = −R·L/h = −25 × √(16² + 20²)/20 = −32.02 kip (method of joints).
+    let with_truck = text.replace(
+        "    deck: [",
+        "    vehicles_file: \"vehicles.ron\",\n    moving_loads: [(id: \"truck\", vehicle: \"maintenance-truck\", step: \"1 ft\", impact: 0.15)],\n    deck: [",
+    );
+    let p2 = temp_model("gen-truck.ron", &with_truck);
+    let (code, out, err) = run(&["rate", p2.to_str().unwrap(), "--format", "json"]);
+    assert_eq!(code, 0, "{err}");
+    let v: serde_json::Value = serde_json::from_str(&out).unwrap();
+    let ratings = v["ratings"].as_array().unwrap_or_else(|| panic!("{v}"));
+    let post = ratings.iter().find(|r| r["member"] == "L0-U1").unwrap();
+    let dead = post["dead"].as_f64().unwrap();
+    assert!(
+        (dead + 25.0 * (16.0f64.hypot(20.0)) / 20.0).abs() < 1e-6,
+        "{dead}"
+    );
+}

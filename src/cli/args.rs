@@ -47,7 +47,7 @@ pub enum Command {
         #[arg(long, value_enum, default_value_t = FormatArg::Text)]
         format: FormatArg,
         /// Write to this file (atomically) instead of standard output.
-        #[arg(long)]
+        #[arg(short = 'o', long = "out")]
         out: Option<PathBuf>,
     },
     /// Check every member's capacity (slenderness, buckling, tension) under every
@@ -60,7 +60,7 @@ pub enum Command {
         curve: Option<String>,
         #[arg(long, value_enum, default_value_t = FormatArg::Text)]
         format: FormatArg,
-        #[arg(long)]
+        #[arg(short = 'o', long = "out")]
         out: Option<PathBuf>,
         /// Show every row in the text tables (default: the 40 highest).
         #[arg(long)]
@@ -75,7 +75,7 @@ pub enum Command {
         id: Option<String>,
         #[arg(long, value_enum, default_value_t = SectionFormat::Text)]
         format: SectionFormat,
-        #[arg(long)]
+        #[arg(short = 'o', long = "out")]
         out: Option<PathBuf>,
     },
     /// Influence lines of member forces and support reactions for a unit
@@ -91,7 +91,7 @@ pub enum Command {
         #[arg(long, value_enum, default_value_t = FormatArg::Text)]
         format: FormatArg,
         /// Write to this file (atomically) instead of standard output.
-        #[arg(long)]
+        #[arg(short = 'o', long = "out")]
         out: Option<PathBuf>,
     },
     /// Greatest tension and compression in every member (and reactions)
@@ -101,7 +101,7 @@ pub enum Command {
         #[arg(long, value_enum, default_value_t = FormatArg::Text)]
         format: FormatArg,
         /// Write to this file (atomically) instead of standard output.
-        #[arg(long)]
+        #[arg(short = 'o', long = "out")]
         out: Option<PathBuf>,
     },
     /// Write a starting model of a truss family (RON) to standard output or a file.
@@ -147,7 +147,7 @@ pub enum Command {
         #[arg(long, value_enum, default_value_t = FormatArg::Text)]
         format: FormatArg,
         /// Write rows here as they finish (kept as OUT.partial if interrupted).
-        #[arg(long)]
+        #[arg(short = 'o', long = "out")]
         out: Option<PathBuf>,
         /// Per-member results of every variant.
         #[arg(long)]
@@ -160,7 +160,7 @@ pub enum Command {
         curve: Option<String>,
         #[arg(long, value_enum, default_value_t = FormatArg::Text)]
         format: FormatArg,
-        #[arg(long)]
+        #[arg(short = 'o', long = "out")]
         out: Option<PathBuf>,
     },
     /// Derivatives of the governing utilization and largest deflection with respect to node coordinates.
@@ -173,7 +173,7 @@ pub enum Command {
         curve: Option<String>,
         #[arg(long, value_enum, default_value_t = FormatArg::Text)]
         format: FormatArg,
-        #[arg(long)]
+        #[arg(short = 'o', long = "out")]
         out: Option<PathBuf>,
     },
     /// Draw the truss as SVG: geometry to scale with labels, supports and
