@@ -360,6 +360,22 @@ mod tests {
                 assert_eq!((&l.node, l.fy), (node, *fy));
             }
         }
+        // The deck is the bottom chord (the generator's L nodes at y = 0),
+        // left to right; a layout without them (the lattice) has none.
+        let at = |id: &str| t.nodes.iter().find(|n| n.0 == id).unwrap();
+        let bottom = t
+            .nodes
+            .iter()
+            .filter(|(id, _, y)| id.starts_with('L') && *y == 0.0)
+            .count();
+        assert_eq!(m.deck.len(), if bottom >= 2 { bottom } else { 0 });
+        for w in m.deck.windows(2) {
+            assert!(
+                at(&w[0]).1 < at(&w[1]).1 && at(&w[1]).2 == 0.0,
+                "{:?}",
+                m.deck
+            );
+        }
     }
 
     fn opts(family: Family, panels: usize) -> GenerateOptions {
