@@ -39,9 +39,6 @@ fn bad_input_exits_2_with_a_clear_message() {
         assert_ne!(text, FOUR_PANEL, "{what}: the edit did not apply");
         let path = temp_model(&format!("bad-{}.ron", what.replace(' ', "-")), &text);
         for cmd in ["validate", "solve"] {
-            if what.starts_with("mechanism") && cmd == "validate" {
-                continue;
-            }
             let (code, out, err) = run(&[cmd, path.to_str().unwrap()]);
             assert_eq!(code, 2, "{what} ({cmd}): exit {code}, stderr {err}");
             assert!(

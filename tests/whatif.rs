@@ -432,6 +432,14 @@ fn check_against_finite_differences(text: &str) {
     let h = 1e-4; // m
     let mut compared = 0;
     for c in &s.coordinates {
+        // A moving load is held as nodal forces at the deck nodes (the
+        // documented convention), while `rate` re-rolls it along the moved
+        // deck. Along a level deck a vertical move changes the chainages
+        // only to second order (√(a² + d²) − a ≈ d²/2a), so only the
+        // horizontal moves of deck nodes are left out.
+        if s.held.is_some() && m.live.deck.contains(&c.node) && c.axis == 0 {
+            continue;
+        }
         let mv = |sign: f64| {
             let mut mm = m.clone();
             let n = &mut mm.nodes[c.node];
@@ -503,7 +511,10 @@ fn sensitivity_of_a_compression_member_includes_slenderness() {
         "nope",
     ]);
     assert_eq!(code, 2);
-    assert!(err.contains("no such load case"), "{err}");
+    assert!(
+        err.contains("no load case, combination or moving load"),
+        "{err}"
+    );
 }
 
 #[test]
@@ -549,6 +560,9 @@ fn sweep_json_parses_and_a_failed_run_keeps_the_old_file() {
         target.to_str().unwrap(),
     ]);
     assert_eq!(code, 2);
-    assert!(err.contains("no load case \"nope\""), "{err}");
+    assert!(
+        err.contains("no load case or moving load \"nope\""),
+        "{err}"
+    );
     assert_eq!(std::fs::read_to_string(&target).unwrap(), "old contents");
 }

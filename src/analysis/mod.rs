@@ -5,7 +5,8 @@
 pub mod assemble;
 pub mod conditioning;
 pub mod dofs;
+pub mod mechanism;
 pub mod results;
 pub mod solve;
 
-pub use results::{analyse, analyse_beside, Analysis, CaseResult};
+pub use results::{analyse, analyse_beside, free_motion, Analysis, CaseResult};

@@ -19,6 +19,8 @@ pub enum AnalysisError {
         direction: String,
         pivot_ratio: f64,
     },
+    #[error("the truss is a mechanism: its supports do not hold it, the whole truss is free to {motion} as a rigid body; add a support or make a roller a pin")]
+    RigidBody { motion: String },
     #[error("load case \"{case}\": equilibrium residual {relative:.1e} of the largest force exceeds {limit:.0e}; the model is too ill-conditioned to trust")]
     Residual {
         case: String,
@@ -70,14 +72,66 @@ pub struct Analysis {
     pub warnings: Vec<String>,
 }
 
+/// The error for a failed factorization: a mechanism named by the node and
+/// direction that move most in its free motion (the null vector of K), or
+/// a rigid-body motion of the whole truss.
 fn mechanism(model: &Model, dofs: &Dofs, e: FactorError) -> AnalysisError {
+    use super::mechanism::{direction_name, free_motion, nearest_node, Rigid};
     match e {
-        FactorError::Singular { dof, pivot_ratio } => AnalysisError::Mechanism {
-            node: model.nodes[dofs.node[dof] as usize].id.clone(),
-            direction: dofs.direction_name(dof),
+        FactorError::Singular {
+            dof,
             pivot_ratio,
-        },
+            mode,
+        } => {
+            let Some(mode) = mode else {
+                return AnalysisError::Mechanism {
+                    node: model.nodes[dofs.node[dof] as usize].id.clone(),
+                    direction: dofs.direction_name(dof),
+                    pivot_ratio,
+                };
+            };
+            let motion = free_motion(model, dofs, &mode);
+            match motion.rigid {
+                Some(Rigid::Translation(d)) => AnalysisError::RigidBody {
+                    motion: format!("move in {}", direction_name(d)),
+                },
+                Some(Rigid::Rotation(p)) => {
+                    let (n, dist) = nearest_node(model, p);
+                    let scale = model
+                        .nodes
+                        .iter()
+                        .fold(0.0f64, |a, q| a.max(q.x.abs()).max(q.y.abs()));
+                    let near = if dist <= 1e-6 * scale.max(1e-9) {
+                        "about node"
+                    } else {
+                        "about a point near node"
+                    };
+                    AnalysisError::RigidBody {
+                        motion: format!("rotate {near} \"{}\"", model.nodes[n].id),
+                    }
+                }
+                None => AnalysisError::Mechanism {
+                    node: model.nodes[dofs.node[motion.dof] as usize].id.clone(),
+                    direction: dofs.direction_name(motion.dof),
+                    pivot_ratio,
+                },
+            }
+        }
         FactorError::Internal => AnalysisError::Internal,
+    }
+}
+
+/// The free motion of a model that is a mechanism (node displacements of
+/// the null vector of K, largest DOF entry 1), or None when K factors.
+pub fn free_motion(model: &Model) -> Option<super::mechanism::FreeMotion> {
+    let dofs = Dofs::new(model);
+    let k = stiffness(model, &dofs);
+    let err = Symbolic::new(&k).and_then(|s| s.factor(&k)).err()?;
+    match err {
+        FactorError::Singular {
+            mode: Some(mode), ..
+        } => Some(super::mechanism::free_motion(model, &dofs, &mode)),
+        _ => None,
     }
 }
 

@@ -27,10 +27,16 @@ pub const MECHANISM_PIVOT_RATIO: f64 = 1e-10;
 const MARKER_PIVOT: f64 = 0.0009765625;
 const MARKER_ROOT: f64 = 0.03125;
 
-#[derive(Clone, Copy, Debug, PartialEq)]
+#[derive(Clone, Debug, PartialEq)]
 pub enum FactorError {
     /// The matrix is singular or nearly so at this (original) DOF index.
-    Singular { dof: usize, pivot_ratio: f64 },
+    /// `mode` is the free motion found (a null vector of K, one entry per
+    /// DOF, largest entry ±1), when it could be computed.
+    Singular {
+        dof: usize,
+        pivot_ratio: f64,
+        mode: Option<Vec<f64>>,
+    },
     /// faer could not allocate or the pattern was malformed.
     Internal,
 }
@@ -129,9 +135,14 @@ impl Symbolic {
         for (j, sc) in scale.iter_mut().enumerate() {
             let d = k.get(j, j);
             if d.is_nan() || d <= 0.0 || !d.is_finite() {
+                // No stiffness at all along DOF j: K being positive
+                // semidefinite, its row is zero and e_j itself is free.
+                let mut mode = vec![0.0; n];
+                mode[j] = 1.0;
                 return Err(FactorError::Singular {
                     dof: j,
                     pivot_ratio: 0.0,
+                    mode: (d == 0.0).then_some(mode),
                 });
             }
             *sc = 1.0 / d.sqrt();
@@ -185,9 +196,18 @@ impl Symbolic {
         for (i, l) in pivots.iter().enumerate() {
             let ratio = l * l;
             if *l == MARKER_ROOT {
+                let dof = self.original(i);
+                let regularized = Factor {
+                    symbolic: self.clone(),
+                    values,
+                    scale,
+                    min_pivot_ratio: 0.0,
+                    min_pivot_dof: dof,
+                };
                 return Err(FactorError::Singular {
-                    dof: self.original(i),
+                    dof,
                     pivot_ratio: 0.0,
+                    mode: regularized.null_vector(dof),
                 });
             }
             if ratio < min_ratio {
@@ -238,6 +258,30 @@ impl Symbolic {
 }
 
 impl Factor {
+    /// The free motion behind the first regularized pivot, at DOF `dof`.
+    ///
+    /// Regularizing the pivot of the i-th eliminated DOF factors
+    /// K̃' = K̃ + δ·e_i·e_iᵀ (K̃ the Jacobi-scaled K). The DOFs eliminated
+    /// before i are stiff (their pivots were accepted), so the leading block
+    /// up to i has a null vector v with v_i = 1 and zeros after i; K being
+    /// positive semidefinite, vᵀK̃v = 0 makes v a null vector of the whole
+    /// K̃, and then K̃'v = δ·e_i: one solve with e_i gives the mode. In the
+    /// unscaled DOFs the same solve through [`Factor::solve_in_place`]
+    /// (which applies D^-½ on both sides) returns D^-½·v/δ·√K_ii: the
+    /// displacements of the mechanism. Normalized to a largest entry of 1.
+    fn null_vector(&self, dof: usize) -> Option<Vec<f64>> {
+        let n = self.n();
+        let mut x = vec![0.0; n];
+        x[dof] = 1.0;
+        self.solve_in_place(&mut x, 1);
+        let largest = x.iter().fold(0.0f64, |a, v| a.max(v.abs()));
+        if !largest.is_finite() || largest == 0.0 {
+            return None;
+        }
+        x.iter_mut().for_each(|v| *v /= largest);
+        Some(x)
+    }
+
     pub fn n(&self) -> usize {
         self.symbolic.n()
     }

@@ -35,7 +35,8 @@ pub enum ShowArg {
 
 #[derive(Subcommand, Debug)]
 pub enum Command {
-    /// Check a model file and list every problem found, without analysing it.
+    /// Check a model file and list every problem found, then check that it is
+    /// stable (factors the stiffness; a mechanism is named by node and direction).
     Validate {
         /// The model file (RON).
         model: PathBuf,
@@ -46,7 +47,7 @@ pub enum Command {
         #[arg(long, value_enum, default_value_t = FormatArg::Text)]
         format: FormatArg,
         /// Write to this file (atomically) instead of standard output.
-        #[arg(long)]
+        #[arg(short = 'o', long = "out")]
         out: Option<PathBuf>,
     },
     /// Check every member's capacity (slenderness, buckling, tension) under every
@@ -59,7 +60,7 @@ pub enum Command {
         method: Option<String>,
         #[arg(long, value_enum, default_value_t = FormatArg::Text)]
         format: FormatArg,
-        #[arg(long)]
+        #[arg(short = 'o', long = "out")]
         out: Option<PathBuf>,
         /// Show every row in the text tables (default: the 40 highest).
         #[arg(long)]
@@ -74,7 +75,7 @@ pub enum Command {
         id: Option<String>,
         #[arg(long, value_enum, default_value_t = SectionFormat::Text)]
         format: SectionFormat,
-        #[arg(long)]
+        #[arg(short = 'o', long = "out")]
         out: Option<PathBuf>,
     },
     /// Influence lines of member forces and support reactions for a unit
@@ -90,7 +91,7 @@ pub enum Command {
         #[arg(long, value_enum, default_value_t = FormatArg::Text)]
         format: FormatArg,
         /// Write to this file (atomically) instead of standard output.
-        #[arg(long)]
+        #[arg(short = 'o', long = "out")]
         out: Option<PathBuf>,
     },
     /// Greatest tension and compression in every member (and reactions)
@@ -100,7 +101,7 @@ pub enum Command {
         #[arg(long, value_enum, default_value_t = FormatArg::Text)]
         format: FormatArg,
         /// Write to this file (atomically) instead of standard output.
-        #[arg(long)]
+        #[arg(short = 'o', long = "out")]
         out: Option<PathBuf>,
     },
     /// Write a starting model of a truss family (RON) to standard output or a file.
@@ -147,7 +148,7 @@ pub enum Command {
         #[arg(long, value_enum, default_value_t = FormatArg::Text)]
         format: FormatArg,
         /// Write rows here as they finish (kept as OUT.partial if interrupted).
-        #[arg(long)]
+        #[arg(short = 'o', long = "out")]
         out: Option<PathBuf>,
         /// Per-member results of every variant.
         #[arg(long)]
@@ -161,7 +162,7 @@ pub enum Command {
         method: Option<String>,
         #[arg(long, value_enum, default_value_t = FormatArg::Text)]
         format: FormatArg,
-        #[arg(long)]
+        #[arg(short = 'o', long = "out")]
         out: Option<PathBuf>,
     },
     /// Derivatives of the governing utilization and largest deflection with respect to node coordinates.
@@ -175,7 +176,7 @@ pub enum Command {
         method: Option<String>,
         #[arg(long, value_enum, default_value_t = FormatArg::Text)]
         format: FormatArg,
-        #[arg(long)]
+        #[arg(short = 'o', long = "out")]
         out: Option<PathBuf>,
     },
     /// Draw the truss as SVG: geometry to scale with labels, supports and

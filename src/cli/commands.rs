@@ -107,6 +107,12 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             for d in &c.warnings {
                 let _ = writeln!(err, "panelpoint: warning: {}: {d}", model.display());
             }
+            // A model that cannot be analysed is not valid: factor K (the
+            // stability check) and name the free motion of a mechanism.
+            analysis::results::Prepared::new(m).map_err(|source| Error::Analysis {
+                path: model.clone(),
+                source,
+            })?;
             println!(
                 "{}: valid: {} nodes, {} members, {} supports, {} load cases; {}",
                 model.display(),

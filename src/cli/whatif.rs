@@ -261,22 +261,23 @@ pub fn sensitivity(
 ) -> Result<u8, Error> {
     let (c, a, r) = analysed(path, method)?;
     let m = &c.model;
-    let case = match case {
-        None => None,
-        Some(id) => Some(m.cases.iter().position(|x| x.id == id).ok_or_else(|| {
-            Error::Usage(format!(
-                "{}: --case \"{id}\": no such load case (cases: {})",
-                path.display(),
-                m.cases
-                    .iter()
-                    .map(|x| x.id.as_str())
-                    .collect::<Vec<_>>()
-                    .join(", ")
-            ))
-        })?),
-    };
-    let s = crate::sensitivity::sensitivity(m, &a, &r, case)
-        .map_err(|e| Error::Usage(format!("{}: {e}", path.display())))?;
+    use crate::sensitivity::SensitivityError as S;
+    let s = crate::sensitivity::sensitivity(m, &a, &r, case).map_err(|e| match e {
+        S::Loads(source) => Error::Loads {
+            path: path.to_path_buf(),
+            source,
+        },
+        S::Analysis(source) => Error::Analysis {
+            path: path.to_path_buf(),
+            source,
+        },
+        // Ours, not the input's: exit 1.
+        S::Rebuilt { .. } => Error::Write {
+            what: format!("the sensitivity of {}", path.display()),
+            source: io::Error::other(e.to_string()),
+        },
+        e => Error::Usage(format!("{}: {e}", path.display())),
+    })?;
     let effect = r.effects[s.effect].id.clone();
     write(out, |w| {
         report::whatif::sensitivity(w, m, &s, &effect, format)

@@ -117,12 +117,17 @@ pub fn layout_to_ron(layout: &TrussLayout) -> String {
         .iter()
         .map(|(node, fy)| format!("(node: {}, fy: {})", string(node), number(*fy)))
         .collect();
+    // The panel load stands for the deck's weight: a Dead case, so the
+    // rating takes it as the dead load.
     let cases: Vec<String> = if loads.is_empty() {
         Vec::new()
     } else if loads.len() <= INLINE_LOADS {
-        vec![format!("(id: \"panel\", loads: [{}])", loads.join(", "))]
+        vec![format!(
+            "(id: \"panel\", kind: Dead, loads: [{}])",
+            loads.join(", ")
+        )]
     } else {
-        let mut case = String::from("(id: \"panel\", loads: [\n");
+        let mut case = String::from("(id: \"panel\", kind: Dead, loads: [\n");
         for load in &loads {
             let _ = writeln!(case, "            {load},");
         }
@@ -130,8 +135,37 @@ pub fn layout_to_ron(layout: &TrussLayout) -> String {
         vec![case]
     };
     list(&mut out, "load_cases", cases);
+    let deck = deck_line(layout);
+    if !deck.is_empty() {
+        out.push_str(
+            "    // The deck line: the loaded (bottom) chord's panel points, where the floor\n    // beams deliver vehicle loads. Add `vehicles_file` or `vehicles` and\n    // `moving_loads` to rate a vehicle (docs/loads.md).\n",
+        );
+        let ids: Vec<String> = deck.iter().map(|id| string(id)).collect();
+        let _ = writeln!(out, "    deck: [{}],", ids.join(", "));
+    }
     out.push_str(")\n");
     out
+}
+
+/// The loaded chord's panel points in order: the generator's bottom chord
+/// `L0`…`Ln` (ordered by their number); empty for a layout without them.
+fn deck_line(layout: &TrussLayout) -> Vec<String> {
+    let mut bottom: Vec<(usize, &str)> = layout
+        .nodes
+        .iter()
+        .filter_map(|(id, _, _)| {
+            let n = id.strip_prefix('L')?;
+            if n.is_empty() || !n.bytes().all(|b| b.is_ascii_digit()) {
+                return None;
+            }
+            Some((n.parse::<usize>().ok()?, id.as_str()))
+        })
+        .collect();
+    bottom.sort();
+    if bottom.len() < 2 {
+        return Vec::new();
+    }
+    bottom.into_iter().map(|(_, id)| id.to_string()).collect()
 }
 
 /// `    name: [` + one entry per line + `    ],`, or `    name: [],` when empty.
@@ -206,6 +240,8 @@ mod tests {
         members: Vec<Member>,
         supports: Vec<Support>,
         load_cases: Vec<LoadCase>,
+        #[serde(default)]
+        deck: Vec<String>,
     }
 
     #[derive(Deserialize, Debug)]
@@ -270,7 +306,13 @@ mod tests {
     #[serde(deny_unknown_fields)]
     struct LoadCase {
         id: String,
+        kind: CaseKind,
         loads: Vec<Load>,
+    }
+
+    #[derive(Deserialize, Debug, PartialEq)]
+    enum CaseKind {
+        Dead,
     }
 
     #[derive(Deserialize, Debug)]
@@ -311,11 +353,28 @@ mod tests {
         } else {
             assert_eq!(m.load_cases.len(), 1);
             assert_eq!(m.load_cases[0].id, "panel");
+            assert_eq!(m.load_cases[0].kind, CaseKind::Dead);
             let loads = &m.load_cases[0].loads;
             assert_eq!(loads.len(), t.loads.len());
             for (l, (node, fy)) in loads.iter().zip(&t.loads) {
                 assert_eq!((&l.node, l.fy), (node, *fy));
             }
+        }
+        // The deck is the bottom chord (the generator's L nodes at y = 0),
+        // left to right; a layout without them (the lattice) has none.
+        let at = |id: &str| t.nodes.iter().find(|n| n.0 == id).unwrap();
+        let bottom = t
+            .nodes
+            .iter()
+            .filter(|(id, _, y)| id.starts_with('L') && *y == 0.0)
+            .count();
+        assert_eq!(m.deck.len(), if bottom >= 2 { bottom } else { 0 });
+        for w in m.deck.windows(2) {
+            assert!(
+                at(&w[0]).1 < at(&w[1]).1 && at(&w[1]).2 == 0.0,
+                "{:?}",
+                m.deck
+            );
         }
     }
 
@@ -365,7 +424,8 @@ mod tests {
             "        (id: \"L0-L1\", start: \"L0\", end: \"L1\", section: \"chord\", material: \"steel\"),",
             "        (node: \"L0\", kind: Pin),",
             "        (node: \"L4\", kind: Roller),",
-            "        (id: \"panel\", loads: [(node: \"L1\", fy: -20.0), (node: \"L2\", fy: -20.0), (node: \"L3\", fy: -20.0)]),",
+            "        (id: \"panel\", kind: Dead, loads: [(node: \"L1\", fy: -20.0), (node: \"L2\", fy: -20.0), (node: \"L3\", fy: -20.0)]),",
+            "    deck: [\"L0\", \"L1\", \"L2\", \"L3\", \"L4\"],",
         ] {
             assert!(text.lines().any(|l| l == expected), "missing {expected}\n{text}");
         }

@@ -34,9 +34,12 @@ pub struct SweepFile {
 pub struct ChangesFile {
     #[serde(default)]
     pub name: Option<String>,
-    /// `[("crowd", 1.25)]`: multiply a case's loads.
+    /// `[("crowd", 1.25)]`: multiply a case's loads, or a moving load's vehicle.
     #[serde(default)]
     pub scale: Vec<(String, f64)>,
+    /// `[("truck", 0.33)]`: the dynamic allowance of a moving load or live case.
+    #[serde(default)]
+    pub impact: Vec<(String, f64)>,
     #[serde(default)]
     pub add_cases: Vec<AddCaseFile>,
     #[serde(default)]
@@ -132,6 +135,9 @@ pub struct AxisFile {
     pub steps: Vec<ChangesFile>,
     #[serde(default)]
     pub scale: Option<String>,
+    /// Shorthand: the impact of this moving load or live case, with values.
+    #[serde(default)]
+    pub impact: Option<String>,
     #[serde(default)]
     pub depth: Option<String>,
     #[serde(default)]
@@ -190,9 +196,47 @@ impl Ctx<'_> {
         let k = self.model.materials.iter().any(|n| n.id == id);
         self.has("material", id, k, at);
     }
-    fn case(&mut self, id: &str, at: &str) {
+    fn is_moving(&self, id: &str) -> bool {
+        self.model.live.moving.iter().any(|x| x.id == id)
+    }
+
+    /// A load case or a moving load; true for a moving load.
+    fn case_or_moving(&mut self, id: &str, at: &str) -> bool {
+        if self.is_moving(id) {
+            return true;
+        }
         let k = self.model.cases.iter().any(|n| n.id == id);
-        self.has("load case", id, k, at);
+        self.has("load case or moving load", id, k, at);
+        false
+    }
+
+    /// A change of impact: a moving load or a load case.
+    fn impact(&mut self, id: &str, impact: f64, at: &str) -> Change {
+        self.case_or_moving(id, at);
+        if !(impact.is_finite() && impact >= 0.0) {
+            self.error(format!(
+                "{at}: impact of \"{id}\" must be a fraction ≥ 0 (0.33 for 33 %), got {impact}"
+            ));
+        }
+        Change::Impact {
+            load: id.to_string(),
+            impact,
+        }
+    }
+
+    /// Scaling a case or a moving load.
+    fn scale(&mut self, id: &str, factor: f64, at: &str) -> Change {
+        if self.case_or_moving(id, at) {
+            Change::ScaleMoving {
+                moving: id.to_string(),
+                factor,
+            }
+        } else {
+            Change::ScaleCase {
+                case: id.to_string(),
+                factor,
+            }
+        }
     }
 }
 
@@ -214,15 +258,15 @@ fn changes(ctx: &mut Ctx, f: &ChangesFile, at: &str) -> (Vec<Change>, Vec<(Strin
     let mut out = Vec::new();
     let mut params = Vec::new();
     for (case, factor) in &f.scale {
-        ctx.case(case, at);
         if !factor.is_finite() {
             ctx.error(format!("{at}: scale factor of \"{case}\" is not finite"));
         }
-        out.push(Change::ScaleCase {
-            case: case.clone(),
-            factor: *factor,
-        });
+        out.push(ctx.scale(case, *factor, at));
         params.push((format!("scale {case}"), format!("{factor}")));
+    }
+    for (load, impact) in &f.impact {
+        out.push(ctx.impact(load, *impact, at));
+        params.push((format!("impact {load}"), format!("{impact}")));
     }
     for add in &f.add_cases {
         let mut loads = Vec::new();
@@ -357,20 +401,25 @@ fn changes(ctx: &mut Ctx, f: &ChangesFile, at: &str) -> (Vec<Change>, Vec<(Strin
 /// The steps of one axis: (label, changes).
 fn axis_steps(ctx: &mut Ctx, a: &AxisFile) -> Vec<(String, Vec<Change>)> {
     let at = format!("axis \"{}\"", a.name);
-    let forms = [!a.steps.is_empty(), a.scale.is_some(), a.depth.is_some()]
-        .iter()
-        .filter(|b| **b)
-        .count();
+    let forms = [
+        !a.steps.is_empty(),
+        a.scale.is_some(),
+        a.impact.is_some(),
+        a.depth.is_some(),
+    ]
+    .iter()
+    .filter(|b| **b)
+    .count();
     if forms != 1 {
         ctx.error(format!(
-            "{at}: give exactly one of steps, scale (with values) or depth (with values)"
+            "{at}: give exactly one of steps, scale, impact or depth (the last three with values)"
         ));
         return vec![];
     }
     if !a.steps.is_empty() {
         if !a.values.is_empty() {
             ctx.error(format!(
-                "{at}: values go with scale or depth, not with steps"
+                "{at}: values go with scale, impact or depth, not with steps"
             ));
         }
         return a
@@ -397,29 +446,48 @@ fn axis_steps(ctx: &mut Ctx, a: &AxisFile) -> Vec<(String, Vec<Change>)> {
         ctx.error(format!("{at}: values is empty"));
         return vec![];
     }
-    if let Some(case) = &a.scale {
-        ctx.case(case, &at);
-        return a
-            .values
-            .iter()
-            .map(|v| {
-                let f = match v {
-                    Quantity::Number(f) if f.is_finite() => *f,
-                    other => {
-                        ctx.error(format!(
-                            "{at}: scale factor {} must be a plain number",
-                            other.show()
-                        ));
-                        1.0
-                    }
-                };
-                let change = Change::ScaleCase {
-                    case: case.clone(),
+    for (id, what, is_scale) in [
+        (&a.scale, "scale factor", true),
+        (&a.impact, "impact", false),
+    ] {
+        let Some(id) = id else { continue };
+        let moving = ctx.case_or_moving(id, &at);
+        let mut steps = Vec::new();
+        for v in &a.values {
+            let f = match v {
+                Quantity::Number(f) if f.is_finite() => *f,
+                other => {
+                    ctx.error(format!(
+                        "{at}: {what} {} must be a plain number",
+                        other.show()
+                    ));
+                    1.0
+                }
+            };
+            let change = match (is_scale, moving) {
+                (true, true) => Change::ScaleMoving {
+                    moving: id.clone(),
                     factor: f,
-                };
-                (v.show().trim_matches('"').to_string(), vec![change])
-            })
-            .collect();
+                },
+                (true, false) => Change::ScaleCase {
+                    case: id.clone(),
+                    factor: f,
+                },
+                (false, _) => {
+                    if f < 0.0 {
+                        ctx.error(format!(
+                            "{at}: impact {f} of \"{id}\" must be a fraction ≥ 0 (0.33 for 33 %)"
+                        ));
+                    }
+                    Change::Impact {
+                        load: id.clone(),
+                        impact: f,
+                    }
+                }
+            };
+            steps.push((v.show().trim_matches('"').to_string(), vec![change]));
+        }
+        return steps;
     }
     let prefix = a.depth.clone().unwrap_or_default();
     let nodes = if prefix == "above-supports" {

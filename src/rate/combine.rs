@@ -16,6 +16,9 @@ pub struct LoadEffect {
     /// A combination (factored by the user); false for a single case and
     /// for a service envelope (dead + moving load).
     pub factored: bool,
+    /// For a combination: its index in `model.combinations`, and the side
+    /// of its moving load's envelope when it names one.
+    pub combination: Option<(usize, Option<Side>)>,
     pub forces: Vec<f64>,
 }
 
@@ -136,11 +139,17 @@ pub fn load_effects_relieved(
             case: Some(i),
             moving: None,
             factored: false,
+            combination: None,
             forces: r.forces.clone(),
         })
         .collect();
     // Combinations that name a moving load are built by `moving_effects`.
-    for combo in model.combinations.iter().filter(|c| c.moving.is_empty()) {
+    for (ci, combo) in model
+        .combinations
+        .iter()
+        .enumerate()
+        .filter(|(_, c)| c.moving.is_empty())
+    {
         let mut forces = vec![0.0; model.members.len()];
         let n = sum_cases(
             model,
@@ -158,6 +167,7 @@ pub fn load_effects_relieved(
             case: None,
             moving: None,
             factored: true,
+            combination: Some((ci, None)),
             forces,
         });
     }
@@ -205,11 +215,12 @@ pub fn moving_effects_relieved(
                 case: None,
                 moving: Some((k, side)),
                 factored: false,
+                combination: None,
                 forces,
             });
         }
     }
-    for combo in &model.combinations {
+    for (ci, combo) in model.combinations.iter().enumerate() {
         for &(k, factor) in &combo.moving {
             let Some(env) = envelopes.get(k) else {
                 continue;
@@ -248,6 +259,7 @@ pub fn moving_effects_relieved(
                     case: None,
                     moving: None,
                     factored: true,
+                    combination: Some((ci, Some(side))),
                     forces,
                 });
             }

@@ -6,7 +6,8 @@ use super::json::{num, string};
 use super::table::{sig, Table};
 use super::{csv, Format, Scale, CAUTION};
 use crate::model::Model;
-use crate::sensitivity::{best_moves, Sensitivity};
+use crate::rate::Side;
+use crate::sensitivity::{best_moves, Held, Sensitivity};
 use crate::sweep::redundancy::Loss;
 use crate::sweep::{Kind, VariantResult};
 use std::io::{self, Write};
@@ -269,7 +270,8 @@ pub fn redundancy(
 ) -> io::Result<()> {
     let s = Scale::of(model);
     match format {
-        Format::Json | Format::Csv => {
+        Format::Csv => redundancy_csv(w, model, losses, &s),
+        Format::Json => {
             write!(
                 w,
                 "{{\"title\":{},\"caution\":{},\"units\":{{\"force\":{}}},\"members\":[",
@@ -284,11 +286,12 @@ pub fn redundancy(
                 let o = |v: &Option<String>| v.as_deref().map_or("null".into(), string);
                 write!(
                     w,
-                    "\n{{\"member\":{},\"critical\":{},\"fracture_critical\":{},\"service_force\":{},\"max_utilization_after\":{},\"controlling_member\":{},\"controlling_case\":{},\"mechanism\":{}}}",
+                    "\n{{\"member\":{},\"critical\":{},\"fracture_critical\":{},\"service_force\":{},\"service_effect\":{},\"max_utilization_after\":{},\"controlling_member\":{},\"controlling_case\":{},\"mechanism\":{}}}",
                     string(&model.members[l.member].id),
                     l.critical,
                     l.fracture_critical,
                     num(l.service_force / s.force),
+                    string(&l.service_effect),
                     l.max_utilization_after.map_or("null".into(), num),
                     o(&l.controlling_member),
                     o(&l.controlling_case),
@@ -306,28 +309,23 @@ pub fn redundancy(
             writeln!(w, "{CAUTION}")?;
             writeln!(
                 w,
-                "critical = the truss is a mechanism without the member; fracture-critical = critical and in tension under dead + live"
+                "critical = the truss is a mechanism without the member; fracture-critical = critical and in tension under dead + live (live: the live cases with impact, and each moving load's envelope as `rate` checks it; the greatest tension is shown when there is any)"
             )?;
             let mut t = Table::new(&[
                 "member",
                 &format!("D+L force {}", s.force_name),
+                "under",
                 "verdict",
                 "util after",
                 "where",
                 "case",
             ]);
             for l in losses {
-                let verdict = if l.fracture_critical {
-                    "fracture-critical"
-                } else if l.critical {
-                    "critical"
-                } else {
-                    "redundant"
-                };
                 t.row(vec![
                     model.members[l.member].id.to_string(),
                     sig(l.service_force / s.force, 4),
-                    verdict.into(),
+                    l.service_effect.clone(),
+                    verdict(l).into(),
                     opt(l.max_utilization_after, 3),
                     l.controlling_member.clone().unwrap_or("-".into()),
                     l.controlling_case.clone().unwrap_or("-".into()),
@@ -345,6 +343,43 @@ pub fn redundancy(
     }
 }
 
+/// `panelpoint redundancy --format csv`: one row per member removed.
+fn redundancy_csv(w: &mut dyn Write, model: &Model, losses: &[Loss], s: &Scale) -> io::Result<()> {
+    writeln!(
+        w,
+        "member,verdict,critical,fracture_critical,service_force_{},service_effect,max_utilization_after,controlling_member,controlling_case,mechanism",
+        s.force_name
+    )?;
+    let f = |v: &Option<String>| v.as_deref().map_or(String::new(), csv::field);
+    for l in losses {
+        writeln!(
+            w,
+            "{},{},{},{},{},{},{},{},{},{}",
+            csv::field(&model.members[l.member].id),
+            verdict(l),
+            l.critical,
+            l.fracture_critical,
+            csv::num(l.service_force / s.force),
+            csv::field(&l.service_effect),
+            l.max_utilization_after.map_or(String::new(), csv::num),
+            f(&l.controlling_member),
+            f(&l.controlling_case),
+            f(&l.mechanism)
+        )?;
+    }
+    Ok(())
+}
+
+fn verdict(l: &Loss) -> &'static str {
+    if l.fracture_critical {
+        "fracture-critical"
+    } else if l.critical {
+        "critical"
+    } else {
+        "redundant"
+    }
+}
+
 /// Name of a move that lowers the utilization: "lower U3", "move U3 left".
 fn move_name(model: &Model, node: usize, axis: usize, d: f64) -> String {
     let id = &model.nodes[node].id;
@@ -358,6 +393,51 @@ fn move_name(model: &Model, node: usize, axis: usize, d: f64) -> String {
 
 /// How many of the best moves the text report lists.
 pub const BEST_MOVES: usize = 6;
+
+/// Where the moving load was held, in the model's units, and what that means.
+fn held_text(model: &Model, h: &Held) -> String {
+    let sc = Scale::of(model);
+    let at = match h.at {
+        Some(p) => format!(
+            "front axle at {:.2} {}, {}",
+            p.position / sc.length,
+            sc.length_name,
+            p.direction.name()
+        ),
+        None => "no axle contributing".into(),
+    };
+    let lane = if h.lane {
+        format!(
+            ", lane load over the {} parts of the influence line",
+            if h.side == Side::Tension {
+                "tension"
+            } else {
+                "compression"
+            }
+        )
+    } else {
+        String::new()
+    };
+    format!(
+        "{} held where it governs this check ({}): {at}{lane}. The envelope is piecewise linear in the vehicle position, so these are the derivatives at that position (one-sided where another position is about to govern); the vehicle's loads are held as nodal forces at the deck nodes, so a moved deck node carries the same load",
+        h.moving_load,
+        h.side.label()
+    )
+}
+
+fn held_json(model: &Model, h: Option<&Held>) -> String {
+    let Some(h) = h else { return "null".into() };
+    let sc = Scale::of(model);
+    format!(
+        "{{\"moving_load\":{},\"side\":{},\"front_axle\":{},\"direction\":{},\"lane\":{},\"note\":{}}}",
+        string(&h.moving_load),
+        string(h.side.label()),
+        h.at.map_or("null".into(), |p| num(p.position / sc.length)),
+        h.at.map_or("null".into(), |p| string(p.direction.name())),
+        h.lane,
+        string(&held_text(model, h))
+    )
+}
 
 /// `panelpoint sensitivity`.
 pub fn sensitivity(
@@ -373,10 +453,53 @@ pub fn sensitivity(
     let dd = sc.length / sc.disp;
     let axis = |a: usize| if a == 0 { "x" } else { "y" };
     match format {
-        Format::Json | Format::Csv => {
+        Format::Csv => {
+            writeln!(
+                w,
+                "row,id,case,axis,value,d_utilization_per_{l},d_deflection_{d}_per_{l}",
+                l = sc.length_name,
+                d = sc.disp_name
+            )?;
+            writeln!(
+                w,
+                "governing utilization,{},{},,{},,",
+                csv::field(&model.members[s.member].id),
+                csv::field(effect),
+                csv::num(s.utilization)
+            )?;
+            writeln!(
+                w,
+                "greatest deflection {},{},{},,{},,",
+                sc.disp_name,
+                csv::field(&model.nodes[s.deflection_node].id),
+                csv::field(&model.cases[s.deflection_case].id),
+                csv::num(s.deflection / sc.disp)
+            )?;
+            if let Some(h) = &s.held {
+                writeln!(
+                    w,
+                    "moving load held,{},{},,{},,",
+                    csv::field(&h.moving_load),
+                    csv::field(h.side.label()),
+                    csv::field(&held_text(model, h))
+                )?;
+            }
+            for c in &s.coordinates {
+                writeln!(
+                    w,
+                    "coordinate,{},,{},,{},{}",
+                    csv::field(&model.nodes[c.node].id),
+                    axis(c.axis),
+                    csv::num(c.d_utilization * du),
+                    csv::num(c.d_deflection * dd)
+                )?;
+            }
+            Ok(())
+        }
+        Format::Json => {
             write!(
                 w,
-                "{{\"title\":{},\"caution\":{},\"units\":{{\"length\":{},\"deflection\":{}}},\"utilization\":{{\"member\":{},\"case\":{},\"value\":{}}},\"deflection\":{{\"node\":{},\"case\":{},\"value\":{}}},\"coordinates\":[",
+                "{{\"title\":{},\"caution\":{},\"units\":{{\"length\":{},\"deflection\":{}}},\"utilization\":{{\"member\":{},\"case\":{},\"value\":{}}},\"deflection\":{{\"node\":{},\"case\":{},\"value\":{}}},\"held\":{},\"coordinates\":[",
                 string(&model.title),
                 string(CAUTION),
                 string(sc.length_name),
@@ -386,7 +509,8 @@ pub fn sensitivity(
                 num(s.utilization),
                 string(&model.nodes[s.deflection_node].id),
                 string(&model.cases[s.deflection_case].id),
-                num(s.deflection / sc.disp)
+                num(s.deflection / sc.disp),
+                held_json(model, s.held.as_ref())
             )?;
             for (i, c) in s.coordinates.iter().enumerate() {
                 if i > 0 {
@@ -417,6 +541,9 @@ pub fn sensitivity(
                 model.nodes[s.deflection_node].id,
                 model.cases[s.deflection_case].id
             )?;
+            if let Some(h) = &s.held {
+                writeln!(w, "{}", held_text(model, h))?;
+            }
             writeln!(
                 w,
                 "\nmoves that lower the governing utilization most, per {} moved:",

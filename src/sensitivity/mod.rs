@@ -44,17 +44,35 @@
 //! Loads are fixed nodal forces, independent of geometry. The governing
 //! check and deflection node are held fixed: where another check is about
 //! to take over, the derivative holds on one side only.
+//!
+//! The governing check is the one `rate` reports as controlling, over every
+//! case and combination and every moving load's envelope. A moving load is
+//! held at the position that governs the check (see [`effects`]): its axle
+//! and lane loads, as nodal forces at the deck nodes, form one more load
+//! case, solved on the existing factorization, whose force gradient enters
+//! with the envelope's factor.
+
+pub mod effects;
 
 use crate::analysis::assemble::b_row;
 use crate::analysis::{Analysis, CaseResult};
 use crate::capacity::{self, Curve, Regime};
 use crate::model::{CaseKind, Model};
 use crate::rate::Rating;
+pub use effects::{terms, Held, Terms};
 
 #[derive(Debug, Clone, PartialEq, thiserror::Error)]
 pub enum SensitivityError {
     #[error("no check to differentiate: the model has no members or load cases")]
     NoCheck,
+    #[error("--case \"{id}\": no load case, combination or moving load of that id; the model has: {known}")]
+    UnknownCase { id: String, known: String },
+    #[error("internal: member \"{member}\" under \"{effect}\" could not be rebuilt from its load cases and vehicle position")]
+    Rebuilt { member: String, effect: String },
+    #[error("moving loads: {0}")]
+    Loads(#[from] crate::loads::LoadError),
+    #[error(transparent)]
+    Analysis(#[from] crate::analysis::results::AnalysisError),
     #[error("member \"{member}\": {source}")]
     Capacity {
         member: String,
@@ -87,32 +105,8 @@ pub struct Sensitivity {
     pub deflection: f64,
     /// Every coordinate of every connected, unsupported node.
     pub coordinates: Vec<Coordinate>,
-}
-
-/// Load-case factors of one effect (a case, or a combination of cases).
-pub fn effect_factors(model: &Model, rating: &Rating, effect: usize) -> Vec<(usize, f64)> {
-    match rating.effects[effect].case {
-        Some(c) => vec![(c, 1.0)],
-        None => {
-            let id = &rating.effects[effect].id;
-            let Some(combo) = model.combinations.iter().find(|c| &c.id == id) else {
-                return Vec::new();
-            };
-            combo
-                .factors
-                .iter()
-                .map(|&(c, f)| {
-                    let case = &model.cases[c];
-                    let g = if case.kind == CaseKind::Live {
-                        1.0 + case.impact
-                    } else {
-                        1.0
-                    };
-                    (c, f * g)
-                })
-                .collect()
-        }
-    }
+    /// Where a moving load was held, when the check includes one.
+    pub held: Option<Held>,
 }
 
 /// Geometry of bar m at the solution of one case.
@@ -240,37 +234,110 @@ fn capacity_per_length(
     Ok(sec.area * factor * dfdl * k / r)
 }
 
+/// The effects `--case` may name: load cases, combinations, moving loads.
+fn known_ids(model: &Model) -> String {
+    model
+        .cases
+        .iter()
+        .map(|c| &c.id)
+        .chain(model.combinations.iter().map(|c| &c.id))
+        .chain(model.live.moving.iter().map(|m| &m.id))
+        .map(|id| format!("\"{id}\""))
+        .collect::<Vec<_>>()
+        .join(", ")
+}
+
+/// The check to differentiate: `rate`'s controlling check, or the worst
+/// check of the effects of `case` (a load case, a combination, a moving
+/// load, or one effect's own id), and the terms of its effect.
+fn governing<'r>(
+    model: &Model,
+    rating: &'r Rating,
+    case: Option<&str>,
+) -> Result<(&'r crate::rate::Check, Terms), SensitivityError> {
+    let terms: Vec<Option<Terms>> = (0..rating.effects.len())
+        .map(|e| terms(model, rating, e))
+        .collect();
+    let chosen = |e: usize| match (case, &terms[e]) {
+        (_, None) => false,
+        (None, Some(_)) => true,
+        (Some(id), Some(t)) => t.source == id || rating.effects[e].id == id,
+    };
+    if let Some(id) = case {
+        if !(0..rating.effects.len()).any(chosen) {
+            return Err(SensitivityError::UnknownCase {
+                id: id.to_string(),
+                known: known_ids(model),
+            });
+        }
+    }
+    let controlling = rating
+        .controlling
+        .map(|c| &rating.checks[c])
+        .filter(|c| case.is_none() && chosen(c.effect));
+    let check = match controlling {
+        Some(c) => Some(c),
+        None => rating
+            .checks
+            .iter()
+            .filter(|c| chosen(c.effect))
+            .max_by(|a, b| a.utilization.total_cmp(&b.utilization)),
+    }
+    .ok_or(SensitivityError::NoCheck)?;
+    let t = terms[check.effect]
+        .clone()
+        .ok_or(SensitivityError::NoCheck)?;
+    Ok((check, t))
+}
+
+/// A combination's dead cases that relieve its live part in the checked
+/// member are taken at the method's minimum factor, as `rate` combines them
+/// (AASHTO LRFD 3.4.1 for LRFR); the factor is constant on either side of
+/// the sign change, so the derivative is that of the chosen factor.
+fn relieve(
+    model: &Model,
+    rating: &Rating,
+    check: &crate::rate::Check,
+    terms: &Terms,
+    parts: &mut [(CaseResult, f64)],
+) {
+    let Some(relief) = crate::rate::Relief::of(&rating.method) else {
+        return;
+    };
+    if rating.effects[check.effect].combination.is_none() {
+        return;
+    }
+    let j = check.member;
+    let n_cases = terms.cases.len();
+    let kind = |i: usize| (i < n_cases).then(|| model.cases[terms.cases[i].0].kind);
+    let live: f64 = parts
+        .iter()
+        .enumerate()
+        .filter(|(i, _)| matches!(kind(*i), None | Some(CaseKind::Live)))
+        .map(|(_, (r, f))| f * r.forces[j])
+        .sum();
+    for (i, (r, f)) in parts.iter_mut().enumerate() {
+        let min = match kind(i) {
+            Some(CaseKind::Dead) => relief.dc,
+            Some(CaseKind::Wearing) => relief.dw,
+            _ => continue,
+        };
+        if *f > min && r.forces[j] * live < 0.0 {
+            *f = min;
+        }
+    }
+}
+
 /// Both gradients for the controlling check (or the worst check of
-/// `case`) and the largest deflection (over all cases, or of `case`).
+/// `case`: a load case, combination or moving load id) and the largest
+/// deflection (over all load cases, or of `case` when it is a load case).
 pub fn sensitivity(
     model: &Model,
     analysis: &Analysis,
     rating: &Rating,
-    case: Option<usize>,
+    case: Option<&str>,
 ) -> Result<Sensitivity, SensitivityError> {
-    // Moving-load envelopes are not one load vector, so the governing
-    // check is sought among the load cases and plain combinations.
-    let linear = |c: &&crate::rate::Check| {
-        rating.effects[c.effect].moving.is_none()
-            && (rating.effects[c.effect].case.is_some()
-                || model
-                    .combinations
-                    .iter()
-                    .any(|k| k.id == rating.effects[c.effect].id && k.moving.is_empty()))
-    };
-    let check = match case {
-        None => rating
-            .checks
-            .iter()
-            .filter(linear)
-            .max_by(|a, b| a.utilization.total_cmp(&b.utilization)),
-        Some(ci) => rating
-            .checks
-            .iter()
-            .filter(|c| rating.effects[c.effect].case == Some(ci))
-            .max_by(|a, b| a.utilization.total_cmp(&b.utilization)),
-    }
-    .ok_or(SensitivityError::NoCheck)?;
+    let (check, terms) = governing(model, rating, case)?;
     let j = check.member;
     let n = analysis.prepared.n();
     let factor = &analysis.prepared.factor;
@@ -282,14 +349,41 @@ pub fn sensitivity(
         lam[p] = kj * v;
     }
     factor.solve_in_place(&mut lam, 1);
+    // The effect as load cases with factors; a moving load held where it
+    // governs becomes one more case.
+    let mut parts: Vec<(CaseResult, f64)> = terms
+        .cases
+        .iter()
+        .map(|&(c, f)| (analysis.cases[c].clone(), f))
+        .collect();
+    let mut held = None;
+    if let Some((k, side, f)) = terms.moving {
+        let envs = crate::loads::envelopes(model, &analysis.prepared)?;
+        let (case, h) = effects::held_vehicle(model, analysis, &envs[k], k, side, j, &lam)?;
+        let r = analysis
+            .prepared
+            .solve_cases(model, std::slice::from_ref(&case))?;
+        parts.extend(r.into_iter().map(|r| (r, f)));
+        held = Some(h);
+    }
+    relieve(model, rating, check, &terms, &mut parts);
     let nn = model.nodes.len();
     let mut du = vec![0.0; 2 * nn];
+    let rebuilt: f64 = parts.iter().map(|(r, f)| f * r.forces[j]).sum();
     let force = check.force;
+    // The rebuilt effect must be the one checked (a zero-force check is
+    // round-off and is zero).
+    if force != 0.0 && (rebuilt - force).abs() > 1e-6 * force.abs() {
+        return Err(SensitivityError::Rebuilt {
+            member: model.members[j].id.to_string(),
+            effect: rating.effects[check.effect].id.clone(),
+        });
+    }
     let cap = check.capacity;
     let s = force.signum();
     if force != 0.0 {
-        for (ci, alpha) in effect_factors(model, rating, check.effect) {
-            let g = force_gradient(model, analysis, &analysis.cases[ci], &lam, j);
+        for (r, alpha) in &parts {
+            let g = force_gradient(model, analysis, r, &lam, j);
             for (d, v) in du.iter_mut().zip(g) {
                 *d += s * alpha * v / cap;
             }
@@ -303,7 +397,7 @@ pub fn sensitivity(
     }
 
     // Largest deflection.
-    let cases: Vec<usize> = match case {
+    let cases: Vec<usize> = match case.and_then(|id| model.cases.iter().position(|c| c.id == id)) {
         Some(c) => vec![c],
         None => (0..model.cases.len()).collect(),
     };
@@ -356,6 +450,7 @@ pub fn sensitivity(
         deflection_case: dc,
         deflection: dmax,
         coordinates,
+        held,
     })
 }
 

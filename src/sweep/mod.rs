@@ -1,5 +1,5 @@
-//! What-if sweeps: many variants of one model (load scale factors, added
-//! cases, node moves, a deeper or shallower truss, section and material
+//! What-if sweeps: many variants of one model (load scale factors, moving
+//! loads scaled or given another impact, added cases, node moves, a deeper or shallower truss, section and material
 //! substitutions, members removed), each analysed and rated, one summary
 //! row per variant. The types here are format-free; `input::sweep` reads
 //! them from RON and `report::sweep_out` writes the rows.
@@ -101,16 +101,22 @@ pub enum Change {
     },
     /// Remove a member (the pattern of K changes).
     RemoveMember { member: String },
-    // Hook for moving loads: a `Vehicle { .. }` change that expands into
-    // one added case per vehicle position belongs here once the loads
-    // branch lands; `variant::apply` classifies it as `Kind::LoadsOnly`.
+    /// Multiply a moving load's vehicle: every axle load and the lane
+    /// load (the vehicle is copied, so other moving loads keep theirs).
+    ScaleMoving { moving: String, factor: f64 },
+    /// Set the dynamic allowance (a fraction) of a moving load or of a
+    /// live load case.
+    Impact { load: String, impact: f64 },
 }
 
 impl Change {
     /// What the change alters, for reusing factorizations.
     pub fn kind(&self) -> Kind {
         match self {
-            Change::ScaleCase { .. } | Change::AddCase(_) => Kind::LoadsOnly,
+            Change::ScaleCase { .. }
+            | Change::AddCase(_)
+            | Change::ScaleMoving { .. }
+            | Change::Impact { .. } => Kind::LoadsOnly,
             Change::MoveNode { .. }
             | Change::Depth { .. }
             | Change::MemberSection { .. }

@@ -1,15 +1,22 @@
 //! Load-path redundancy: remove each member in turn, rebuild the model
 //! without it and analyse. If the damaged truss is a mechanism the member
 //! is non-redundant (critical); a critical member in tension under the
-//! dead plus live cases is what bridge inspection practice calls
+//! dead plus live effects is what bridge inspection practice calls
 //! fracture-critical (common practice). Otherwise the greatest utilization
 //! after the loss says how close the survivors come to failing.
+//!
+//! The live effects are those `rate` checks: the live load cases with
+//! their impact and, for each moving load, the dead load plus the greatest
+//! tension and plus the greatest compression of its envelope (impact
+//! included). A member any of them puts in tension is in tension.
 
 use super::run::{summarise, RunOptions};
 use super::variant::without_member;
 use crate::analysis::results::{AnalysisError, Prepared};
 use crate::analysis::Analysis;
+use crate::loads::MovingEnvelope;
 use crate::model::{CaseKind, Model};
+use crate::rate::Side;
 use rayon::prelude::*;
 
 /// The result of losing one member.
@@ -20,8 +27,12 @@ pub struct Loss {
     pub critical: bool,
     /// Critical and in tension under dead + live (see [`service_force`]).
     pub fracture_critical: bool,
-    /// Its force in the intact truss under dead + live, N.
+    /// Its governing force in the intact truss under dead + live, N: the
+    /// greatest tension of the service effects if any is tension, else the
+    /// greatest compression (see [`service_forces`]).
     pub service_force: f64,
+    /// Which service effect gives it ("dead + live", "dead + truck (max tension)").
+    pub service_effect: String,
     /// Why the damaged truss fails, when it does.
     pub mechanism: Option<String>,
     /// Greatest utilization of the damaged truss and where (None when critical).
@@ -58,25 +69,88 @@ pub fn service_force(model: &Model, analysis: &Analysis) -> Vec<f64> {
         .collect()
 }
 
-/// Remove each member in turn (in parallel) and report the loss.
-pub fn scan(model: &Model, analysis: &Analysis, opts: &RunOptions) -> Result<Vec<Loss>, String> {
-    let mut service = service_force(model, analysis);
-    let largest = service.iter().fold(0.0f64, |a, f| a.max(f.abs()));
-    // Round-off of a zero-force member is zero (as in the rating checks).
-    for f in &mut service {
-        if f.abs() <= 1e-10 * largest {
-            *f = 0.0;
+/// The service effects of every member: the dead + live cases of
+/// [`service_force`] (labelled "dead + live", or "all cases" when no case
+/// is marked), then for each moving load the dead load plus the greatest
+/// tension and plus the greatest compression of its envelope, as `rate`
+/// builds them. Per member, the governing one: the greatest tension if any
+/// effect is tension, else the greatest compression. Forces within 1e-10
+/// of the largest are round-off of a zero-force member (as in the rating
+/// checks) and count as zero.
+pub fn service_forces(
+    model: &Model,
+    analysis: &Analysis,
+    envelopes: &[MovingEnvelope],
+) -> Vec<(f64, String)> {
+    let marked = model
+        .cases
+        .iter()
+        .any(|c| matches!(c.kind, CaseKind::Dead | CaseKind::Live));
+    let static_label = if marked { "dead + live" } else { "all cases" };
+    let statics = service_force(model, analysis);
+    let mut effects: Vec<(String, Vec<f64>)> = vec![(static_label.into(), statics)];
+    for env in envelopes {
+        for side in [Side::Tension, Side::Compression] {
+            let forces = env
+                .per_member
+                .iter()
+                .map(|e| {
+                    e.dead
+                        + match side {
+                            Side::Tension => e.max_tension(),
+                            Side::Compression => e.max_compression(),
+                        }
+                })
+                .collect();
+            effects.push((
+                format!("dead + {} ({})", env.moving_load, side.label()),
+                forces,
+            ));
         }
     }
+    let largest = effects
+        .iter()
+        .flat_map(|(_, f)| f.iter())
+        .fold(0.0f64, |a, f| a.max(f.abs()));
+    let clean = |f: f64| if f.abs() <= 1e-10 * largest { 0.0 } else { f };
+    (0..model.members.len())
+        .map(|m| {
+            let pick = |better: &dyn Fn(f64, f64) -> bool| {
+                let mut best = (clean(effects[0].1[m]), 0);
+                for (k, (_, f)) in effects.iter().enumerate().skip(1) {
+                    let v = clean(f[m]);
+                    if better(v, best.0) {
+                        best = (v, k);
+                    }
+                }
+                best
+            };
+            let (t, kt) = pick(&|v, b| v > b);
+            let (f, k) = if t > 0.0 {
+                (t, kt)
+            } else {
+                pick(&|v, b| v < b)
+            };
+            (f, effects[k].0.clone())
+        })
+        .collect()
+}
+
+/// Remove each member in turn (in parallel) and report the loss.
+pub fn scan(model: &Model, analysis: &Analysis, opts: &RunOptions) -> Result<Vec<Loss>, String> {
+    let envelopes =
+        crate::rate::moving_envelopes(model, &analysis.prepared).map_err(|e| e.to_string())?;
+    let service = service_forces(model, analysis, &envelopes);
     (0..model.members.len())
         .into_par_iter()
         .map(|j| {
-            let tension = service[j] > 0.0;
+            let tension = service[j].0 > 0.0;
             let mut loss = Loss {
                 member: j,
                 critical: false,
                 fracture_critical: false,
-                service_force: service[j],
+                service_force: service[j].0,
+                service_effect: service[j].1.clone(),
                 mechanism: None,
                 max_utilization_after: None,
                 controlling_member: None,

@@ -84,6 +84,31 @@ fn apply_one(m: &mut Model, change: &Change) -> Result<(), VariantError> {
                 e.elongation *= factor;
             }
         }
+        Change::ScaleMoving { moving, factor } => {
+            let k = find(&m.live.moving, moving, "moving load", |x| &x.id)?;
+            let mut vehicle = m.live.vehicles[m.live.moving[k].vehicle].clone();
+            for a in &mut vehicle.axles {
+                a.load *= factor;
+            }
+            if let Some(w) = &mut vehicle.lane {
+                *w *= factor;
+            }
+            m.live.vehicles.push(vehicle);
+            m.live.moving[k].vehicle = m.live.vehicles.len() - 1;
+        }
+        Change::Impact { load, impact } => {
+            if !(impact.is_finite() && *impact >= 0.0) {
+                return Err(VariantError::Invalid(format!(
+                    "impact of \"{load}\" must be a fraction ≥ 0, got {impact}"
+                )));
+            }
+            if let Some(k) = m.live.moving.iter().position(|x| &x.id == load) {
+                m.live.moving[k].impact = *impact;
+            } else {
+                let c = find(&m.cases, load, "load case or moving load", |c| &c.id)?;
+                m.cases[c].impact = *impact;
+            }
+        }
         Change::AddCase(add) => {
             if m.cases.iter().any(|c| c.id == add.id) {
                 return Err(VariantError::Invalid(format!(
