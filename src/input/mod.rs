@@ -5,6 +5,7 @@
 mod bulk;
 pub mod convert;
 pub mod diagnostics;
+mod library;
 mod loads;
 pub mod parts;
 pub mod quantity;
