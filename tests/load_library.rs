@@ -97,7 +97,9 @@ fn pratt(n: usize, a: f64, h: f64, moving: &str, vehicles: &str, pier: bool) -> 
     }
     let mut mem = String::new();
     let mut add = |p: String, q: String| {
-        mem += &format!("(id: \"{p}-{q}\", start: \"{p}\", end: \"{q}\", section: \"a\", material: \"s\"),");
+        mem += &format!(
+            "(id: \"{p}-{q}\", start: \"{p}\", end: \"{q}\", section: \"a\", material: \"s\"),"
+        );
     };
     for i in 0..n {
         add(format!("L{i}"), format!("L{}", i + 1));
@@ -161,18 +163,39 @@ fn hs20_rear_spacing_search_is_exact_against_fixed_spacings() {
     let mut longer = 0;
     for j in 0..m.members.len() {
         let hs = &envs[0].per_member[j];
-        let hi = envs[1..].iter().map(|e| e.per_member[j].tension.force).fold(0.0, f64::max);
-        let lo = envs[1..].iter().map(|e| e.per_member[j].compression.force).fold(0.0, f64::min);
+        let hi = envs[1..]
+            .iter()
+            .map(|e| e.per_member[j].tension.force)
+            .fold(0.0, f64::max);
+        let lo = envs[1..]
+            .iter()
+            .map(|e| e.per_member[j].compression.force)
+            .fold(0.0, f64::min);
         let tol = 1e-9 * KIP * 100.0;
-        assert!((hs.tension.force - hi).abs() < tol, "{} {} {}", hs.id, hs.tension.force, hi);
-        assert!((hs.compression.force - lo).abs() < tol, "{} {} {}", hs.id, hs.compression.force, lo);
+        assert!(
+            (hs.tension.force - hi).abs() < tol,
+            "{} {} {}",
+            hs.id,
+            hs.tension.force,
+            hi
+        );
+        assert!(
+            (hs.compression.force - lo).abs() < tol,
+            "{} {} {}",
+            hs.id,
+            hs.compression.force,
+            lo
+        );
         for x in [&hs.tension, &hs.compression] {
             if x.gap.is_some_and(|g| g > 14.0 * FT + 1e-9) && x.force.abs() > 1.0 {
                 longer += 1;
             }
         }
     }
-    assert!(longer > 0, "some extreme is governed by a rear spacing above 14 ft");
+    assert!(
+        longer > 0,
+        "some extreme is governed by a rear spacing above 14 ft"
+    );
 }
 
 #[test]
@@ -187,7 +210,11 @@ fn hl93_tandem_governs_short_spans_and_the_truck_long_spans() {
     let e = &envelopes(&m)[0];
     let t = &e.per_member[0].tension;
     assert_eq!(t.train, 1, "tandem governs at 30 ft");
-    assert!((t.axles / KIP * 6.0 - 325.0).abs() < 1e-6, "{}", t.axles / KIP * 6.0);
+    assert!(
+        (t.axles / KIP * 6.0 - 325.0).abs() < 1e-6,
+        "{}",
+        t.axles / KIP * 6.0
+    );
     assert!((t.lane / KIP * 6.0 - 72.0).abs() < 1e-6);
     assert!((t.impact - 0.33).abs() < 1e-15);
     assert!((moment(e, 6.0) - 504.25).abs() < 1e-6, "{}", moment(e, 6.0));
@@ -197,7 +224,11 @@ fn hl93_tandem_governs_short_spans_and_the_truck_long_spans() {
     let e = &envelopes(&m)[0];
     let t = &e.per_member[0].tension;
     assert_eq!(t.train, 0, "design truck governs at 100 ft");
-    assert!((moment(e, 10.0) - 2821.6).abs() < 1e-6, "{}", moment(e, 10.0));
+    assert!(
+        (moment(e, 10.0) - 2821.6).abs() < 1e-6,
+        "{}",
+        moment(e, 10.0)
+    );
 }
 
 #[test]
@@ -260,7 +291,13 @@ fn brute_force_midspan_e80(l: f64) -> f64 {
         }
     }
     let head = off + 5.0;
-    let eta = |x: f64| if x < 0.0 || x > l { 0.0 } else { x.min(l - x) / 2.0 };
+    let eta = |x: f64| {
+        if x < 0.0 || x > l {
+            0.0
+        } else {
+            x.min(l - x) / 2.0
+        }
+    };
     // ∫₀^s η: s ≤ l/2: s²/4; beyond: l²/8 − (l − s)²/4.
     let int = |s: f64| {
         let s = s.clamp(0.0, l);
@@ -303,7 +340,13 @@ fn footbridge_crowd_uses_the_loaded_length_of_each_line() {
     // from memory); midspan moment = 4.0·2·30²/8 = 900 kN·m.
     let l_ft = 30.0 / FT;
     let deck = "(nodes: [\"L0\", \"L1\", \"L2\"], width: \"4 m\")";
-    let m = king_post(l_ft, l_ft / 2.0, 10.0, deck, "(id: \"c\", vehicle: \"en-crowd\", step: \"1 ft\")");
+    let m = king_post(
+        l_ft,
+        l_ft / 2.0,
+        10.0,
+        deck,
+        "(id: \"c\", vehicle: \"en-crowd\", step: \"1 ft\")",
+    );
     let e = &envelopes(&m)[0];
     let t = &e.per_member[0].tension;
     assert!((t.loaded_length - 30.0).abs() < 1e-9);
@@ -318,7 +361,13 @@ fn pedestrian_90_psf_times_tributary_width() {
     // midspan moment 0.54·60²/8 = 243 kip-ft (hand statics); no impact
     // (AASHTO pedestrian guide 3.1, from memory).
     let deck = "(nodes: [\"L0\", \"L1\", \"L2\"], width: \"14 ft\", tributary: \"6 ft\")";
-    let m = king_post(60.0, 30.0, 6.0, deck, "(id: \"p\", vehicle: \"ped90\", step: \"1 ft\")");
+    let m = king_post(
+        60.0,
+        30.0,
+        6.0,
+        deck,
+        "(id: \"p\", vehicle: \"ped90\", step: \"1 ft\")",
+    );
     let e = &envelopes(&m)[0];
     assert!((moment(e, 6.0) - 243.0).abs() < 1e-6, "{}", moment(e, 6.0));
 }
@@ -336,7 +385,13 @@ fn standard_impact_uses_the_loaded_length() {
     let t = &envelopes(&m)[0].per_member[0].tension;
     assert_eq!(t.impact, 0.30);
     // `impact: 0.0` means none.
-    let m = king_post(60.0, 30.0, 6.0, DECK, "(id: \"h\", vehicle: \"h20\", step: \"1 ft\", impact: 0.0)");
+    let m = king_post(
+        60.0,
+        30.0,
+        6.0,
+        DECK,
+        "(id: \"h\", vehicle: \"h20\", step: \"1 ft\", impact: 0.0)",
+    );
     assert_eq!(envelopes(&m)[0].per_member[0].tension.impact, 0.0);
 }
 
@@ -349,12 +404,16 @@ fn lever_rule_share_and_multiple_presence_on_the_truss() {
     let one = king_post(100.0, 50.0, 10.0, DECK, hl);
     let deck = "(nodes: [\"L0\", \"L1\", \"L2\"], width: \"24 ft\", lanes: [\"6 ft\"])";
     let shared = king_post(100.0, 50.0, 10.0, deck, hl);
-    let (a, b) = (moment(&envelopes(&one)[0], 10.0), moment(&envelopes(&shared)[0], 10.0));
+    let (a, b) = (
+        moment(&envelopes(&one)[0], 10.0),
+        moment(&envelopes(&shared)[0], 10.0),
+    );
     assert!((b / a - 0.90).abs() < 1e-12, "{}", b / a);
     assert!((shared.live.moving[0].share - 0.90).abs() < 1e-12);
     // A user's vehicle with wheel lines at 3 and 9 ft: (21 + 15)/24/2 = 0.75.
     let text_vehicle = "(id: \"u\", vehicle: \"hs20\", step: \"1 ft\", impact: 0.0)";
-    let deck = "(nodes: [\"L0\", \"L1\", \"L2\"], width: \"24 ft\", wheel_lines: [\"3 ft\", \"9 ft\"])";
+    let deck =
+        "(nodes: [\"L0\", \"L1\", \"L2\"], width: \"24 ft\", wheel_lines: [\"3 ft\", \"9 ft\"])";
     let wl = king_post(100.0, 50.0, 10.0, deck, text_vehicle);
     // HS20's Standard presence factor is 1 for one vehicle.
     assert!((wl.live.moving[0].share - 0.75).abs() < 1e-12);
@@ -365,8 +424,29 @@ fn gross_weights_of_every_library_model_are_listed() {
     use panelpoint::loads::library;
     // HS20 = 72 kip, Type 3 = 50, Type 3S2 = 72, Type 3-3 = 80 kip (their
     // designations, from memory).
-    for (n, kip) in [("hs20", 72.0), ("type3", 50.0), ("type3s2", 72.0), ("type3-3", 80.0)] {
+    for (n, kip) in [
+        ("hs20", 72.0),
+        ("type3", 50.0),
+        ("type3s2", 72.0),
+        ("type3-3", 80.0),
+    ] {
         let g = library::lookup(n).unwrap().gross_weight() / KIP;
         assert!((g - kip).abs() < 1e-9, "{n} {g}");
     }
+}
+
+#[test]
+fn e80_end_reactions_are_equal_and_match_the_brute_force() {
+    // Span 160 ft: greatest end reaction under E80 by a scan every 0.01 ft
+    // of R = Σ Pᵢ·xᵢ/L + 8·(head)²/(2L) (hand statics): 873.025 kip, at the
+    // second axle over the bearing, the uniform's head 59 ft on the span.
+    // Both ends (forward and reverse travel) must agree: an axle reaching
+    // a panel point as the uniform's head reaches another makes positions
+    // that differ by round-off only, which must not spoil the search.
+    let e80 = "(id: \"e\", vehicle: \"cooper-e80\", step: \"1 ft\", impact: 0.0)";
+    let m = king_post(160.0, 80.0, 20.0, DECK, e80);
+    let e = &envelopes(&m)[0];
+    let (r0, r2) = (e.per_support[0].up.force / KIP, e.per_support[1].up.force / KIP);
+    assert!((r0 - 873.025).abs() < 1e-6, "{r0}");
+    assert!((r2 - 873.025).abs() < 1e-6, "{r2}");
 }

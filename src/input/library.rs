@@ -51,7 +51,11 @@ pub(super) fn layout(ctx: &mut Ctx, deck: &DeckFile, u: &DisplayUnits) -> Option
         .width
         .as_ref()
         .and_then(|q| positive(ctx, q, Dimension::Length, u, &"deck width", None));
-    let lanes = d.lanes.iter().filter_map(|q| len(ctx, q, "deck lane offset")).collect();
+    let lanes = d
+        .lanes
+        .iter()
+        .filter_map(|q| len(ctx, q, "deck lane offset"))
+        .collect();
     let wheel_lines = d
         .wheel_lines
         .iter()
@@ -83,7 +87,10 @@ pub(super) fn scale(ctx: &mut Ctx, ml: &MovingLoadFile, at: Option<(usize, usize
     let s = ml.scale.unwrap_or(1.0);
     if !(s.is_finite() && s > 0.0) {
         ctx.error(
-            format!("moving load \"{}\" scale must be a positive number, not {s}", ml.id),
+            format!(
+                "moving load \"{}\" scale must be a positive number, not {s}",
+                ml.id
+            ),
             at,
         );
         return None;
@@ -128,7 +135,9 @@ pub(super) fn resolve(
         v.lane = m.area.map(|q| q * width * scale);
         (v, width)
     } else {
-        let share = layout.as_ref().map_or(1.0, |l| l.vehicle_share(m.presence).0);
+        let share = layout
+            .as_ref()
+            .map_or(1.0, |l| l.vehicle_share(m.presence).0);
         if share <= 0.0 {
             ctx.warn(
                 format!("{who}: no lane or wheel line loads this truss (lever-rule share 0)"),

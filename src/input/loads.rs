@@ -6,9 +6,7 @@
 use super::convert::{positive, value, Ctx};
 use super::diagnostics::{Diagnostic, Diagnostics, Severity};
 use super::schema::{LoadCaseFile, ModelFile, VehiclesFile};
-use crate::loads::{
-    self_weight, thermal, Axle, Deck, ImpactRule, LiveLoads, MovingLoad, Vehicle,
-};
+use crate::loads::{self_weight, thermal, Axle, Deck, ImpactRule, LiveLoads, MovingLoad, Vehicle};
 use crate::model::{InitialElongation, LoadCase, Material, Member, Node, Section};
 use crate::units::{Dimension, DisplayUnits};
 use std::collections::HashMap;

@@ -282,7 +282,9 @@ impl<'a> Rows<'a> {
         let ne = self.ne;
         for e in 0..ne {
             vals[e] += w
-                * (self.prefix[k * ne + e] + a * self.rows[k * ne + e] + b * self.rows[(k + 1) * ne + e]);
+                * (self.prefix[k * ne + e]
+                    + a * self.rows[k * ne + e]
+                    + b * self.rows[(k + 1) * ne + e]);
         }
     }
 }
@@ -349,8 +351,8 @@ fn evaluate(
 /// Rolls one concrete train both ways, updating the best of every effect.
 /// With a trailing uniform load the effect is quadratic between
 /// consecutive positions (the load's head moves over a linear line), so
-/// the vertex of the parabola through the ends and the midpoint is taken
-/// too when it falls inside.
+/// the vertex of the parabola through three points inside the interval is
+/// taken too when it falls inside.
 fn roll(
     r: &Rows,
     vehicle: &Vehicle,
@@ -364,6 +366,8 @@ fn roll(
     let quadratic = !extra.is_empty();
     let (mut hi, mut lo, mut tmp) = (vec![0.0; ne], vec![0.0; ne], vec![0.0; ne]);
     let (mut prev, mut mid, mut scratch) = (vec![0.0; ne], vec![0.0; ne], vec![0.0; ne]);
+    let mut lo2 = vec![0.0; ne];
+    let sliver = 1e-9 * (r.deck.length() + extra.iter().fold(0.0, |a: f64, b| a.max(*b)));
     let mk = |p: f64, direction| Best {
         value: 0.0,
         at: Some(Placement {
@@ -383,37 +387,55 @@ fn roll(
             }
             for e in 0..ne {
                 if hi[e] > best_hi[e].value {
-                    best_hi[e] = Best { value: hi[e], ..mk(p, direction) };
+                    best_hi[e] = Best {
+                        value: hi[e],
+                        ..mk(p, direction)
+                    };
                 }
                 if lo[e] < best_lo[e].value {
-                    best_lo[e] = Best { value: lo[e], ..mk(p, direction) };
+                    best_lo[e] = Best {
+                        value: lo[e],
+                        ..mk(p, direction)
+                    };
                 }
             }
             if quadratic {
-                if let Some(p0) = last {
-                    let pm = 0.5 * (p0 + p);
-                    evaluate(r, vehicle, train, pm, direction, &mut mid, &mut scratch, &mut tmp);
+                // Slivers between positions that differ by round-off only
+                // (an axle and the load's head reaching nodes together)
+                // are skipped: their ends were evaluated.
+                if let Some(p0) = last.filter(|&p0| p - p0 > sliver) {
+                    // Three points inside (p0, p): the effect may jump at a
+                    // breakpoint (an axle leaving the deck over a reaction),
+                    // so the parabola is fitted on the open interval.
+                    let at = |u: f64| p0 + (0.5 + 0.25 * u) * (p - p0);
+                    for (buf, u) in [(&mut prev, -1.0), (&mut mid, 0.0), (&mut scratch, 1.0)] {
+                        evaluate(r, vehicle, train, at(u), direction, buf, &mut lo2, &mut tmp);
+                    }
                     for e in 0..ne {
-                        let (f0, fm, f1) = (prev[e], mid[e], hi[e]);
-                        let b = 4.0 * fm - 3.0 * f0 - f1;
-                        let a = 2.0 * (f0 + f1) - 4.0 * fm;
-                        if a.abs() <= 1e-12 * (f0.abs() + fm.abs() + f1.abs()) {
+                        let (gm, g0, gp) = (prev[e], mid[e], scratch[e]);
+                        let a = 0.5 * (gp + gm) - g0;
+                        let b = 0.5 * (gp - gm);
+                        if a.abs() <= 1e-12 * (gm.abs() + g0.abs() + gp.abs()) {
                             continue;
                         }
-                        let t = -b / (2.0 * a);
-                        if t > 0.0 && t < 1.0 {
-                            let v = f0 - b * b / (4.0 * a);
-                            let at = p0 + t * (p - p0);
+                        let u = -b / (2.0 * a);
+                        if u > -2.0 && u < 2.0 {
+                            let v = g0 - b * b / (4.0 * a);
                             if a < 0.0 && v > best_hi[e].value {
-                                best_hi[e] = Best { value: v, ..mk(at, direction) };
+                                best_hi[e] = Best {
+                                    value: v,
+                                    ..mk(at(u), direction)
+                                };
                             }
                             if a > 0.0 && v < best_lo[e].value {
-                                best_lo[e] = Best { value: v, ..mk(at, direction) };
+                                best_lo[e] = Best {
+                                    value: v,
+                                    ..mk(at(u), direction)
+                                };
                             }
                         }
                     }
                 }
-                prev.copy_from_slice(&hi);
                 last = Some(p);
             }
         }
@@ -478,9 +500,8 @@ pub fn extremes(
         let (pos, neg) = deck.signed_areas(&ord);
         let (lpos, lneg) = deck.signed_lengths(&ord);
         let mut out = [Extreme::zero(), Extreme::zero()];
-        for (x, (best, area, length)) in out
-            .iter_mut()
-            .zip([(hi[e], pos, lpos), (lo[e], neg, lneg)])
+        for (x, (best, area, length)) in
+            out.iter_mut().zip([(hi[e], pos, lpos), (lo[e], neg, lneg)])
         {
             let w = vehicle.lane.unwrap_or(0.0)
                 + vehicle
@@ -488,14 +509,22 @@ pub fn extremes(
                     .crowd
                     .as_ref()
                     .map_or(0.0, |c| c.rule.intensity(length) * c.width);
-            x.lane = if area.abs() > lane_floor { w * area } else { 0.0 };
+            x.lane = if area.abs() > lane_floor {
+                w * area
+            } else {
+                0.0
+            };
             x.axles = best.value;
             x.at = best.at;
             x.train = best.train;
             x.gap = best.gap;
             x.loaded_length = length;
             x.impact = ml.impact_rule.allowance(ml.impact, length);
-            let lane_factor = if ml.impact_on_lane { 1.0 + x.impact } else { 1.0 };
+            let lane_factor = if ml.impact_on_lane {
+                1.0 + x.impact
+            } else {
+                1.0
+            };
             x.force = (1.0 + x.impact) * x.axles + lane_factor * x.lane;
         }
         let [t, c] = out;

@@ -74,7 +74,11 @@ pub fn with_gap(axles: &[Axle], v: &VariableGap, g: f64) -> Vec<Axle> {
         .enumerate()
         .map(|(i, a)| Axle {
             load: a.load,
-            offset: if i >= v.axle { a.offset + g - v.min } else { a.offset },
+            offset: if i >= v.axle {
+                a.offset + g - v.min
+            } else {
+                a.offset
+            },
         })
         .collect()
 }
@@ -147,11 +151,24 @@ mod tests {
             .collect();
         let deck = Deck::from_nodes(&nodes, &[0, 1, 2, 3, 4]).unwrap();
         let axles = vec![
-            Axle { load: 1.0, offset: 0.0 },
-            Axle { load: 1.0, offset: 4.0 },
-            Axle { load: 1.0, offset: 8.0 },
+            Axle {
+                load: 1.0,
+                offset: 0.0,
+            },
+            Axle {
+                load: 1.0,
+                offset: 4.0,
+            },
+            Axle {
+                load: 1.0,
+                offset: 8.0,
+            },
         ];
-        let v = VariableGap { axle: 2, min: 4.0, max: 9.0 };
+        let v = VariableGap {
+            axle: 2,
+            min: 4.0,
+            max: 9.0,
+        };
         assert_eq!(gap_candidates(&deck, &axles, &v), vec![4.0, 5.0, 6.0, 9.0]);
         let moved = with_gap(&axles, &v, 6.0);
         assert_eq!(moved[2].offset, 10.0);

@@ -43,14 +43,26 @@ fn trim(v: f64) -> String {
 }
 
 fn dynamic(m: &LoadModel) -> String {
-    let on = if m.impact_on_lane { "all of the load" } else { "axles only" };
+    let on = if m.impact_on_lane {
+        "all of the load"
+    } else {
+        "axles only"
+    };
     match m.dynamic {
         Dynamic::None => "none".into(),
         Dynamic::Fixed(x) => format!("{} % on {on}", trim(100.0 * x)),
-        Dynamic::LoadedLength => format!("I = 50/(L + 125) <= 0.30, L the loaded length (ft), on {on}"),
-        Dynamic::Arema => format!("100/S + 40 - 3L^2/1600 (L < 80 ft) or 100/S + 16 + 600/(L - 30) percent, on {on}"),
-        Dynamic::EnPhi { phi3: true } => "Phi3 = 2.16/(sqrt(L_phi) - 0.2) + 0.73 within 1.00..2.00, on all of the load".into(),
-        Dynamic::EnPhi { phi3: false } => "Phi2 = 1.44/(sqrt(L_phi) - 0.2) + 0.82 within 1.00..1.67, on all of the load".into(),
+        Dynamic::LoadedLength => {
+            format!("I = 50/(L + 125) <= 0.30, L the loaded length (ft), on {on}")
+        }
+        Dynamic::Arema => format!(
+            "100/S + 40 - 3L^2/1600 (L < 80 ft) or 100/S + 16 + 600/(L - 30) percent, on {on}"
+        ),
+        Dynamic::EnPhi { phi3: true } => {
+            "Phi3 = 2.16/(sqrt(L_phi) - 0.2) + 0.73 within 1.00..2.00, on all of the load".into()
+        }
+        Dynamic::EnPhi { phi3: false } => {
+            "Phi2 = 1.44/(sqrt(L_phi) - 0.2) + 0.82 within 1.00..1.67, on all of the load".into()
+        }
     }
 }
 
@@ -76,9 +88,15 @@ fn distributed(m: &LoadModel) -> Option<String> {
     }
     v.lane.map(|w| {
         if metric(m) {
-            format!("{} kN/m on the parts of the influence line that add", trim(w / 1000.0))
+            format!(
+                "{} kN/m on the parts of the influence line that add",
+                trim(w / 1000.0)
+            )
         } else {
-            format!("{} kip/ft on the parts of the influence line that add", trim(w / KLF))
+            format!(
+                "{} kip/ft on the parts of the influence line that add",
+                trim(w / KLF)
+            )
         }
     })
 }
@@ -88,11 +106,23 @@ pub fn text(w: &mut dyn Write, models: &[LoadModel]) -> io::Result<()> {
     writeln!(w, "Library load models (every number from memory: check against the edition the owner requires)")?;
     for m in models {
         let (f, _, fu, _) = units(m);
-        writeln!(w, "\n{}  {}{}", m.name, m.designation, if m.legal { "  [legal load]" } else { "" })?;
+        writeln!(
+            w,
+            "\n{}  {}{}",
+            m.name,
+            m.designation,
+            if m.legal { "  [legal load]" } else { "" }
+        )?;
         writeln!(w, "  axles:    {}", axles_line(m, &m.vehicle.axles))?;
         if let Some(g) = &m.vehicle.rules.variable_gap {
             let l = units(m).1;
-            writeln!(w, "  spacing:  axle {} varies {}..{} for the greatest effect", g.axle + 1, trim(g.min / l), trim(g.max / l))?;
+            writeln!(
+                w,
+                "  spacing:  axle {} varies {}..{} for the greatest effect",
+                g.axle + 1,
+                trim(g.min / l),
+                trim(g.max / l)
+            )?;
         }
         for t in &m.vehicle.rules.alternatives {
             writeln!(w, "  or {}: {}", t.label, axles_line(m, &t.axles))?;
@@ -112,13 +142,20 @@ pub fn text(w: &mut dyn Write, models: &[LoadModel]) -> io::Result<()> {
         }
         writeln!(w, "  source:   {}", m.source)?;
     }
-    writeln!(w, "\nCooper E-n and the alternate live load take any n: cooper-e72, alternate-e60.")?;
+    writeln!(
+        w,
+        "\nCooper E-n and the alternate live load take any n: cooper-e72, alternate-e60."
+    )?;
     writeln!(w, "{}", super::CAUTION)
 }
 
 /// JSON listing of `models` (loads in N, lengths in m).
 pub fn json(w: &mut dyn Write, models: &[LoadModel]) -> io::Result<()> {
-    write!(w, "{{\"units\":{{\"force\":\"N\",\"length\":\"m\"}},\"caution\":{},\"models\":[", string(super::CAUTION))?;
+    write!(
+        w,
+        "{{\"units\":{{\"force\":\"N\",\"length\":\"m\"}},\"caution\":{},\"models\":[",
+        string(super::CAUTION)
+    )?;
     for (i, m) in models.iter().enumerate() {
         if i > 0 {
             write!(w, ",")?;

@@ -28,8 +28,25 @@ use crate::loads::{Rules, Train, VariableGap, Vehicle};
 
 /// The fixed names of this family.
 pub const NAMES: &[&str] = &[
-    "h5", "h10", "h15", "h20", "hs15", "hs20", "hl93", "type3", "type3s2", "type3-3",
-    "legal-lane", "su4", "su5", "su6", "su7", "nrl", "ev2", "ev3", "ped90",
+    "h5",
+    "h10",
+    "h15",
+    "h20",
+    "hs15",
+    "hs20",
+    "hl93",
+    "type3",
+    "type3s2",
+    "type3-3",
+    "legal-lane",
+    "su4",
+    "su5",
+    "su6",
+    "su7",
+    "nrl",
+    "ev2",
+    "ev3",
+    "ped90",
 ];
 
 const STD: &str = "AASHTO Standard Specifications for Highway Bridges, 17th ed. (2002)";
@@ -113,7 +130,8 @@ pub fn lookup(name: &str) -> Option<LoadModel> {
             v,
         )
     };
-    let ped_truck = |name: &str, designation: &str, tons: f64| LoadModel {
+    let ped_truck = |name: &str, designation: &str, tons: f64| {
+        LoadModel {
         note: "maintenance vehicle of the pedestrian guide: H5 for a clear deck width of 7-10 ft, H10 over 10 ft; no dynamic allowance".into(),
         ..model(
             name,
@@ -121,6 +139,7 @@ pub fn lookup(name: &str) -> Option<LoadModel> {
             format!("{PED} 3.2, axles as the H truck of {STD} 3.7.6 (from memory)"),
             h_truck(tons),
         )
+    }
     };
     Some(match name {
         "h5" => ped_truck(name, "H5", 5.0),
@@ -253,7 +272,11 @@ mod tests {
             ("ev2", 57.5),
             ("ev3", 86.0),
         ] {
-            assert!((gross_kip(name) - kip).abs() < 1e-9, "{name}: {}", gross_kip(name));
+            assert!(
+                (gross_kip(name) - kip).abs() < 1e-9,
+                "{name}: {}",
+                gross_kip(name)
+            );
         }
         assert_eq!(gross_kip("ped90"), 0.0);
     }

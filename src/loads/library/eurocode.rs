@@ -173,15 +173,31 @@ mod tests {
     fn phi_by_hand() {
         // LΦ = 16 m: √16 − 0.2 = 3.8; Φ3 = 2.16/3.8 + 0.73 = 1.29842;
         // Φ2 = 1.44/3.8 + 0.82 = 1.19895 (EN 1991-2 6.4.5.2, from memory).
-        let i3 = ImpactRule::EnPhi { phi3: true, length: 16.0 }.allowance(0.0, 0.0);
-        let i2 = ImpactRule::EnPhi { phi3: false, length: 16.0 }.allowance(0.0, 0.0);
+        let i3 = ImpactRule::EnPhi {
+            phi3: true,
+            length: 16.0,
+        }
+        .allowance(0.0, 0.0);
+        let i2 = ImpactRule::EnPhi {
+            phi3: false,
+            length: 16.0,
+        }
+        .allowance(0.0, 0.0);
         assert!((i3 - (2.16 / 3.8 + 0.73 - 1.0)).abs() < 1e-12 && (i3 - 0.298_42).abs() < 1e-5);
         assert!((i2 - 0.198_95).abs() < 1e-5);
         // Short span: Φ3 capped at 2.00 (LΦ = 1 m: 2.16/0.8 + 0.73 = 3.43).
-        let short = ImpactRule::EnPhi { phi3: true, length: 1.0 }.allowance(0.0, 0.0);
+        let short = ImpactRule::EnPhi {
+            phi3: true,
+            length: 1.0,
+        }
+        .allowance(0.0, 0.0);
         assert_eq!(short, 1.0);
         // Long span: Φ2 floor 1.00 (LΦ = 400 m: 1.44/19.8 + 0.82 = 0.893).
-        let long = ImpactRule::EnPhi { phi3: false, length: 400.0 }.allowance(0.0, 0.0);
+        let long = ImpactRule::EnPhi {
+            phi3: false,
+            length: 400.0,
+        }
+        .allowance(0.0, 0.0);
         assert_eq!(long, 0.0);
     }
 }

@@ -173,7 +173,11 @@ mod tests {
             assert_eq!(m.vehicle.id, m.name);
             assert!(m.source.contains("from memory"), "{}", m.name);
             // Offsets non-decreasing (the scan's precondition).
-            assert!(m.vehicle.axles.windows(2).all(|w| w[0].offset <= w[1].offset));
+            assert!(m
+                .vehicle
+                .axles
+                .windows(2)
+                .all(|w| w[0].offset <= w[1].offset));
         }
         assert!(lookup("nope").is_none());
         assert!(lookup("HS20").is_none(), "names are lower case only");
