@@ -450,3 +450,24 @@ fn e80_end_reactions_are_equal_and_match_the_brute_force() {
     assert!((r0 - 873.025).abs() < 1e-6, "{r0}");
     assert!((r2 - 873.025).abs() < 1e-6, "{r2}");
 }
+
+#[test]
+fn kettle_creek_demo_matches_the_railway_loading_by_hand() {
+    // models/kettle-creek-e80.ron: 160 ft span, eight 20 ft panels, 26 ft
+    // deep, track centred between trusses 17 ft apart (share 1/2). Top
+    // chord U3-U4 (moment centre L4, midspan): greatest E80 midspan moment
+    // by the closed-form scan, 31,816 kip-ft (hand statics); railway impact
+    // 16 + 600/(160 − 30) + 100/17 = 26.4977 % (AREMA 15-1.3.5, from
+    // memory): −31,816/26 × 0.5 × 1.264977 = −773.97 kip.
+    let path = concat!(env!("CARGO_MANIFEST_DIR"), "/models/kettle-creek-e80.ron");
+    let m = load_str(&std::fs::read_to_string(path).unwrap()).unwrap().model;
+    let e = &envelopes(&m)[0];
+    let u34 = e.per_member.iter().find(|x| x.id == "U3-U4").unwrap();
+    let impact = (16.0 + 600.0 / 130.0 + 100.0 / 17.0) / 100.0;
+    let m_mid = brute_force_midspan_e80(160.0);
+    assert!((m_mid - 31_816.0).abs() < 0.5, "{m_mid}");
+    let expected = -m_mid / 26.0 * 0.5 * (1.0 + impact);
+    let got = u34.compression.force / KIP;
+    assert!((got - expected).abs() < 1e-4 * expected.abs(), "{got} vs {expected}");
+    assert!((u34.compression.impact - impact).abs() < 1e-12);
+}
