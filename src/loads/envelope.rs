@@ -292,6 +292,7 @@ impl<'a> Rows<'a> {
 /// Effects of `train` with the front axle at `p`: into `hi` and `lo` (the
 /// same unless relieving axles are left off, when each axle counts only
 /// where it adds to the sign sought).
+#[allow(clippy::too_many_arguments)]
 fn evaluate(
     r: &Rows,
     vehicle: &Vehicle,

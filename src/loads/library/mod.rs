@@ -195,3 +195,30 @@ mod tests {
         assert_eq!(Presence::Standard.factor(5), 0.75);
     }
 }
+
+#[cfg(test)]
+mod impact_tests {
+    use super::FT;
+    use crate::loads::ImpactRule;
+
+    #[test]
+    fn railway_impact_by_hand() {
+        // AREMA 15-1.3.5 (from memory), trusses S = 16 ft apart:
+        // L = 40 ft < 80: 40 − 3·40²/1600 = 37 %, + 100/16 = 6.25 % → 43.25 %.
+        let r = ImpactRule::Arema { span: 40.0 * FT, spacing: 16.0 * FT };
+        assert!((r.allowance(0.0, 0.0) - 0.4325).abs() < 1e-12);
+        // L = 80 ft, both branches give 28 %: 40 − 12 = 16 + 600/50.
+        let r = ImpactRule::Arema { span: 80.0 * FT, spacing: 20.0 * FT };
+        assert!((r.allowance(0.0, 0.0) - 0.33).abs() < 1e-12);
+    }
+
+    #[test]
+    fn standard_impact_by_hand() {
+        // AASHTO Standard 3.8.2.1 (from memory): L = 75 ft: 50/200 = 0.25;
+        // L = 20 ft: 50/145 = 0.345 → 0.30.
+        let r = ImpactRule::LoadedLength;
+        assert!((r.allowance(0.0, 75.0 * FT) - 0.25).abs() < 1e-12);
+        assert_eq!(r.allowance(0.0, 20.0 * FT), 0.30);
+        assert_eq!(ImpactRule::Fixed.allowance(0.15, 99.0), 0.15);
+    }
+}
