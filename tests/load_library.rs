@@ -471,3 +471,68 @@ fn kettle_creek_demo_matches_the_railway_loading_by_hand() {
     assert!((got - expected).abs() < 1e-4 * expected.abs(), "{got} vs {expected}");
     assert!((u34.compression.impact - impact).abs() < 1e-12);
 }
+
+/// The Millrace footbridge demo with the library's H5 maintenance vehicle
+/// and the 90 psf pedestrian load in place of the invented truck; deck
+/// 12 ft between trusses, so each truss carries 6 ft of walkway.
+fn millrace_h5() -> String {
+    let text = include_str!("../models/millrace-footbridge.ron");
+    let out = text
+        .replace(
+            "deck: [\"L0\", \"L1\", \"L2\", \"L3\", \"L4\", \"L5\", \"L6\"],",
+            "deck: (nodes: [\"L0\", \"L1\", \"L2\", \"L3\", \"L4\", \"L5\", \"L6\"], width: \"12 ft\"),",
+        )
+        .replace("vehicles_file: \"vehicles.ron\",", "")
+        .replace(
+            "(id: \"truck\", vehicle: \"maintenance-truck\", step: \"1 ft\", impact: 0.15),",
+            "(id: \"truck\", vehicle: \"h5\", step: \"1 ft\"), (id: \"walkers\", vehicle: \"ped90\", step: \"1 ft\"),",
+        );
+    assert!(out.contains("\"h5\"") && out.contains("width: \"12 ft\"") && !out.contains("vehicles_file"));
+    out
+}
+
+#[test]
+fn millrace_demo_with_h5_and_90_psf_by_hand() {
+    // Six 16 ft panels, 96 ft span, 20 ft deep (models/millrace-footbridge.ron).
+    // 90 psf × 6 ft = 0.54 kip/ft over the span (AASHTO pedestrian guide 3.1,
+    // from memory; no impact): top chord U2-U3, moment centre L3 (48 ft):
+    // M = 0.54·48·48/2 = 622.08 kip-ft → −31.104 kip; bottom chord L2-L3,
+    // moment centre U2 (32 ft): 0.54·32·64/2 = 552.96 → +27.648 kip.
+    // H5 (2 + 8 kip at 14 ft, no impact): midspan ordinate 24 ft, 8 kip
+    // there and 2 kip 14 ft away at 17 ft: 192 + 34 = 226 kip-ft → −11.3
+    // kip in U2-U3 (hand statics).
+    let m = match load_str(&millrace_h5()) {
+        Ok(c) => c.model,
+        Err(d) => panic!("{d:?}"),
+    };
+    let envs = envelopes(&m);
+    let get = |e: &MovingEnvelope, id: &str| e.per_member.iter().find(|x| x.id == id).unwrap().clone();
+    let truck = &envs[0];
+    let walk = &envs[1];
+    assert!((get(truck, "U2-U3").compression.force / KIP + 11.3).abs() < 1e-9);
+    assert_eq!(get(truck, "U2-U3").compression.impact, 0.0);
+    assert!((get(walk, "U2-U3").compression.force / KIP + 31.104).abs() < 1e-9);
+    assert!((get(walk, "L2-L3").tension.force / KIP - 27.648).abs() < 1e-9);
+}
+
+#[test]
+fn millrace_demo_with_h5_rates_from_the_command_line() {
+    let dir = std::env::temp_dir().join(format!("pp-h5-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let path = dir.join("millrace-h5.ron");
+    std::fs::write(&path, millrace_h5()).unwrap();
+    let out = std::process::Command::new(env!("CARGO_BIN_EXE_panelpoint"))
+        .args(["rate", path.to_str().unwrap()])
+        .output()
+        .unwrap();
+    let text = String::from_utf8_lossy(&out.stdout);
+    assert_eq!(out.status.code(), Some(0), "{text}{}", String::from_utf8_lossy(&out.stderr));
+    assert!(text.contains("walkers") && text.contains("truck"), "{text}");
+    let list = std::process::Command::new(env!("CARGO_BIN_EXE_panelpoint"))
+        .args(["vehicles", "h5"])
+        .output()
+        .unwrap();
+    let list = String::from_utf8_lossy(&list.stdout);
+    assert!(list.contains("2 -14- 8 (kip, spacings in ft)") && list.contains("Pedestrian Bridges"), "{list}");
+    std::fs::remove_dir_all(&dir).ok();
+}
