@@ -446,7 +446,10 @@ fn e80_end_reactions_are_equal_and_match_the_brute_force() {
     let e80 = "(id: \"e\", vehicle: \"cooper-e80\", step: \"1 ft\", impact: 0.0)";
     let m = king_post(160.0, 80.0, 20.0, DECK, e80);
     let e = &envelopes(&m)[0];
-    let (r0, r2) = (e.per_support[0].up.force / KIP, e.per_support[1].up.force / KIP);
+    let (r0, r2) = (
+        e.per_support[0].up.force / KIP,
+        e.per_support[1].up.force / KIP,
+    );
     assert!((r0 - 873.025).abs() < 1e-6, "{r0}");
     assert!((r2 - 873.025).abs() < 1e-6, "{r2}");
 }
@@ -460,7 +463,9 @@ fn kettle_creek_demo_matches_the_railway_loading_by_hand() {
     // 16 + 600/(160 − 30) + 100/17 = 26.4977 % (AREMA 15-1.3.5, from
     // memory): −31,816/26 × 0.5 × 1.264977 = −773.97 kip.
     let path = concat!(env!("CARGO_MANIFEST_DIR"), "/models/kettle-creek-e80.ron");
-    let m = load_str(&std::fs::read_to_string(path).unwrap()).unwrap().model;
+    let m = load_str(&std::fs::read_to_string(path).unwrap())
+        .unwrap()
+        .model;
     let e = &envelopes(&m)[0];
     let u34 = e.per_member.iter().find(|x| x.id == "U3-U4").unwrap();
     let impact = (16.0 + 600.0 / 130.0 + 100.0 / 17.0) / 100.0;
@@ -468,7 +473,10 @@ fn kettle_creek_demo_matches_the_railway_loading_by_hand() {
     assert!((m_mid - 31_816.0).abs() < 0.5, "{m_mid}");
     let expected = -m_mid / 26.0 * 0.5 * (1.0 + impact);
     let got = u34.compression.force / KIP;
-    assert!((got - expected).abs() < 1e-4 * expected.abs(), "{got} vs {expected}");
+    assert!(
+        (got - expected).abs() < 1e-4 * expected.abs(),
+        "{got} vs {expected}"
+    );
     assert!((u34.compression.impact - impact).abs() < 1e-12);
 }
 
@@ -487,7 +495,11 @@ fn millrace_h5() -> String {
             "(id: \"truck\", vehicle: \"maintenance-truck\", step: \"1 ft\", impact: 0.15),",
             "(id: \"truck\", vehicle: \"h5\", step: \"1 ft\"), (id: \"walkers\", vehicle: \"ped90\", step: \"1 ft\"),",
         );
-    assert!(out.contains("\"h5\"") && out.contains("width: \"12 ft\"") && !out.contains("vehicles_file"));
+    assert!(
+        out.contains("\"h5\"")
+            && out.contains("width: \"12 ft\"")
+            && !out.contains("vehicles_file")
+    );
     out
 }
 
@@ -506,7 +518,8 @@ fn millrace_demo_with_h5_and_90_psf_by_hand() {
         Err(d) => panic!("{d:?}"),
     };
     let envs = envelopes(&m);
-    let get = |e: &MovingEnvelope, id: &str| e.per_member.iter().find(|x| x.id == id).unwrap().clone();
+    let get =
+        |e: &MovingEnvelope, id: &str| e.per_member.iter().find(|x| x.id == id).unwrap().clone();
     let truck = &envs[0];
     let walk = &envs[1];
     assert!((get(truck, "U2-U3").compression.force / KIP + 11.3).abs() < 1e-9);
@@ -526,13 +539,21 @@ fn millrace_demo_with_h5_rates_from_the_command_line() {
         .output()
         .unwrap();
     let text = String::from_utf8_lossy(&out.stdout);
-    assert_eq!(out.status.code(), Some(0), "{text}{}", String::from_utf8_lossy(&out.stderr));
+    assert_eq!(
+        out.status.code(),
+        Some(0),
+        "{text}{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
     assert!(text.contains("walkers") && text.contains("truck"), "{text}");
     let list = std::process::Command::new(env!("CARGO_BIN_EXE_panelpoint"))
         .args(["vehicles", "h5"])
         .output()
         .unwrap();
     let list = String::from_utf8_lossy(&list.stdout);
-    assert!(list.contains("2 -14- 8 (kip, spacings in ft)") && list.contains("Pedestrian Bridges"), "{list}");
+    assert!(
+        list.contains("2 -14- 8 (kip, spacings in ft)") && list.contains("Pedestrian Bridges"),
+        "{list}"
+    );
     std::fs::remove_dir_all(&dir).ok();
 }

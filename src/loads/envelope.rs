@@ -280,11 +280,10 @@ impl<'a> Rows<'a> {
         // ∫ over the part segment: h(t − t²/2)·η_k + h(t²/2)·η_{k+1}.
         let (a, b) = (h * (t - 0.5 * t * t), h * 0.5 * t * t);
         let ne = self.ne;
-        for e in 0..ne {
-            vals[e] += w
-                * (self.prefix[k * ne + e]
-                    + a * self.rows[k * ne + e]
-                    + b * self.rows[(k + 1) * ne + e]);
+        let prefix = &self.prefix[k * ne..(k + 1) * ne];
+        let (ra, rb) = (self.row(k), self.row(k + 1));
+        for (e, v) in vals.iter_mut().enumerate() {
+            *v += w * (prefix[e] + a * ra[e] + b * rb[e]);
         }
     }
 }

@@ -13,7 +13,7 @@ pub mod rail;
 use super::{Axle, Vehicle};
 
 /// 1 kip in N.
-pub const KIP: f64 = 4448.221_615_260_5;
+pub const KIP: f64 = 4_448.221_615_260_5;
 /// 1 ft in m.
 pub const FT: f64 = 0.3048;
 /// 1 kip/ft in N/m.
@@ -205,10 +205,16 @@ mod impact_tests {
     fn railway_impact_by_hand() {
         // AREMA 15-1.3.5 (from memory), trusses S = 16 ft apart:
         // L = 40 ft < 80: 40 − 3·40²/1600 = 37 %, + 100/16 = 6.25 % → 43.25 %.
-        let r = ImpactRule::Arema { span: 40.0 * FT, spacing: 16.0 * FT };
+        let r = ImpactRule::Arema {
+            span: 40.0 * FT,
+            spacing: 16.0 * FT,
+        };
         assert!((r.allowance(0.0, 0.0) - 0.4325).abs() < 1e-12);
         // L = 80 ft, both branches give 28 %: 40 − 12 = 16 + 600/50.
-        let r = ImpactRule::Arema { span: 80.0 * FT, spacing: 20.0 * FT };
+        let r = ImpactRule::Arema {
+            span: 80.0 * FT,
+            spacing: 20.0 * FT,
+        };
         assert!((r.allowance(0.0, 0.0) - 0.33).abs() < 1e-12);
     }
 
