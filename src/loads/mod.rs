@@ -220,7 +220,7 @@ impl ImpactRule {
 }
 
 /// A vehicle rolled across the deck.
-#[derive(Clone, Debug, PartialEq, Default)]
+#[derive(Clone, Debug, PartialEq)]
 pub struct MovingLoad {
     pub id: String,
     /// Index into [`LiveLoads::vehicles`].
@@ -238,6 +238,22 @@ pub struct MovingLoad {
     /// Transverse share of the vehicle this truss carries (already in the
     /// vehicle's loads), with any multiple-presence factor and scale.
     pub share: f64,
+}
+
+impl Default for MovingLoad {
+    /// No impact, the whole vehicle on this truss (share 1).
+    fn default() -> Self {
+        MovingLoad {
+            id: String::new(),
+            vehicle: 0,
+            step: 1.0,
+            impact: 0.0,
+            impact_on_lane: false,
+            impact_rule: ImpactRule::Fixed,
+            model: None,
+            share: 1.0,
+        }
+    }
 }
 
 /// The moving-load part of a model.
