@@ -104,6 +104,17 @@ pub enum Command {
         #[arg(short = 'o', long = "out")]
         out: Option<PathBuf>,
     },
+    /// List the library of published load models (axles, spacings,
+    /// uniform loads, dynamic allowance, sources), or the one named.
+    Vehicles {
+        /// A library name (hs20, hl93, cooper-e80, lm71, ...); all when absent.
+        name: Option<String>,
+        #[arg(long, value_enum, default_value_t = FormatArg::Text)]
+        format: FormatArg,
+        /// Write to this file (atomically) instead of standard output.
+        #[arg(long)]
+        out: Option<PathBuf>,
+    },
     /// Write a starting model of a truss family (RON) to standard output or a file.
     New {
         /// pratt, howe, warren, warren-verticals, polygonal, k-braced.

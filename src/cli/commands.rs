@@ -246,6 +246,25 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             all,
             draw,
         } => super::fatigue::fatigue(&model, format(f), &out, all, &draw),
+        Command::Vehicles {
+            name,
+            format: f,
+            out,
+        } => {
+            let models = match name {
+                None => crate::loads::library::catalogue(),
+                Some(n) => vec![crate::loads::library::lookup(&n).ok_or_else(|| {
+                    Error::Usage(format!(
+                        "no library load model \"{n}\"; `panelpoint vehicles` lists them"
+                    ))
+                })?],
+            };
+            write(&out, |w| match format(f) {
+                Format::Json => report::vehicles::json(w, &models),
+                _ => report::vehicles::text(w, &models),
+            })?;
+            Ok(0)
+        }
         Command::New {
             family,
             panels,

@@ -27,7 +27,7 @@ pub struct Passage {
 pub fn passages(deck: &Deck, vehicle: &Vehicle) -> Result<[Passage; 2], LoadError> {
     let travel = deck.length() + vehicle.length();
     let one = |direction: Direction| -> Result<Passage, LoadError> {
-        let mut p = positions(deck, vehicle, travel, direction, &vehicle.id)?;
+        let mut p = positions(deck, &vehicle.axles, &[], travel, direction, &vehicle.id)?;
         if direction == Direction::Reverse {
             p.reverse();
         }

@@ -107,7 +107,7 @@ pub(super) fn settings(ctx: &mut Ctx, file: &ModelFile, live: &LiveLoads) -> Opt
             None
         }
     };
-    if file.deck.is_empty() {
+    if file.deck.nodes().is_empty() {
         ctx.error(
             "the fatigue evaluation needs a deck line: add `deck: [...]`".into(),
             None,

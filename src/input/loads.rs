@@ -6,7 +6,7 @@
 use super::convert::{positive, value, Ctx};
 use super::diagnostics::{Diagnostic, Diagnostics, Severity};
 use super::schema::{LoadCaseFile, ModelFile, VehiclesFile};
-use crate::loads::{self_weight, thermal, Axle, Deck, LiveLoads, MovingLoad, Vehicle};
+use crate::loads::{self_weight, thermal, Axle, Deck, ImpactRule, LiveLoads, MovingLoad, Vehicle};
 use crate::model::{InitialElongation, LoadCase, Material, Member, Node, Section};
 use crate::units::{Dimension, DisplayUnits};
 use std::collections::HashMap;
@@ -207,7 +207,7 @@ pub(super) fn live_loads(
 
     // Deck.
     let mut deck_ok = true;
-    for id in &file.deck {
+    for id in file.deck.nodes() {
         match node_ids.get(id.as_str()) {
             Some(&i) if carries.get(i) == Some(&true) => live.deck.push(i),
             Some(_) => {
@@ -229,11 +229,14 @@ pub(super) fn live_loads(
             }
         }
     }
-    if deck_ok && !file.deck.is_empty() && ctx.errors.is_empty() {
-        if let Err(e) = Deck::from_nodes(p.nodes, &live.deck) {
-            ctx.error(format!("deck: {e}"), None);
+    let mut deck_length = None;
+    if deck_ok && !file.deck.nodes().is_empty() && ctx.errors.is_empty() {
+        match Deck::from_nodes(p.nodes, &live.deck) {
+            Ok(d) => deck_length = Some(d.length()),
+            Err(e) => ctx.error(format!("deck: {e}"), None),
         }
     }
+    let layout = super::library::layout(ctx, &file.deck, u);
 
     // Vehicles.
     let mut vehicle_ids: HashMap<&str, usize> = HashMap::new();
@@ -295,6 +298,7 @@ pub(super) fn live_loads(
             id: v.id.clone(),
             axles,
             lane,
+            ..Vehicle::default()
         });
     }
 
@@ -306,13 +310,21 @@ pub(super) fn live_loads(
         if seen.insert(&ml.id, ()).is_some() {
             ctx.error(format!("duplicate moving load id \"{}\"", ml.id), at);
         }
+        let mut resolved = None;
         let vehicle = match vehicle_ids.get(ml.vehicle.as_str()) {
             Some(&v) => Some(v),
+            None if crate::loads::library::lookup(&ml.vehicle).is_some() => {
+                resolved = super::library::resolve(ctx, ml, &layout, deck_length, at);
+                resolved.as_ref().map(|r| {
+                    live.vehicles.push(r.vehicle.clone());
+                    live.vehicles.len() - 1
+                })
+            }
             None => {
                 let at = ctx.loc.field("vehicle", &ml.vehicle, 0);
                 ctx.error(
-                    format!(
-                        "{who} refers to vehicle \"{}\", which is not defined",
+                        format!(
+                        "{who} refers to vehicle \"{}\", which is neither defined nor a library model (`panelpoint vehicles` lists them)",
                         ml.vehicle
                     ),
                     at,
@@ -328,7 +340,9 @@ pub(super) fn live_loads(
             &format!("{who} step"),
             at,
         );
-        let impact = ml.impact.unwrap_or(0.0);
+        let impact = ml
+            .impact
+            .unwrap_or_else(|| resolved.as_ref().map_or(0.0, |r| r.impact));
         if !(impact.is_finite() && impact >= 0.0) {
             ctx.error(
                 format!(
@@ -342,18 +356,48 @@ pub(super) fn live_loads(
                 at,
             );
         }
+        // A user's vehicle takes its `scale` and, on a deck with lanes or
+        // wheel lines, its lever-rule share (no multiple-presence factor):
+        // a scaled copy, so other moving loads of the vehicle are unchanged.
+        let mut user_share = 1.0;
+        let vehicle = match (vehicle, &resolved) {
+            (Some(v), None) => {
+                let scale = super::library::scale(ctx, ml, at).unwrap_or(1.0);
+                user_share = layout.as_ref().map_or(1.0, |l| {
+                    l.vehicle_share(crate::loads::library::Presence::None).0
+                });
+                if scale * user_share != 1.0 {
+                    let copy = live.vehicles[v].scaled(scale * user_share);
+                    live.vehicles.push(copy);
+                    Some(live.vehicles.len() - 1)
+                } else {
+                    Some(v)
+                }
+            }
+            (v, _) => v,
+        };
         if let (Some(vehicle), Some(step)) = (vehicle, step) {
             live.moving.push(MovingLoad {
                 id: ml.id.clone(),
                 vehicle,
                 step,
                 impact,
-                impact_on_lane: ml.impact_on_lane.unwrap_or(false),
-                legal: ml.legal.unwrap_or(false),
+                impact_on_lane: ml
+                    .impact_on_lane
+                    .unwrap_or_else(|| resolved.as_ref().is_some_and(|r| r.impact_on_lane)),
+                impact_rule: match (&resolved, ml.impact) {
+                    (Some(r), None) => r.rule,
+                    _ => ImpactRule::Fixed,
+                },
+                model: resolved.as_ref().map(|r| r.name.clone()),
+                share: resolved.as_ref().map_or(user_share, |r| r.share),
+                legal: ml
+                    .legal
+                    .unwrap_or_else(|| resolved.as_ref().is_some_and(|r| r.legal)),
             });
         }
     }
-    if !file.moving_loads.is_empty() && file.deck.is_empty() {
+    if !file.moving_loads.is_empty() && file.deck.nodes().is_empty() {
         ctx.error(
             "moving loads need a deck line: add `deck: [\"L0\", \"L1\", ...]`, the panel points in order".into(),
             None,

@@ -6,6 +6,7 @@ mod bulk;
 pub mod convert;
 pub mod diagnostics;
 mod fatigue;
+mod library;
 mod loads;
 pub mod parts;
 pub mod quantity;

@@ -34,9 +34,10 @@ pub struct ModelFile {
     #[serde(default)]
     pub rating: Option<RatingFile>,
     // Optional moving-load fields; see `docs/loads.md` and `input/loads.rs`.
-    /// Ordered deck nodes (panel points where floor beams deliver load).
+    /// Ordered deck nodes (panel points where floor beams deliver load),
+    /// as a list or with the transverse layout: `(nodes: [...], width, lanes)`.
     #[serde(default)]
-    pub deck: Vec<String>,
+    pub deck: DeckFile,
     /// Vehicle definitions: axle trains and lane loads.
     #[serde(default)]
     pub vehicles: Vec<VehicleFile>,
@@ -366,6 +367,50 @@ pub struct LackOfFitFile {
     pub elongation: Quantity,
 }
 
+/// The deck line: a list of node ids, or the nodes with the transverse
+/// layout used to give the truss its share of each load (lever rule).
+#[derive(Debug, Deserialize)]
+#[serde(untagged)]
+pub enum DeckFile {
+    Nodes(Vec<String>),
+    Layout(DeckLayoutFile),
+}
+
+impl Default for DeckFile {
+    fn default() -> Self {
+        DeckFile::Nodes(Vec::new())
+    }
+}
+
+impl DeckFile {
+    /// The deck node ids in order.
+    pub fn nodes(&self) -> &[String] {
+        match self {
+            DeckFile::Nodes(n) => n,
+            DeckFile::Layout(l) => &l.nodes,
+        }
+    }
+}
+
+/// `deck: (nodes: [...], width: "18 ft", lanes: ["5 ft"], ...)`.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct DeckLayoutFile {
+    pub nodes: Vec<String>,
+    /// Centre-to-centre spacing of the two trusses (the floor beam's span).
+    #[serde(default)]
+    pub width: Option<Quantity>,
+    /// Lane (or track) centres, measured from the truss analysed.
+    #[serde(default)]
+    pub lanes: Vec<Quantity>,
+    /// Wheel lines of one vehicle, measured from the truss analysed.
+    #[serde(default)]
+    pub wheel_lines: Vec<Quantity>,
+    /// Width of deck whose area load this truss carries (default width/2).
+    #[serde(default)]
+    pub tributary: Option<Quantity>,
+}
+
 /// A vehicle: axles front to back, each `spacing` behind the one before.
 #[derive(Debug, Deserialize)]
 #[serde(deny_unknown_fields)]
@@ -402,6 +447,9 @@ pub struct MovingLoadFile {
     /// A legal load: rated at the legal level and posted.
     #[serde(default)]
     pub legal: Option<bool>,
+    /// Multiplies every load of the vehicle (LM71's α, a tonnage factor).
+    #[serde(default)]
+    pub scale: Option<f64>,
 }
 
 /// The separate vehicles file: `(vehicles: [...])`.

@@ -24,6 +24,7 @@
 
 use super::influence::{influence_lines, InfluenceLines};
 use super::moving::{positions, Deck, Direction, Placement};
+use super::rules::{concrete_trains, Concrete};
 use super::{LoadError, MovingLoad, Vehicle};
 use crate::analysis::results::Prepared;
 use crate::model::Model;
@@ -41,6 +42,14 @@ pub struct Extreme {
     /// Where the axle train stood; None when the vehicle has no axles or
     /// no position gives an effect of this sign.
     pub at: Option<Placement>,
+    /// Dynamic allowance applied to this extreme (fraction).
+    pub impact: f64,
+    /// Which train governed: 0 the vehicle's own, 1… its alternatives.
+    pub train: usize,
+    /// The variable axle spacing that governed, m.
+    pub gap: Option<f64>,
+    /// Length of deck over which this effect's influence line adds, m.
+    pub loaded_length: f64,
 }
 
 impl Extreme {
@@ -50,6 +59,10 @@ impl Extreme {
             axles: 0.0,
             lane: 0.0,
             at: None,
+            impact: 0.0,
+            train: 0,
+            gap: None,
+            loaded_length: 0.0,
         }
     }
 }
@@ -192,6 +205,244 @@ pub fn envelopes_with(
         .collect()
 }
 
+/// The best value found so far of one effect and where.
+#[derive(Clone, Copy)]
+struct Best {
+    value: f64,
+    at: Option<Placement>,
+    train: usize,
+    gap: Option<f64>,
+}
+
+const NONE: Best = Best {
+    value: 0.0,
+    at: None,
+    train: 0,
+    gap: None,
+};
+
+/// Influence ordinates rearranged for the scan.
+struct Rows<'a> {
+    deck: &'a Deck,
+    ne: usize,
+    /// Row k: every effect at deck node k.
+    rows: Vec<f64>,
+    /// Row k: ∫₀^{c_k} η ds of every effect (for a trailing uniform load).
+    prefix: Vec<f64>,
+}
+
+impl<'a> Rows<'a> {
+    fn new(lines: &'a InfluenceLines) -> Rows<'a> {
+        let deck = &lines.deck;
+        let nd = lines.nd();
+        let nm = lines.members.len() / nd;
+        let ns = lines.reactions.len() / nd;
+        let ne = nm + ns;
+        let mut rows = vec![0.0; nd * ne];
+        for m in 0..nm {
+            for (k, v) in lines.member(m).iter().enumerate() {
+                rows[k * ne + m] = *v;
+            }
+        }
+        for s in 0..ns {
+            for (k, v) in lines.reaction_y(s).iter().enumerate() {
+                rows[k * ne + nm + s] = *v;
+            }
+        }
+        let mut prefix = vec![0.0; nd * ne];
+        for k in 1..nd {
+            let h = deck.chainage[k] - deck.chainage[k - 1];
+            for e in 0..ne {
+                prefix[k * ne + e] = prefix[(k - 1) * ne + e]
+                    + 0.5 * h * (rows[(k - 1) * ne + e] + rows[k * ne + e]);
+            }
+        }
+        Rows {
+            deck,
+            ne,
+            rows,
+            prefix,
+        }
+    }
+
+    fn row(&self, k: usize) -> &[f64] {
+        &self.rows[k * self.ne..(k + 1) * self.ne]
+    }
+
+    /// Adds w·∫₀^s η ds of every effect to `vals` (s clipped to the deck).
+    fn add_integral_to(&self, s: f64, w: f64, vals: &mut [f64]) {
+        let c = &self.deck.chainage;
+        let s = s.clamp(0.0, self.deck.length());
+        let Some((k, _, t)) = self.deck.split(s) else {
+            return;
+        };
+        let h = c[k + 1] - c[k];
+        // ∫ over the part segment: h(t − t²/2)·η_k + h(t²/2)·η_{k+1}.
+        let (a, b) = (h * (t - 0.5 * t * t), h * 0.5 * t * t);
+        let ne = self.ne;
+        let prefix = &self.prefix[k * ne..(k + 1) * ne];
+        let (ra, rb) = (self.row(k), self.row(k + 1));
+        for (e, v) in vals.iter_mut().enumerate() {
+            *v += w * (prefix[e] + a * ra[e] + b * rb[e]);
+        }
+    }
+}
+
+/// Effects of `train` with the front axle at `p`: into `hi` and `lo` (the
+/// same unless relieving axles are left off, when each axle counts only
+/// where it adds to the sign sought).
+#[allow(clippy::too_many_arguments)]
+fn evaluate(
+    r: &Rows,
+    vehicle: &Vehicle,
+    train: &Concrete,
+    p: f64,
+    direction: Direction,
+    hi: &mut [f64],
+    lo: &mut [f64],
+    tmp: &mut [f64],
+) -> bool {
+    hi.iter_mut().for_each(|v| *v = 0.0);
+    lo.iter_mut().for_each(|v| *v = 0.0);
+    let relieve = vehicle.rules.ignore_relieving;
+    let mut any = false;
+    for a in &train.axles {
+        let Some((k, wa, wb)) = r.deck.split(direction.axle_at(p, a.offset)) else {
+            continue;
+        };
+        any = true;
+        let (ra, rb) = (r.row(k), r.row(k + 1));
+        let (wa, wb) = (a.load * wa, a.load * wb);
+        if relieve {
+            for e in 0..r.ne {
+                tmp[e] = wa * ra[e] + wb * rb[e];
+                hi[e] += tmp[e].max(0.0);
+                lo[e] += tmp[e].min(0.0);
+            }
+        } else {
+            for e in 0..r.ne {
+                hi[e] += wa * ra[e] + wb * rb[e];
+            }
+        }
+    }
+    if let Some(t) = &vehicle.rules.trailing {
+        let head = direction.axle_at(p, t.offset);
+        let ahead_of_deck = match direction {
+            Direction::Forward => head > 0.0,
+            Direction::Reverse => head < r.deck.length(),
+        };
+        if ahead_of_deck {
+            any = true;
+            match direction {
+                Direction::Forward => r.add_integral_to(head, t.load, hi),
+                Direction::Reverse => {
+                    r.add_integral_to(r.deck.length(), t.load, hi);
+                    r.add_integral_to(head, -t.load, hi);
+                }
+            }
+        }
+    }
+    if !relieve {
+        lo.copy_from_slice(hi);
+    }
+    any
+}
+
+/// Rolls one concrete train both ways, updating the best of every effect.
+/// With a trailing uniform load the effect is quadratic between
+/// consecutive positions (the load's head moves over a linear line), so
+/// the vertex of the parabola through three points inside the interval is
+/// taken too when it falls inside.
+fn roll(
+    r: &Rows,
+    vehicle: &Vehicle,
+    train: &Concrete,
+    ml: &MovingLoad,
+    best_hi: &mut [Best],
+    best_lo: &mut [Best],
+) -> Result<(), LoadError> {
+    let ne = r.ne;
+    let extra: Vec<f64> = vehicle.rules.trailing.iter().map(|t| t.offset).collect();
+    let quadratic = !extra.is_empty();
+    let (mut hi, mut lo, mut tmp) = (vec![0.0; ne], vec![0.0; ne], vec![0.0; ne]);
+    let (mut prev, mut mid, mut scratch) = (vec![0.0; ne], vec![0.0; ne], vec![0.0; ne]);
+    let mut lo2 = vec![0.0; ne];
+    let sliver = 1e-9 * (r.deck.length() + extra.iter().fold(0.0, |a: f64, b| a.max(*b)));
+    let mk = |p: f64, direction| Best {
+        value: 0.0,
+        at: Some(Placement {
+            position: p,
+            direction,
+        }),
+        train: train.train,
+        gap: train.gap,
+    };
+    for direction in [Direction::Forward, Direction::Reverse] {
+        let ps = positions(r.deck, &train.axles, &extra, ml.step, direction, &ml.id)?;
+        let mut last: Option<f64> = None;
+        for &p in &ps {
+            if !evaluate(r, vehicle, train, p, direction, &mut hi, &mut lo, &mut tmp) {
+                last = None;
+                continue;
+            }
+            for e in 0..ne {
+                if hi[e] > best_hi[e].value {
+                    best_hi[e] = Best {
+                        value: hi[e],
+                        ..mk(p, direction)
+                    };
+                }
+                if lo[e] < best_lo[e].value {
+                    best_lo[e] = Best {
+                        value: lo[e],
+                        ..mk(p, direction)
+                    };
+                }
+            }
+            if quadratic {
+                // Slivers between positions that differ by round-off only
+                // (an axle and the load's head reaching nodes together)
+                // are skipped: their ends were evaluated.
+                if let Some(p0) = last.filter(|&p0| p - p0 > sliver) {
+                    // Three points inside (p0, p): the effect may jump at a
+                    // breakpoint (an axle leaving the deck over a reaction),
+                    // so the parabola is fitted on the open interval.
+                    let at = |u: f64| p0 + (0.5 + 0.25 * u) * (p - p0);
+                    for (buf, u) in [(&mut prev, -1.0), (&mut mid, 0.0), (&mut scratch, 1.0)] {
+                        evaluate(r, vehicle, train, at(u), direction, buf, &mut lo2, &mut tmp);
+                    }
+                    for e in 0..ne {
+                        let (gm, g0, gp) = (prev[e], mid[e], scratch[e]);
+                        let a = 0.5 * (gp + gm) - g0;
+                        let b = 0.5 * (gp - gm);
+                        if a.abs() <= 1e-12 * (gm.abs() + g0.abs() + gp.abs()) {
+                            continue;
+                        }
+                        let u = -b / (2.0 * a);
+                        if u > -2.0 && u < 2.0 {
+                            let v = g0 - b * b / (4.0 * a);
+                            if a < 0.0 && v > best_hi[e].value {
+                                best_hi[e] = Best {
+                                    value: v,
+                                    ..mk(at(u), direction)
+                                };
+                            }
+                            if a > 0.0 && v < best_lo[e].value {
+                                best_lo[e] = Best {
+                                    value: v,
+                                    ..mk(at(u), direction)
+                                };
+                            }
+                        }
+                    }
+                }
+                last = Some(p);
+            }
+        }
+    }
+    Ok(())
+}
+
 /// Greatest and least effect of `vehicle` for every member force then
 /// every vertical reaction (members first, in order, then supports).
 pub fn extremes(
@@ -199,97 +450,84 @@ pub fn extremes(
     vehicle: &Vehicle,
     ml: &MovingLoad,
 ) -> Result<(Vec<Extreme>, Vec<Extreme>), LoadError> {
-    let deck = &lines.deck;
-    let nd = lines.nd();
-    let nm = lines.members.len() / nd;
-    let ns = lines.reactions.len() / nd;
-    let ne = nm + ns;
-    // Ordinates transposed: row k holds every effect at deck node k.
-    let mut rows = vec![0.0; nd * ne];
-    for m in 0..nm {
-        for (k, v) in lines.member(m).iter().enumerate() {
-            rows[k * ne + m] = *v;
-        }
+    let r = Rows::new(lines);
+    let (deck, ne, nd) = (&lines.deck, r.ne, lines.nd());
+    let mut hi = vec![NONE; ne];
+    let mut lo = vec![NONE; ne];
+    let trains = concrete_trains(vehicle, deck);
+    for train in &trains {
+        roll(&r, vehicle, train, ml, &mut hi, &mut lo)?;
     }
-    for s in 0..ns {
-        for (k, v) in lines.reaction_y(s).iter().enumerate() {
-            rows[k * ne + nm + s] = *v;
-        }
-    }
-    let mut hi: Vec<(f64, Option<Placement>)> = vec![(0.0, None); ne];
-    let mut lo: Vec<(f64, Option<Placement>)> = vec![(0.0, None); ne];
-    if !vehicle.axles.is_empty() {
-        let mut vals = vec![0.0; ne];
-        let mut weights: Vec<(usize, f64)> = Vec::with_capacity(2 * vehicle.axles.len());
-        for direction in [Direction::Forward, Direction::Reverse] {
-            for p in positions(deck, vehicle, ml.step, direction, &ml.id)? {
-                weights.clear();
-                for a in &vehicle.axles {
-                    if let Some((k, wa, wb)) = deck.split(direction.axle_at(p, a.offset)) {
-                        weights.push((k, a.load * wa));
-                        weights.push((k + 1, a.load * wb));
-                    }
-                }
-                if weights.is_empty() {
-                    continue;
-                }
-                vals.iter_mut().for_each(|v| *v = 0.0);
-                for &(k, w) in &weights {
-                    if w != 0.0 {
-                        let row = &rows[k * ne..(k + 1) * ne];
-                        vals.iter_mut().zip(row).for_each(|(v, r)| *v += w * r);
-                    }
-                }
-                let at = Some(Placement {
-                    position: p,
-                    direction,
-                });
-                for e in 0..ne {
-                    if vals[e] > hi[e].0 {
-                        hi[e] = (vals[e], at);
-                    }
-                    if vals[e] < lo[e].0 {
-                        lo[e] = (vals[e], at);
-                    }
-                }
-            }
-        }
+    if trains.is_empty() && vehicle.rules.trailing.is_some() {
+        let lone = Concrete {
+            train: 0,
+            label: vehicle.id.clone(),
+            gap: None,
+            axles: Vec::new(),
+        };
+        roll(&r, vehicle, &lone, ml, &mut hi, &mut lo)?;
     }
     // Round-off floor: an effect below 1e-9 of the largest ordinate of any
     // effect times the load is noise (a zero-force member), reported as
     // zero with no placement.
-    let largest = rows.iter().fold(0.0f64, |a, v| a.max(v.abs()));
-    let total: f64 = vehicle.axles.iter().map(|a| a.load).sum();
+    let largest = r.rows.iter().fold(0.0f64, |a, v| a.max(v.abs()));
+    let total = trains
+        .iter()
+        .map(|t| t.axles.iter().map(|a| a.load).sum::<f64>())
+        .fold(0.0, f64::max)
+        + vehicle
+            .rules
+            .trailing
+            .as_ref()
+            .map_or(0.0, |t| t.load * deck.length());
     let floor = 1e-9 * largest * total;
     for e in 0..ne {
-        if hi[e].0 <= floor {
-            hi[e] = (0.0, None);
+        if hi[e].value <= floor {
+            hi[e] = NONE;
         }
-        if lo[e].0 >= -floor {
-            lo[e] = (0.0, None);
+        if lo[e].value >= -floor {
+            lo[e] = NONE;
         }
     }
     let lane_floor = 1e-9 * largest * deck.length();
-    let axle_factor = 1.0 + ml.impact;
-    let lane_factor = if ml.impact_on_lane { axle_factor } else { 1.0 };
-    let w = vehicle.lane.unwrap_or(0.0);
     let mut tension = Vec::with_capacity(ne);
     let mut compression = Vec::with_capacity(ne);
     let mut ord = vec![0.0; nd];
     for e in 0..ne {
-        let (mut t, mut c) = (Extreme::zero(), Extreme::zero());
-        if w != 0.0 {
-            for (k, o) in ord.iter_mut().enumerate() {
-                *o = rows[k * ne + e];
-            }
-            let (pos, neg) = deck.signed_areas(&ord);
-            t.lane = if pos > lane_floor { w * pos } else { 0.0 };
-            c.lane = if neg < -lane_floor { w * neg } else { 0.0 };
+        for (k, o) in ord.iter_mut().enumerate() {
+            *o = r.rows[k * ne + e];
         }
-        (t.axles, t.at) = hi[e];
-        (c.axles, c.at) = lo[e];
-        t.force = axle_factor * t.axles + lane_factor * t.lane;
-        c.force = axle_factor * c.axles + lane_factor * c.lane;
+        let (pos, neg) = deck.signed_areas(&ord);
+        let (lpos, lneg) = deck.signed_lengths(&ord);
+        let mut out = [Extreme::zero(), Extreme::zero()];
+        for (x, (best, area, length)) in
+            out.iter_mut().zip([(hi[e], pos, lpos), (lo[e], neg, lneg)])
+        {
+            let w = vehicle.lane.unwrap_or(0.0)
+                + vehicle
+                    .rules
+                    .crowd
+                    .as_ref()
+                    .map_or(0.0, |c| c.rule.intensity(length) * c.width);
+            x.lane = if area.abs() > lane_floor {
+                w * area
+            } else {
+                0.0
+            };
+            x.axles = best.value;
+            x.at = best.at;
+            x.train = best.train;
+            x.gap = best.gap;
+            x.loaded_length = length;
+            x.impact = ml.impact_rule.allowance(ml.impact, length);
+            let lane_factor = if ml.impact_on_lane {
+                1.0 + x.impact
+            } else {
+                1.0
+            };
+            x.force = (1.0 + x.impact) * x.axles + lane_factor * x.lane;
+        }
+        let [t, c] = out;
         tension.push(t);
         compression.push(c);
     }

@@ -8,7 +8,7 @@
 //! (the lever rule: the reactions of a simply supported beam). An axle off
 //! the deck carries nothing to the truss.
 
-use super::{LoadError, Vehicle};
+use super::{Axle, LoadError};
 use crate::model::{Model, Node};
 
 /// Which way a vehicle travels along the deck.
@@ -138,6 +138,35 @@ impl Deck {
         Some((k, 1.0 - t, t))
     }
 
+    /// Lengths of deck over which the piecewise-linear f through `values`
+    /// is positive and negative, m: the loaded lengths of an influence line
+    /// (a segment that changes sign is split at its zero).
+    pub fn signed_lengths(&self, values: &[f64]) -> (f64, f64) {
+        let (mut pos, mut neg) = (0.0, 0.0);
+        for k in 0..values.len() - 1 {
+            let h = self.chainage[k + 1] - self.chainage[k];
+            let (a, b) = (values[k], values[k + 1]);
+            if a >= 0.0 && b >= 0.0 {
+                if a > 0.0 || b > 0.0 {
+                    pos += h;
+                }
+            } else if a <= 0.0 && b <= 0.0 {
+                neg += h;
+            } else {
+                let t = a.abs() / (a.abs() + b.abs());
+                let (first, second) = (h * t, h * (1.0 - t));
+                if a > 0.0 {
+                    pos += first;
+                    neg += second;
+                } else {
+                    neg += first;
+                    pos += second;
+                }
+            }
+        }
+        (pos, neg)
+    }
+
     /// Linear interpolation of per-deck-node `values` at chainage `s`
     /// (zero off the deck).
     pub fn interpolate(&self, values: &[f64], s: f64) -> f64 {
@@ -174,22 +203,30 @@ impl Deck {
 /// Most positions of one vehicle in one direction the scan will visit.
 pub const MAX_POSITIONS: f64 = 2e6;
 
-/// Front-axle chainages visited for `vehicle` travelling in `direction`:
-/// every `step` from the front axle at the entry end until the rear axle
-/// has left, plus every position that puts an axle exactly on a deck node.
-/// For a piecewise-linear influence line the force under concentrated
-/// loads is piecewise linear in the position with breaks only where an
-/// axle crosses a deck node, so the extreme is found exactly at any step.
+/// Front-axle chainages visited for the axle train `axles` travelling in
+/// `direction`: every `step` from the front axle at the entry end until the
+/// rear axle has left, plus every position that puts an axle, or a point
+/// `extra` behind the front axle (the head of a trailing uniform load),
+/// exactly on a deck node. For a piecewise-linear influence line the force
+/// under concentrated loads is piecewise linear in the position with breaks
+/// only where an axle crosses a deck node, so the extreme is found exactly
+/// at any step.
 pub fn positions(
     deck: &Deck,
-    vehicle: &Vehicle,
+    axles: &[Axle],
+    extra: &[f64],
     step: f64,
     direction: Direction,
     id: &str,
 ) -> Result<Vec<f64>, LoadError> {
-    let travel = deck.length() + vehicle.length();
+    let length = axles
+        .iter()
+        .map(|a| a.offset)
+        .chain(extra.iter().copied())
+        .fold(0.0, f64::max);
+    let travel = deck.length() + length;
     let count = (travel / step).ceil();
-    let critical = (vehicle.axles.len() * deck.chainage.len()) as f64;
+    let critical = ((axles.len() + extra.len()) * deck.chainage.len()) as f64;
     if count + critical > MAX_POSITIONS {
         return Err(LoadError::TooManyPositions {
             id: id.to_string(),
@@ -207,12 +244,12 @@ pub fn positions(
             Direction::Reverse => l - d,
         });
     }
-    for a in &vehicle.axles {
+    for offset in axles.iter().map(|a| a.offset).chain(extra.iter().copied()) {
         for &c in &deck.chainage {
             // Axle at c: front = c + offset forward, c − offset reverse.
             out.push(match direction {
-                Direction::Forward => c + a.offset,
-                Direction::Reverse => c - a.offset,
+                Direction::Forward => c + offset,
+                Direction::Reverse => c - offset,
             });
         }
     }
@@ -266,26 +303,22 @@ mod tests {
     #[test]
     fn positions_include_panel_points() {
         let d = deck();
-        let v = Vehicle {
-            id: "v".into(),
-            axles: vec![
-                Axle {
-                    load: 1.0,
-                    offset: 0.0,
-                },
-                Axle {
-                    load: 1.0,
-                    offset: 3.0,
-                },
-            ],
-            lane: None,
-        };
-        let p = positions(&d, &v, 5.0, Direction::Forward, "x").unwrap();
+        let v = vec![
+            Axle {
+                load: 1.0,
+                offset: 0.0,
+            },
+            Axle {
+                load: 1.0,
+                offset: 3.0,
+            },
+        ];
+        let p = positions(&d, &v, &[], 5.0, Direction::Forward, "x").unwrap();
         // Steps 0, 5, 10, 13 (travel 13); axle 2 on nodes: 3, 7, 13.
         assert_eq!(p, vec![0.0, 3.0, 4.0, 5.0, 7.0, 10.0, 13.0]);
-        let r = positions(&d, &v, 5.0, Direction::Reverse, "x").unwrap();
+        let r = positions(&d, &v, &[], 5.0, Direction::Reverse, "x").unwrap();
         assert_eq!(r, vec![-3.0, 0.0, 1.0, 4.0, 5.0, 7.0, 10.0]);
-        assert!(positions(&d, &v, 1e-9, Direction::Forward, "x").is_err());
+        assert!(positions(&d, &v, &[], 1e-9, Direction::Forward, "x").is_err());
         let nodes = vec![node("A", 0.0), node("B", 0.0)];
         assert!(matches!(
             Deck::from_nodes(&nodes, &[0, 1]),

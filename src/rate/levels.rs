@@ -211,7 +211,10 @@ pub(super) fn lowest_by_level(
 /// or a Live case's total downward load.
 fn legal_weight(model: &Model, id: &str) -> Option<f64> {
     if let Some(ml) = model.live.moving.iter().find(|x| x.id == id) {
-        let w = model.live.vehicles[ml.vehicle].weight();
+        // The model's vehicle carries this truss's share; W is the whole
+        // vehicle's gross weight.
+        let share = if ml.share > 0.0 { ml.share } else { 1.0 };
+        let w = model.live.vehicles[ml.vehicle].weight() / share;
         return (w > 0.0).then_some(w);
     }
     let case = model.cases.iter().find(|c| c.id == id)?;

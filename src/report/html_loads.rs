@@ -35,10 +35,23 @@ pub(super) fn moving_loads(h: &mut String, model: &Model, rating: Option<&Rating
             esc(&v.id),
             if ml.legal { " (legal load)" } else { "" }
         );
+        if let Some(name) = &ml.model {
+            let source = crate::loads::library::lookup(name)
+                .map(|m| m.source.to_string())
+                .unwrap_or_default();
+            let _ = writeln!(
+                h,
+                "<p>Published load model <strong>{}</strong>: {}. This truss carries a share of {} of it (lever rule across the floor beam, with any multiple-presence factor and scale).</p>",
+                esc(name),
+                esc(&source),
+                sig(ml.share, 4)
+            );
+        }
+        let share = if ml.share > 0.0 { ml.share } else { 1.0 };
         let _ = writeln!(
             h,
-            "<p>Gross weight {} {}; dynamic allowance {} % on the axles{}; positions every {} {}.</p>",
-            sig(v.weight() / s.force, 4),
+            "<p>Gross weight {} {}; dynamic allowance {} % on the axles{}; positions every {} {}. Axle loads below are this truss's share.</p>",
+            sig(v.weight() / share / s.force, 4),
             esc(s.force_name),
             sig(ml.impact * 100.0, 3),
             if v.lane.is_some() {

@@ -171,6 +171,27 @@ pub fn envelopes(
                 ""
             }
         )?;
+        if let Some(ml) = model.live.moving.iter().find(|m| m.id == env.moving_load) {
+            if let Some(name) = &ml.model {
+                if let Some(lib) = crate::loads::library::lookup(name) {
+                    writeln!(
+                        w,
+                        "Load model {} ({}), share of the vehicle on this truss {}; source: {}",
+                        lib.designation,
+                        name,
+                        sig(ml.share, 4),
+                        lib.source
+                    )?;
+                }
+            }
+            if ml.impact_rule != crate::loads::ImpactRule::Fixed {
+                writeln!(
+                    w,
+                    "Impact per member: {} (the value above is for the whole deck)",
+                    ml.impact_rule.describe()
+                )?;
+            }
+        }
         let (fl, ll) = (s.force_name, s.length_name);
         let mut t = Table::new(&[
             "member",

@@ -26,6 +26,7 @@ pub mod svg;
 pub mod table;
 pub mod term;
 pub mod text;
+pub mod vehicles;
 pub mod whatif;
 
 use crate::model::Model;
