@@ -837,6 +837,11 @@ pub fn convert_deferred(
                 }
                 continue;
             }
+            if file.moving_loads.iter().any(|ml| &ml.id == case) {
+                // A moving load the file declares but that has its own error
+                // (an undefined vehicle, say): that error was reported once.
+                continue;
+            }
             match case_ids.get(case.as_str()) {
                 Some(&i) if f.is_finite() => factors.push((i, *f)),
                 Some(_) => ctx.error(

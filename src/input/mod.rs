@@ -10,8 +10,10 @@ pub mod parts;
 pub mod quantity;
 pub mod ron_writer;
 pub mod schema;
+mod section_errors;
 mod sections;
 pub mod sweep;
+pub mod syntax;
 
 pub use convert::Converted;
 pub use diagnostics::{Diagnostic, Diagnostics, Severity};
@@ -85,10 +87,7 @@ pub fn parse_ron(text: &str) -> Result<schema::ModelFile, Diagnostics> {
     let options = ron::Options::default()
         .with_default_extension(ron::extensions::Extensions::IMPLICIT_SOME)
         .with_recursion_limit(64);
-    options.from_str(text).map_err(|e| {
-        let pos = e.span.start;
-        single(&format!("syntax: {}", e.code), Some((pos.line, pos.col)))
-    })
+    syntax::read(&options, text)
 }
 
 fn single(message: &str, location: Option<(usize, usize)>) -> Diagnostics {

@@ -99,6 +99,11 @@ macro_rules! part_kinds {
         }
 
         impl PartFile {
+            /// The part's label in the file, if it has one.
+            pub fn label(&self) -> Option<&str> {
+                self.common().4.as_deref()
+            }
+
             fn common(&self) -> (&Quantity, &Quantity, &[HoleFile], &Option<LossFile>, &Option<String>, Option<bool>, Option<ToesFile>, Option<LegsFile>) {
                 match self {
                     $(PartFile::$variant { x, y, holes, loss, label, rotated, toes, legs, .. } =>
@@ -207,7 +212,8 @@ pub(super) fn convert_parts(
 ) -> Vec<PlacedPart> {
     let mut out = Vec::with_capacity(parts.len());
     for (i, p) in parts.iter().enumerate() {
-        let w = |f: &str| format!("section \"{id}\" part {} {f}", i + 1);
+        let name = super::section_errors::part_name(id, i, p.label());
+        let w = |f: &str| format!("{name} {f}");
         let l = |ctx: &mut Ctx, q: &Quantity, f: &str| len(ctx, q, u, &w(f));
         let shape = match p {
             PartFile::Plate {
