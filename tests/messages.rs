@@ -98,3 +98,38 @@ fn every_unknown_field_in_one_pass() {
     // The blanked-out `strt` leaves `start` missing: not a second mistake.
     assert!(!err.contains("missing field"), "{err}");
 }
+
+/// E = 29,000,000 typed with `stress: "ksi"` (a units slip: steel is about
+/// 29,000 ksi, 200 GPa, from memory) is warned about, with the range of
+/// structural steel and iron stated in ksi; the model still runs (exit 0).
+/// The range 70–210 GPa (about 10,000 to 30,000 ksi) is common practice.
+#[test]
+fn implausible_values_are_warned_about() {
+    let text = FOUR_PANEL.replace("e: 29000.0, fy: 33.0", "e: 29000000.0, fy: 33000.0");
+    assert_ne!(text, FOUR_PANEL);
+    let path = temp_model("slip.ron", &text);
+    let (code, out, err) = run(&["solve", path.to_str().unwrap()]);
+    assert_eq!(code, 0, "{err}");
+    let all = format!("{out}\n{err}");
+    assert!(
+        all.contains("material \"steel\" e = 2.900e7 ksi is far outside the range of structural steel and iron (about 10000 to 30000 ksi, common practice)"),
+        "{all}"
+    );
+    assert!(all.contains("fy = 33000.0 ksi"), "{all}");
+    // The plain four-panel truss (48 ft, steel) draws no such warning.
+    let path = temp_model("plain.ron", FOUR_PANEL);
+    let (code, out, err) = run(&["solve", path.to_str().unwrap()]);
+    assert_eq!(code, 0);
+    assert!(!format!("{out}{err}").contains("far outside"), "{out}{err}");
+    // Coordinates in feet with `length: "mm"`: a 72 mm truss (four_panel.ron
+    // spans 72 ft), far below the 1 m of the smallest real trusses.
+    let small = FOUR_PANEL.replace("length: \"ft\"", "length: \"mm\"");
+    assert_ne!(small, FOUR_PANEL);
+    let path = temp_model("small.ron", &small);
+    let (_, out, err) = run(&["solve", path.to_str().unwrap()]);
+    assert!(
+        format!("{out}{err}")
+            .contains("the truss measures 72.0 mm from node \"L0\" to node \"L4\""),
+        "{out}{err}"
+    );
+}

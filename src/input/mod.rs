@@ -7,6 +7,7 @@ pub mod convert;
 pub mod diagnostics;
 mod loads;
 pub mod parts;
+mod plausible;
 pub mod quantity;
 pub mod ron_writer;
 pub mod schema;
