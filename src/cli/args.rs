@@ -190,6 +190,10 @@ pub enum Command {
         /// Column curve for --show utilization (as for `rate`).
         #[arg(long)]
         curve: Option<String>,
+        /// Plot this member's influence line under the truss (repeatable;
+        /// the model needs a `deck`).
+        #[arg(long = "influence", value_name = "MEMBER")]
+        influence: Vec<String>,
     },
     /// Write one self-contained HTML report: summary, model tables, results
     /// per case, capacity checks with clauses and formulas, drawings, cautions.
