@@ -15,7 +15,9 @@
 
 use super::convert::Ctx;
 use super::quantity::Quantity;
-use crate::section::{Connector, Direction, Hole, Loss, Orientation, PlacedPart, Quadrant, Shape};
+use crate::section::{
+    Connector, Direction, GivenKind, Hole, Loss, Orientation, PlacedPart, Quadrant, Shape,
+};
 use crate::units::{Dimension, DisplayUnits};
 use serde::Deserialize;
 
@@ -118,7 +120,7 @@ part_kinds! {
     /// A flat plate: width along x, thickness along y.
     Plate { width: Quantity, thickness: Quantity },
     /// Any shape by its table properties about its own centroid.
-    Part { area: Quantity, ix: Quantity, iy: Quantity, #[serde(default)] ixy: Option<Quantity>, #[serde(default)] depth: Option<Quantity>, #[serde(default)] width: Option<Quantity> },
+    Part { area: Quantity, ix: Quantity, iy: Quantity, #[serde(default)] ixy: Option<Quantity>, #[serde(default)] depth: Option<Quantity>, #[serde(default)] width: Option<Quantity>, #[serde(default)] kind: Option<GivenKindFile> },
     /// A channel by its dimensions (flange_slope: inner-face rise/run, 0 for parallel flanges).
     Channel { depth: Quantity, flange_width: Quantity, web_thickness: Quantity, flange_thickness: Quantity, #[serde(default)] flange_slope: Option<f64> },
     /// An angle: legs along x and y.
@@ -150,6 +152,15 @@ pub enum ConnectorFile {
     Riveted,
     Pretensioned,
     Welded,
+}
+
+/// The rolled shape a `Part` given by table properties is, for drawing it.
+#[derive(Debug, Deserialize, Clone, Copy, PartialEq, Eq)]
+pub enum GivenKindFile {
+    Angle,
+    Channel,
+    IShape,
+    Tee,
 }
 
 #[derive(Debug, Deserialize, Clone, Copy, PartialEq, Eq)]
@@ -378,6 +389,15 @@ pub(super) fn convert_parts(
             holes: hs,
             loss,
             label: label.clone(),
+            drawn_as: match p {
+                PartFile::Part { kind, .. } => kind.map(|k| match k {
+                    GivenKindFile::Angle => GivenKind::Angle,
+                    GivenKindFile::Channel => GivenKind::Channel,
+                    GivenKindFile::IShape => GivenKind::IShape,
+                    GivenKindFile::Tee => GivenKind::Tee,
+                }),
+                _ => None,
+            },
         });
     }
     out
