@@ -280,7 +280,12 @@ fn section_drawing_shapes_labels_dimensions() {
     let texts: Vec<String> = doc
         .descendants()
         .filter(|n| n.has_tag_name("text"))
-        .map(|n| n.descendants().filter_map(|t| t.text()).collect::<String>())
+        .map(|n| {
+            n.descendants()
+                .filter(|t| t.is_text())
+                .filter_map(|t| t.text())
+                .collect::<String>()
+        })
         .collect();
     let has = |s: &str| texts.iter().any(|t| t.contains(s));
     assert!(has("1 west angle") && has("2 east angle"), "{texts:?}");

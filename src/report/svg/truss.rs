@@ -195,7 +195,9 @@ pub fn render(d: &Drawing) -> String {
         top: title_h + above,
     };
     let hanging = show_loads && effect.is_some_and(|e| loads_below(&frame, model, e));
-    if hanging && d.show == Show::Model {
+    // Less room above when every load hangs below (none is drawn above).
+    let above_loads = show_loads && effect.is_some_and(|e| loads_above(&frame, model, e));
+    if hanging && !above_loads && d.show == Show::Model {
         frame.top = title_h + 34.0;
     }
     let below = match (d.show == Show::Forces, hanging) {
@@ -318,7 +320,7 @@ pub fn render(d: &Drawing) -> String {
             p.0 - 1.5 * S - 1.0,
             p.1 + 4.0,
             p.0 + 1.5 * S + 1.0,
-            p.1 + 2.2 * S,
+            p.1 + 2.4 * S,
         ));
     }
     svg.raw("</g>");
@@ -807,6 +809,24 @@ fn loads_by_node(e: &Effect) -> Vec<(usize, f64, f64, Vec<f64>)> {
     out
 }
 
+/// Whether some load of `e` is drawn above the truss (pushed from above).
+fn loads_above(frame: &Frame, model: &Model, e: &Effect) -> bool {
+    let bbox = bounds(model.nodes.iter().map(|n| (n.x, n.y)));
+    e.loads.iter().any(|&(node, fx, fy)| {
+        let mag = fx.hypot(fy);
+        if !(mag > 0.0 && mag.is_finite()) {
+            return false;
+        }
+        let n = &model.nodes[node];
+        let p = frame.p(n.x, n.y);
+        let (ux, uy) = (fx / mag, -fy / mag);
+        let push = outside(frame, bbox, (p.0 - ux * LOAD_LEN, p.1 - uy * LOAD_LEN));
+        let pull = outside(frame, bbox, (p.0 + ux * LOAD_LEN, p.1 + uy * LOAD_LEN));
+        let supported = model.supports.iter().any(|s| s.node == node);
+        (supported || push >= pull) && uy > 0.0
+    })
+}
+
 /// Draw the load arrows of `e` (obstacles in `lay`) and return their labels.
 fn loads(
     svg: &mut Svg,
@@ -1028,7 +1048,8 @@ pub fn influence_plot(
     svg.line((xl, axis_y), (xr, axis_y), pal::INK, 1.0, "");
     let vmax = ords.iter().fold(0.0f64, |a, o| a.max(o.1.abs()));
     if ords.len() >= 2 && vmax > 0.0 {
-        let k = (INFLUENCE_H / 2.0 - 16.0) / vmax;
+        // Room above the peak for its value under the strip's title.
+        let k = (INFLUENCE_H / 2.0 - 26.0) / vmax;
         let pts: Vec<(f64, f64)> = ords
             .iter()
             .map(|&(x, v)| (frame.x(x), axis_y - k * v))
