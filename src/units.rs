@@ -270,7 +270,7 @@ mod tests {
         assert_eq!(plain(0.038099999999999995), "0.0381");
         assert_eq!(plain(-200000.0), "-200000.0");
         assert_eq!(plain(29000.0), "29000.0");
-        assert_eq!(plain(3.14159), "3.142");
+        assert_eq!(plain(1.23456), "1.235");
         assert_eq!(plain(4.0e12), "4.000e12");
     }
     use approx::assert_relative_eq;

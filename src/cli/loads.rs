@@ -80,7 +80,7 @@ pub fn influence_strips(
         let i = m
             .members
             .iter()
-            .position(|x| &x.id == id)
+            .position(|x| x.id == *id)
             .ok_or_else(|| loads_error(path)(LoadError::UnknownMember(id.clone())))?;
         out.push(crate::report::svg::InfluenceLine {
             name: format!("force in {id}, tension +"),

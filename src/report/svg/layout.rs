@@ -118,8 +118,9 @@ impl Layout {
     }
 
     fn free(&self, q: &Quad, lines: bool) -> bool {
-        !self.taken.iter().any(|t| t.intersects(q))
-            && !(lines && self.lines.iter().any(|t| t.intersects(q)))
+        let blocked = self.taken.iter().any(|t| t.intersects(q))
+            || (lines && self.lines.iter().any(|t| t.intersects(q)));
+        !blocked
     }
 
     /// Write `text` at the first free candidate (for a `must` label, one off

@@ -249,7 +249,7 @@ pub fn render(d: &Drawing) -> String {
     let label_members = model.members.len() <= 400;
     // Labels wait for the collision pass, after every arrow and symbol.
     let mut lay = Layout::default();
-    let mut member_labels: Vec<((f64, f64), (f64, f64), String, f64)> = Vec::new();
+    let mut member_labels: Vec<MemberLabel> = Vec::new();
     for (m, mem) in model.members.iter().enumerate() {
         let (a, b) = (&model.nodes[mem.start], &model.nodes[mem.end]);
         let (pa, pb) = (frame.p(a.x, a.y), frame.p(b.x, b.y));
@@ -779,6 +779,9 @@ fn loads_below(frame: &Frame, model: &Model, e: &Effect) -> bool {
         pull > push && uy > 0.0
     })
 }
+
+/// A member's label waiting for the collision pass: its ends, text and line width.
+type MemberLabel = ((f64, f64), (f64, f64), String, f64);
 
 /// A label waiting for the collision pass: its places, text and attributes.
 type Pending = (Vec<Candidate>, String, String);
