@@ -133,3 +133,17 @@ fn implausible_values_are_warned_about() {
         "{out}{err}"
     );
 }
+
+/// A coordinate beyond the accepted range is told in the model's length
+/// unit: 1e9 ft against the limit 1e8 m = 3.281e8 ft (1 ft = 0.3048 m).
+#[test]
+fn coordinate_limit_in_model_units() {
+    let text = FOUR_PANEL.replacen("(id: \"L4\", x: 72.0", "(id: \"L4\", x: 1e9", 1);
+    assert_ne!(text, FOUR_PANEL);
+    let (code, err) = validate("far.ron", &text);
+    assert_eq!(code, 2);
+    assert!(
+        err.contains("node \"L4\" coordinate x = 1.000e9 ft is beyond ±3.281e8 ft"),
+        "{err}"
+    );
+}

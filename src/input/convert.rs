@@ -523,9 +523,12 @@ pub fn convert_deferred(
                 let at = ctx.loc.field("id", &n.id, 0);
                 ctx.error(
                     format!(
-                        "node \"{}\" coordinate {axis} = {:.3e} m is beyond ±{MAX_COORDINATE:.0e} m; check the value and the length unit",
+                        "node \"{}\" coordinate {axis} = {} {} is beyond ±{} {}; check the value and the length unit",
                         shown(&n.id),
-                        v.unwrap_or(0.0)
+                        crate::units::plain(v.unwrap_or(0.0) / u.length.to_si),
+                        u.length.name,
+                        crate::units::plain(MAX_COORDINATE / u.length.to_si),
+                        u.length.name,
                     ),
                     at,
                 );
