@@ -228,9 +228,51 @@ impl DisplayUnits {
     }
 }
 
+/// A number for a message to a person: four significant digits, no float
+/// noise (`0.038099999999999995` → `0.0381`), at least one decimal
+/// (`1.0`), exponent form only outside 1e-4 ..= 1e7.
+pub fn plain(v: f64) -> String {
+    if !v.is_finite() {
+        return format!("{v}");
+    }
+    if v == 0.0 {
+        return "0.0".into();
+    }
+    let a = v.abs();
+    if !(1e-4..1e7).contains(&a) {
+        return format!("{v:.3e}");
+    }
+    let digits = (3 - a.log10().floor() as i32).max(0) as usize;
+    let s = format!("{v:.digits$}");
+    let s = if s.contains('.') {
+        s.trim_end_matches('0').to_string()
+    } else {
+        s
+    };
+    if let Some(stripped) = s.strip_suffix('.') {
+        format!("{stripped}.0")
+    } else if s.contains('.') {
+        s
+    } else {
+        format!("{s}.0")
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn plain_numbers_have_no_float_noise() {
+        // 1.5 in in metres and back: 0.0381 / 0.0254 carries float noise.
+        assert_eq!(plain(0.038099999999999995 / 0.0254), "1.5");
+        assert_eq!(plain(1.0), "1.0");
+        assert_eq!(plain(0.038099999999999995), "0.0381");
+        assert_eq!(plain(-200000.0), "-200000.0");
+        assert_eq!(plain(29000.0), "29000.0");
+        assert_eq!(plain(1.23456), "1.235");
+        assert_eq!(plain(4.0e12), "4.000e12");
+    }
     use approx::assert_relative_eq;
 
     #[test]

@@ -205,6 +205,10 @@ pub enum Command {
         /// Rating method for --show utilization (as for `rate`).
         #[arg(long)]
         method: Option<String>,
+        /// Plot this member's influence line under the truss (repeatable;
+        /// the model needs a `deck`).
+        #[arg(long = "influence", value_name = "MEMBER")]
+        influence: Vec<String>,
     },
     /// Fatigue of every member under the model's fatigue vehicle and traffic:
     /// rainflow-counted stress ranges, AASHTO MBE Section 7 lives and the

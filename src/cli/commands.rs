@@ -326,6 +326,7 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             case,
             show,
             method,
+            influence,
         } => {
             let c = load(&model)?;
             let m = &c.model;
@@ -371,6 +372,12 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
                 effect
             };
             d.rating = rating.as_ref();
+            let strips = if influence.is_empty() {
+                Vec::new()
+            } else {
+                super::loads::influence_strips(&model, m, &influence)?
+            };
+            d.influence = &strips;
             let svg = report::svg::draw(&d);
             write(&out, |w| w.write_all(svg.as_bytes()))?;
             Ok(0)

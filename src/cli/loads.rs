@@ -64,6 +64,38 @@ pub fn influence(
     Ok(0)
 }
 
+/// The influence lines of members `ids` along the model's deck, as strips
+/// for a drawing (`draw --influence ID`): x at each deck node's x, m; the
+/// member force per unit downward load (tension +).
+pub fn influence_strips(
+    path: &Path,
+    m: &crate::model::Model,
+    ids: &[String],
+) -> Result<Vec<crate::report::svg::InfluenceLine>, Error> {
+    let deck = Deck::of_model(m).map_err(loads_error(path))?;
+    let prepared = prepare(path, m)?;
+    let lines = loads::influence_lines(m, &prepared, &deck).map_err(loads_error(path))?;
+    let mut out = Vec::with_capacity(ids.len());
+    for id in ids {
+        let i = m
+            .members
+            .iter()
+            .position(|x| x.id == *id)
+            .ok_or_else(|| loads_error(path)(LoadError::UnknownMember(id.clone())))?;
+        out.push(crate::report::svg::InfluenceLine {
+            name: format!("force in {id}, tension +"),
+            unit: "per unit load moving along the deck".into(),
+            ordinates: deck
+                .nodes
+                .iter()
+                .zip(lines.member(i))
+                .map(|(&n, &v)| (m.nodes[n].x, v))
+                .collect(),
+        });
+    }
+    Ok(out)
+}
+
 /// `panelpoint envelope`.
 pub fn envelope(path: &Path, format: Format, out: &Option<PathBuf>) -> Result<u8, Error> {
     let c = load(path)?;

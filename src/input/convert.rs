@@ -81,6 +81,22 @@ impl<'a> Ctx<'a> {
     }
 }
 
+/// The larger of the nodes' spans in x and y, and the two nodes at its
+/// ends, checked against the size of real trusses.
+fn warn_size(ctx: &mut Ctx, nodes: &[Node], u: &DisplayUnits) {
+    let ends = |f: fn(&Node) -> f64| {
+        let lo = (0..nodes.len()).min_by(|&a, &b| f(&nodes[a]).total_cmp(&f(&nodes[b])));
+        let hi = (0..nodes.len()).max_by(|&a, &b| f(&nodes[a]).total_cmp(&f(&nodes[b])));
+        lo.zip(hi)
+            .map(|(lo, hi)| (f(&nodes[hi]) - f(&nodes[lo]), lo, hi))
+    };
+    let (Some(x), Some(y)) = (ends(|n| n.x), ends(|n| n.y)) else {
+        return;
+    };
+    let (extent, a, b) = if x.0 >= y.0 { x } else { y };
+    super::plausible::check_size(ctx, extent, &nodes[a].id, &nodes[b].id, u);
+}
+
 /// Reads a quantity that must be a finite number, reporting `what` on failure.
 pub(super) fn value(
     ctx: &mut Ctx,
@@ -467,6 +483,18 @@ pub fn convert_deferred(
                 );
             }
         }
+        super::plausible::check_material(
+            &mut ctx,
+            &m.id,
+            [
+                (&super::plausible::E, e),
+                (&super::plausible::FY, fy),
+                (&super::plausible::FU, fu),
+                (&super::plausible::DENSITY, density),
+            ],
+            u,
+            at,
+        );
         materials.push(Material {
             id: m.id.clone(),
             e: e.unwrap_or(1.0),
@@ -512,9 +540,12 @@ pub fn convert_deferred(
                 let at = ctx.loc.field("id", &n.id, 0);
                 ctx.error(
                     format!(
-                        "node \"{}\" coordinate {axis} = {:.3e} m is beyond ±{MAX_COORDINATE:.0e} m; check the value and the length unit",
+                        "node \"{}\" coordinate {axis} = {} {} is beyond ±{} {}; check the value and the length unit",
                         shown(&n.id),
-                        v.unwrap_or(0.0)
+                        crate::units::plain(v.unwrap_or(0.0) / u.length.to_si),
+                        u.length.name,
+                        crate::units::plain(MAX_COORDINATE / u.length.to_si),
+                        u.length.name,
                     ),
                     at,
                 );
@@ -530,6 +561,9 @@ pub fn convert_deferred(
         ctx.error("the model has no nodes".into(), None);
     }
     let values_ok = ctx.errors.is_empty();
+    if values_ok {
+        warn_size(&mut ctx, &nodes, u);
+    }
     lap.mark("nodes");
     let tol = geometry::tolerance(&nodes);
     if values_ok {
@@ -865,6 +899,11 @@ pub fn convert_deferred(
                         at,
                     );
                 }
+                continue;
+            }
+            if file.moving_loads.iter().any(|ml| &ml.id == case) {
+                // A moving load the file declares but that has its own error
+                // (an undefined vehicle, say): that error was reported once.
                 continue;
             }
             match case_ids.get(case.as_str()) {

@@ -459,12 +459,18 @@ pub(super) fn merge_vehicles_file(
     let options = ron::Options::default()
         .with_default_extension(ron::extensions::Extensions::IMPLICIT_SOME)
         .with_recursion_limit(64);
-    let more: VehiclesFile = options.from_str(&text).map_err(|e| {
-        let pos = e.span.start;
-        single(format!(
-            "vehicles_file \"{name}\": line {}, column {}: syntax: {}",
-            pos.line, pos.col, e.code
-        ))
+    let more: VehiclesFile = super::syntax::read(&options, &text).map_err(|mut d| {
+        for e in &mut d.errors {
+            if let Some((line, col)) = e.location.take() {
+                e.message = format!(
+                    "vehicles_file \"{name}\": line {line}, column {col}: {}",
+                    e.message
+                );
+            } else {
+                e.message = format!("vehicles_file \"{name}\": {}", e.message);
+            }
+        }
+        d
     })?;
     file.vehicles.extend(more.vehicles);
     Ok(())

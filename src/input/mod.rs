@@ -9,12 +9,15 @@ mod fatigue;
 mod library;
 mod loads;
 pub mod parts;
+mod plausible;
 pub mod quantity;
 mod rating;
 pub mod ron_writer;
 pub mod schema;
+mod section_errors;
 mod sections;
 pub mod sweep;
+pub mod syntax;
 
 pub use convert::Converted;
 pub use diagnostics::{Diagnostic, Diagnostics, Severity};
@@ -88,10 +91,7 @@ pub fn parse_ron(text: &str) -> Result<schema::ModelFile, Diagnostics> {
     let options = ron::Options::default()
         .with_default_extension(ron::extensions::Extensions::IMPLICIT_SOME)
         .with_recursion_limit(64);
-    options.from_str(text).map_err(|e| {
-        let pos = e.span.start;
-        single(&format!("syntax: {}", e.code), Some((pos.line, pos.col)))
-    })
+    syntax::read(&options, text)
 }
 
 fn single(message: &str, location: Option<(usize, usize)>) -> Diagnostics {

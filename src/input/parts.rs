@@ -15,7 +15,9 @@
 
 use super::convert::Ctx;
 use super::quantity::Quantity;
-use crate::section::{Connector, Direction, Hole, Loss, Orientation, PlacedPart, Quadrant, Shape};
+use crate::section::{
+    Connector, Direction, GivenKind, Hole, Loss, Orientation, PlacedPart, Quadrant, Shape,
+};
 use crate::units::{Dimension, DisplayUnits};
 use serde::Deserialize;
 
@@ -99,6 +101,11 @@ macro_rules! part_kinds {
         }
 
         impl PartFile {
+            /// The part's label in the file, if it has one.
+            pub fn label(&self) -> Option<&str> {
+                self.common().4.as_deref()
+            }
+
             fn common(&self) -> (&Quantity, &Quantity, &[HoleFile], &Option<LossFile>, &Option<String>, Option<bool>, Option<ToesFile>, Option<LegsFile>) {
                 match self {
                     $(PartFile::$variant { x, y, holes, loss, label, rotated, toes, legs, .. } =>
@@ -113,7 +120,7 @@ part_kinds! {
     /// A flat plate: width along x, thickness along y.
     Plate { width: Quantity, thickness: Quantity },
     /// Any shape by its table properties about its own centroid.
-    Part { area: Quantity, ix: Quantity, iy: Quantity, #[serde(default)] ixy: Option<Quantity>, #[serde(default)] depth: Option<Quantity>, #[serde(default)] width: Option<Quantity> },
+    Part { area: Quantity, ix: Quantity, iy: Quantity, #[serde(default)] ixy: Option<Quantity>, #[serde(default)] depth: Option<Quantity>, #[serde(default)] width: Option<Quantity>, #[serde(default)] kind: Option<GivenKindFile> },
     /// A channel by its dimensions (flange_slope: inner-face rise/run, 0 for parallel flanges).
     Channel { depth: Quantity, flange_width: Quantity, web_thickness: Quantity, flange_thickness: Quantity, #[serde(default)] flange_slope: Option<f64> },
     /// An angle: legs along x and y.
@@ -145,6 +152,15 @@ pub enum ConnectorFile {
     Riveted,
     Pretensioned,
     Welded,
+}
+
+/// The rolled shape a `Part` given by table properties is, for drawing it.
+#[derive(Debug, Deserialize, Clone, Copy, PartialEq, Eq)]
+pub enum GivenKindFile {
+    Angle,
+    Channel,
+    IShape,
+    Tee,
 }
 
 #[derive(Debug, Deserialize, Clone, Copy, PartialEq, Eq)]
@@ -207,7 +223,8 @@ pub(super) fn convert_parts(
 ) -> Vec<PlacedPart> {
     let mut out = Vec::with_capacity(parts.len());
     for (i, p) in parts.iter().enumerate() {
-        let w = |f: &str| format!("section \"{id}\" part {} {f}", i + 1);
+        let name = super::section_errors::part_name(id, i, p.label());
+        let w = |f: &str| format!("{name} {f}");
         let l = |ctx: &mut Ctx, q: &Quantity, f: &str| len(ctx, q, u, &w(f));
         let shape = match p {
             PartFile::Plate {
@@ -372,6 +389,15 @@ pub(super) fn convert_parts(
             holes: hs,
             loss,
             label: label.clone(),
+            drawn_as: match p {
+                PartFile::Part { kind, .. } => kind.map(|k| match k {
+                    GivenKindFile::Angle => GivenKind::Angle,
+                    GivenKindFile::Channel => GivenKind::Channel,
+                    GivenKindFile::IShape => GivenKind::IShape,
+                    GivenKindFile::Tee => GivenKind::Tee,
+                }),
+                _ => None,
+            },
         });
     }
     out

@@ -138,7 +138,8 @@ fn built_up(ctx: &mut Ctx, s: &SectionFile, parts: &[PartFile], u: &DisplayUnits
     let props = match section::properties_with_original(&placed) {
         Ok(p) => p,
         Err(e) => {
-            ctx.error(format!("section \"{}\": {e}", s.id), at);
+            let labels: Vec<Option<&str>> = parts.iter().map(|p| p.label()).collect();
+            ctx.error(super::section_errors::describe(&e, &s.id, &labels, u), at);
             return fallback;
         }
     };

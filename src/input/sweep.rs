@@ -513,13 +513,7 @@ pub fn load_sweep(text: &str, model: &Model) -> Result<Sweep, Diagnostics> {
     let options = ron::Options::default()
         .with_default_extension(ron::extensions::Extensions::IMPLICIT_SOME)
         .with_recursion_limit(64);
-    let file: SweepFile = options.from_str(text).map_err(|e| Diagnostics {
-        errors: vec![Diagnostic {
-            severity: Severity::Error,
-            message: format!("syntax: {}", e.code),
-            location: Some((e.span.start.line, e.span.start.col)),
-        }],
-    })?;
+    let file: SweepFile = super::syntax::read(&options, text)?;
     let mut ctx = Ctx {
         model,
         errors: Vec::new(),

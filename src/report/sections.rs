@@ -251,6 +251,7 @@ pub fn svg(w: &mut dyn Write, model: &Model, section: &Section) -> io::Result<()
                 other => other.clone(),
             }),
             label: p.label.clone(),
+            drawn_as: p.drawn_as,
         })
         .collect();
     let props = crate::section::properties(&parts).map_err(io::Error::other)?;

@@ -355,12 +355,27 @@ pub fn sig(v: f64, sig: usize) -> String {
     if v == 0.0 {
         return "0".into();
     }
-    let mag = v.abs().log10().floor() as i32;
+    let mut mag = v.abs().log10().floor() as i32;
     if !(-4..9).contains(&mag) {
         return format!("{:.*e}", sig.saturating_sub(1), v);
     }
+    // Round half away from zero, after snapping off round-off below a
+    // millionth of the last digit, so that −3.6250 and 3.62500000001 both
+    // read 3.63 (the formatter alone rounds ties to even and sees noise).
+    let round = |decimals: i32| {
+        let k = 10f64.powi(decimals);
+        let scaled = v * k;
+        let snapped = (scaled * 1e6).round() / 1e6;
+        snapped.round() / k
+    };
+    let mut r = round((sig as i32 - 1 - mag).max(0));
+    // 9.9996 to 3 figures is 10.0, not 10.00.
+    if r != 0.0 && r.abs().log10().floor() as i32 > mag {
+        mag += 1;
+        r = round((sig as i32 - 1 - mag).max(0));
+    }
     let decimals = (sig as i32 - 1 - mag).max(0) as usize;
-    let s = format!("{v:.decimals$}");
+    let s = format!("{r:.decimals$}");
     if s.trim_start_matches('-')
         .chars()
         .all(|c| c == '0' || c == '.')
@@ -381,6 +396,11 @@ mod tests {
         assert_eq!(sig(-0.05921, 3), "-0.0592");
         assert_eq!(sig(1234567.0, 4), "1234567");
         assert_eq!(sig(1e-9, 3), "1.00e-9");
+        // Ties round away from zero, whatever the round-off (issue 21, defect 11).
+        assert_eq!(sig(-3.625, 3), "-3.63");
+        assert_eq!(sig(3.625, 3), "3.63");
+        assert_eq!(sig(3.6249999999999, 3), "3.63");
+        assert_eq!(sig(9.99999999, 3), "10.0");
         let mut t = Table::new(&["id", "force kip"]);
         t.row(vec!["A".into(), "1.5".into()]);
         t.row(vec!["BB".into(), "-10.25".into()]);

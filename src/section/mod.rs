@@ -43,10 +43,10 @@ pub use lacing::{
     lacing_bar_slenderness_ok, lacing_shear, modified_slenderness, Connector, LacingSystem,
     K_I_BACK_TO_BACK_ANGLES, K_I_BACK_TO_BACK_CHANNELS, K_I_OTHER,
 };
-pub use outline::{outline, outline_original, try_outline};
+pub use outline::{outline, outline_original, outline_to_shape, try_outline};
 pub use part::{
-    part_properties, part_properties_indexed, Direction, Orientation, PartProperties, PlacedPart,
-    Quadrant, Shape,
+    part_properties, part_properties_indexed, Direction, GivenKind, Orientation, PartProperties,
+    PlacedPart, Quadrant, Shape,
 };
 
 /// Everything that can be wrong with a section description.

@@ -117,6 +117,18 @@ impl Shape {
         }
     }
 
+    /// Table properties with the overall width and depth (for drawing).
+    pub fn given_with(area: f64, ix: f64, iy: f64, width: f64, depth: f64) -> Shape {
+        Shape::Given {
+            area,
+            ix,
+            iy,
+            ixy: 0.0,
+            depth: Some(depth),
+            width: Some(width),
+        }
+    }
+
     /// Checks every dimension; `part` names the part in any error.
     pub fn validate(&self, part: usize) -> Result<(), SectionError> {
         let pos = |field: &'static str, value: f64| -> Result<(), SectionError> {
@@ -703,6 +715,23 @@ pub struct PlacedPart {
     pub holes: Vec<Hole>,
     pub loss: Option<Loss>,
     pub label: Option<String>,
+    /// For a [`Shape::Given`] with its width and depth: the kind of rolled
+    /// shape it is, so that it can be drawn as that shape (idealised with
+    /// one thickness, see [`super::outline::idealised`]). Drawing only.
+    pub drawn_as: Option<GivenKind>,
+}
+
+/// The kind of rolled shape a part given by table properties is.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum GivenKind {
+    /// Legs along +x (width) and +y (depth) from the heel, in the reference orientation.
+    Angle,
+    /// Web along y (depth) at the back, flanges (width) towards +x.
+    Channel,
+    /// Flanges (width) at top and bottom, web along y (depth).
+    IShape,
+    /// Flange (width) at the top, stem down (depth overall).
+    Tee,
 }
 
 impl PlacedPart {
@@ -716,7 +745,13 @@ impl PlacedPart {
             holes: Vec::new(),
             loss: None,
             label: None,
+            drawn_as: None,
         }
+    }
+    /// The same part, drawn as a `kind` (for table properties with extents).
+    pub fn drawn_as(mut self, kind: GivenKind) -> PlacedPart {
+        self.drawn_as = Some(kind);
+        self
     }
     /// The same part turned to `orientation`.
     pub fn oriented(mut self, orientation: Orientation) -> PlacedPart {

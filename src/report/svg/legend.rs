@@ -42,7 +42,26 @@ fn item_width(item: &Item) -> f64 {
 
 /// Lay the items out in rows within `width`; returns the height used.
 pub fn height(items: &[Item], width: f64) -> f64 {
-    rows(items, width).len() as f64 * ROW + 30.0
+    let rows = rows(items, width);
+    row_tops(items, &rows).last().copied().unwrap_or(0.0) + 30.0
+}
+
+/// Extra height of a row holding the colour bar: its numbers sit under it
+/// and must clear the next row's text.
+const RAMP_EXTRA: f64 = 12.0;
+
+/// Offset of each row's top from the first, and the total after the last.
+fn row_tops(items: &[Item], rows: &[Vec<usize>]) -> Vec<f64> {
+    let mut tops = vec![0.0];
+    for r in rows {
+        let extra = if r.iter().any(|&i| matches!(items[i], Item::Ramp)) {
+            RAMP_EXTRA
+        } else {
+            0.0
+        };
+        tops.push(tops.last().unwrap() + ROW + extra);
+    }
+    tops
 }
 
 fn rows(items: &[Item], width: f64) -> Vec<Vec<usize>> {
@@ -70,7 +89,8 @@ fn rows(items: &[Item], width: f64) -> Vec<Vec<usize>> {
 /// Draw the key in a box at (`x`, `y`) of `width`; returns its height.
 pub fn draw(svg: &mut Svg, items: &[Item], x: f64, y: f64, width: f64) -> f64 {
     let rows = rows(items, width);
-    let h = rows.len() as f64 * ROW + 30.0;
+    let tops = row_tops(items, &rows);
+    let h = tops.last().copied().unwrap_or(0.0) + 30.0;
     svg.raw(r#"<g class="legend">"#);
     svg.rect(
         x,
@@ -92,7 +112,7 @@ pub fn draw(svg: &mut Svg, items: &[Item], x: f64, y: f64, width: f64) -> f64 {
     );
     let ink = format!(r#"fill="{}""#, pal::INK);
     for (r, row) in rows.iter().enumerate() {
-        let cy = y + 30.0 + r as f64 * ROW + ROW / 2.0 - 4.0;
+        let cy = y + 30.0 + tops[r] + ROW / 2.0 - 4.0;
         let mut cx = x + 12.0;
         for &i in row {
             let it = &items[i];

@@ -6,6 +6,7 @@
 //! `truss` draws the structure, `legend` the key, `palette` holds the
 //! colours. All text is XML-escaped.
 
+pub mod layout;
 pub mod legend;
 pub mod palette;
 pub mod truss;

@@ -5,6 +5,7 @@
 //! drawing shows, a scale bar, optional influence-line strips, the legend
 //! and the caution.
 
+use super::layout::{Candidate, Layout, Quad};
 use super::legend::{self, Item};
 use super::palette as pal;
 use super::{esc, px, text_width, Drawing, Effect, InfluenceLine, Show, Svg};
@@ -196,7 +197,9 @@ pub fn render(d: &Drawing) -> String {
         top: title_h + above,
     };
     let hanging = show_loads && effect.is_some_and(|e| loads_below(&frame, model, e));
-    if hanging && d.show == Show::Model {
+    // Less room above when every load hangs below (none is drawn above).
+    let above_loads = show_loads && effect.is_some_and(|e| loads_above(&frame, model, e));
+    if hanging && !above_loads && d.show == Show::Model {
         frame.top = title_h + 34.0;
     }
     let below = match (d.show == Show::Forces, hanging) {
@@ -246,6 +249,9 @@ pub fn render(d: &Drawing) -> String {
         .map(|e| e.forces.iter().fold(0.0f64, |a, f| a.max(f.abs())))
         .unwrap_or(0.0);
     let label_members = model.members.len() <= 400;
+    // Labels wait for the collision pass, after every arrow and symbol.
+    let mut lay = Layout::default();
+    let mut member_labels: Vec<MemberLabel> = Vec::new();
     for (m, mem) in model.members.iter().enumerate() {
         let (a, b) = (&model.nodes[mem.start], &model.nodes[mem.end]);
         let (pa, pb) = (frame.p(a.x, a.y), frame.p(b.x, b.y));
@@ -287,6 +293,7 @@ pub fn render(d: &Drawing) -> String {
                     let ub = e.displacements[mem.end];
                     let qa = frame.p(a.x + mag * ua[0], a.y + mag * ua[1]);
                     let qb = frame.p(b.x + mag * ub[0], b.y + mag * ub[1]);
+                    lay.line(qa, qb, 2.3);
                     svg.line(
                         qa,
                         qb,
@@ -298,8 +305,9 @@ pub fn render(d: &Drawing) -> String {
                 (String::new(), 0.0)
             }
         };
+        lay.line(pa, pb, lw.max(2.5) / 2.0 + 1.0);
         if label_members && !label.is_empty() {
-            member_label(&mut svg, pa, pb, &label, lw);
+            member_labels.push((pa, pb, label, lw));
         }
     }
     svg.raw("</g>");
@@ -310,12 +318,19 @@ pub fn render(d: &Drawing) -> String {
         let n = &model.nodes[s.node];
         let p = frame.p(n.x, n.y);
         support(&mut svg, p, s.restraint, 1.0);
+        lay.obstacle(Quad::rect(
+            p.0 - 1.5 * S - 1.0,
+            p.1 + 4.0,
+            p.0 + 1.5 * S + 1.0,
+            p.1 + 2.4 * S,
+        ));
     }
     svg.raw("</g>");
 
     // Nodes: hinge circles, labels away from the members they join.
     svg.raw(r#"<g class="nodes">"#);
     let many = model.nodes.len() > 300;
+    let mut node_points = Vec::with_capacity(model.nodes.len());
     for (i, n) in model.nodes.iter().enumerate() {
         let p = match deflect {
             Some((mag, e)) => {
@@ -333,30 +348,39 @@ pub fn render(d: &Drawing) -> String {
                 pal::INK
             ),
         );
-        if !many {
-            let (dx, dy) = away(model, i);
-            let q = (p.0 + dx * 14.0, p.1 + dy * 14.0 + 4.0);
-            let anchor = if dx > 0.4 {
-                "start"
-            } else if dx < -0.4 {
-                "end"
-            } else {
-                "middle"
-            };
-            svg.text(q, 11.0, anchor, &n.id, &halo(pal::INK, "italic"));
-        }
+        let r = if many { 1.6 } else { 3.4 };
+        lay.obstacle(Quad::rect(
+            p.0 - r - 1.0,
+            p.1 - r - 1.0,
+            p.0 + r + 1.0,
+            p.1 + r + 1.0,
+        ));
+        node_points.push(p);
     }
     svg.raw("</g>");
 
+    // Arrows first (obstacles), then labels by importance: nodes, loads,
+    // reactions, the deflection note, member values.
+    let mut pending: Vec<(Vec<Candidate>, String, String)> = Vec::new();
     if show_loads {
         if let Some(e) = effect {
-            loads(&mut svg, &frame, model, e, &sc);
+            pending.extend(loads(&mut svg, &mut lay, &frame, model, e, &sc));
         }
     }
     if d.show == Show::Forces {
         if let Some(e) = effect {
-            reactions(&mut svg, &frame, model, e, &sc);
+            pending.extend(reactions(&mut svg, &mut lay, &frame, model, e, &sc));
         }
+    }
+    svg.raw(r#"<g class="labels">"#);
+    if !many {
+        for (i, n) in model.nodes.iter().enumerate() {
+            let c = node_label_places(node_points[i], away(model, i));
+            lay.place(&mut svg, &c, 11.0, &n.id, &halo(pal::INK, "italic"), true);
+        }
+    }
+    for (c, text, attrs) in &pending {
+        lay.place(&mut svg, c, 11.0, text, attrs, true);
     }
     if let Some((_, e)) = deflect {
         // The largest displacement, labelled at its node.
@@ -369,21 +393,52 @@ pub fn render(d: &Drawing) -> String {
             let mag = deflect.map(|(m, _)| m).unwrap_or(1.0);
             let n = &model.nodes[i];
             let p = frame.p(n.x + mag * u[0], n.y + mag * u[1]);
+            // Components below a millionth of the largest displacement are
+            // round-off of the solve: shown as 0.
+            let big = u[0].hypot(u[1]);
+            let clean = |v: f64| if v.abs() <= 1e-6 * big { 0.0 } else { v };
             let t = format!(
                 "{}: ux {}, uy {} {}",
                 n.id,
-                sig(u[0] / sc.disp, 3),
-                sig(u[1] / sc.disp, 3),
+                sig(clean(u[0]) / sc.disp, 3),
+                sig(clean(u[1]) / sc.disp, 3),
                 sc.disp_name
             );
-            svg.text(
-                (p.0, p.1 + 26.0),
-                11.5,
-                "middle",
-                &t,
-                &halo(pal::DEFLECTED, "bold"),
-            );
+            let mut c: Vec<Candidate> = [
+                (0.0, 30.0),
+                (0.0, -22.0),
+                (0.0, 46.0),
+                (0.0, -38.0),
+                (0.0, 62.0),
+            ]
+            .iter()
+            .map(|&(dx, dy)| Candidate::flat((p.0 + dx, p.1 + dy), "middle"))
+            .collect();
+            // Under the whole drawing, clear of every member.
+            let low = node_points.iter().map(|q| q.1).fold(p.1, f64::max);
+            for dy in [34.0, 50.0] {
+                c.push(Candidate::flat((p.0, low + dy), "middle"));
+            }
+            lay.place(&mut svg, &c, 11.5, &t, &halo(pal::DEFLECTED, "bold"), true);
         }
+    }
+    for (pa, pb, text, lw) in &member_labels {
+        let c = member_label_places(*pa, *pb, text, *lw);
+        lay.place(&mut svg, &c, 10.5, text, &halo(pal::INK, ""), false);
+    }
+    svg.raw("</g>");
+    if lay.dropped > 0 {
+        svg.text(
+            (w - 20.0, scalebar_y + 12.0),
+            10.5,
+            "end",
+            &format!(
+                "{} member label{} left out for room; `panelpoint solve` lists every value",
+                lay.dropped,
+                if lay.dropped == 1 { "" } else { "s" }
+            ),
+            &ink,
+        );
     }
 
     scale_bar(
@@ -545,12 +600,19 @@ fn member_util(
     }
 }
 
-/// A label written along the member, above it, upright.
-fn member_label(svg: &mut Svg, pa: (f64, f64), pb: (f64, f64), text: &str, stroke_w: f64) {
+/// Places for a label written along a member, upright: 40 % along and
+/// above it first (clear of crossing labels in panels with two
+/// diagonals), then other points along it, above and below.
+fn member_label_places(
+    pa: (f64, f64),
+    pb: (f64, f64),
+    text: &str,
+    stroke_w: f64,
+) -> Vec<Candidate> {
     let (dx, dy) = (pb.0 - pa.0, pb.1 - pa.1);
     let len = dx.hypot(dy);
     if len < 1.0 || text_width(text, 10.5) > 0.8 * len {
-        return;
+        return Vec::new();
     }
     let mut ang = dy.atan2(dx).to_degrees();
     if ang > 90.0 {
@@ -558,22 +620,67 @@ fn member_label(svg: &mut Svg, pa: (f64, f64), pb: (f64, f64), text: &str, strok
     } else if ang <= -90.0 {
         ang += 180.0;
     }
-    let (mx, my) = ((pa.0 + pb.0) / 2.0, (pa.1 + pb.1) / 2.0);
-    // Place the label at 40 % along so it stays clear of crossing labels
-    // in panels with two diagonals, offset to the upper side.
-    let (ux, uy) = (dx / len, dy / len);
-    let (mx, my) = (mx - ux * 0.1 * len, my - uy * 0.1 * len);
+    // Measure along from the end the upright text starts at.
+    let (a, b) =
+        if (pb.0 - pa.0) * ang.to_radians().cos() + (pb.1 - pa.1) * ang.to_radians().sin() >= 0.0 {
+            (pa, pb)
+        } else {
+            (pb, pa)
+        };
     let off = stroke_w / 2.0 + 4.0;
-    let _ = writeln!(
-        svg.out,
-        r#"<text transform="translate({} {}) rotate({})" y="{}" font-size="10.5" text-anchor="middle" {}>{}</text>"#,
-        px(mx),
-        px(my),
-        px(ang),
-        px(-off),
-        halo(pal::INK, ""),
-        esc(text)
-    );
+    let mut out = Vec::new();
+    for (t, below) in [
+        (0.4, false),
+        (0.6, false),
+        (0.4, true),
+        (0.6, true),
+        (0.3, false),
+        (0.7, false),
+        (0.3, true),
+        (0.7, true),
+        (0.5, false),
+        (0.5, true),
+        (0.22, false),
+        (0.78, false),
+        (0.22, true),
+        (0.78, true),
+    ] {
+        let half = text_width(text, 10.5) / 2.0;
+        // Keep the text within the member's length.
+        if t * len < half + 4.0 || (1.0 - t) * len < half + 4.0 {
+            continue;
+        }
+        out.push(Candidate {
+            at: (a.0 + (b.0 - a.0) * t, a.1 + (b.1 - a.1) * t),
+            anchor: "middle",
+            rotate: ang,
+            dy: if below { off + 0.78 * 10.5 } else { -off },
+        });
+    }
+    out
+}
+
+/// Places for a node's label: away from its members first, then round it.
+fn node_label_places(p: (f64, f64), (dx, dy): (f64, f64)) -> Vec<Candidate> {
+    let mut dirs = vec![(dx, dy)];
+    for k in 0..8 {
+        let a = std::f64::consts::TAU * k as f64 / 8.0 + std::f64::consts::FRAC_PI_8;
+        dirs.push((a.cos(), a.sin()));
+    }
+    let mut out = Vec::new();
+    for r in [14.0, 20.0] {
+        for &(dx, dy) in &dirs {
+            let anchor = if dx > 0.4 {
+                "start"
+            } else if dx < -0.4 {
+                "end"
+            } else {
+                "middle"
+            };
+            out.push(Candidate::flat((p.0 + dx * r, p.1 + dy * r + 4.0), anchor));
+        }
+    }
+    out
 }
 
 /// Draw a support symbol at `p` (page px), `k` times the normal size.
@@ -675,26 +782,84 @@ fn loads_below(frame: &Frame, model: &Model, e: &Effect) -> bool {
     })
 }
 
-fn loads(svg: &mut Svg, frame: &Frame, model: &Model, e: &Effect, sc: &Scale) {
-    let bbox = bounds(model.nodes.iter().map(|n| (n.x, n.y)));
-    svg.raw(r#"<g class="loads">"#);
+/// A member's label waiting for the collision pass: its ends, text and line width.
+type MemberLabel = ((f64, f64), (f64, f64), String, f64);
+
+/// A label waiting for the collision pass: its places, text and attributes.
+type Pending = (Vec<Candidate>, String, String);
+
+/// Loads of `e` at each node, those in one direction summed: (node, fx,
+/// fy, the parts' magnitudes).
+fn loads_by_node(e: &Effect) -> Vec<(usize, f64, f64, Vec<f64>)> {
+    let mut out: Vec<(usize, f64, f64, Vec<f64>)> = Vec::new();
     for &(node, fx, fy) in &e.loads {
         let mag = fx.hypot(fy);
         if !(mag > 0.0 && mag.is_finite()) {
             continue;
         }
+        let same = out.iter_mut().find(|(n, gx, gy, _)| {
+            *n == node
+                && (gx * fy - gy * fx).abs() <= 1e-9 * mag * gx.hypot(*gy)
+                && gx * fx + gy * fy > 0.0
+        });
+        match same {
+            Some(l) => {
+                l.1 += fx;
+                l.2 += fy;
+                l.3.push(mag);
+            }
+            None => out.push((node, fx, fy, vec![mag])),
+        }
+    }
+    out
+}
+
+/// Whether some load of `e` is drawn above the truss (pushed from above).
+fn loads_above(frame: &Frame, model: &Model, e: &Effect) -> bool {
+    let bbox = bounds(model.nodes.iter().map(|n| (n.x, n.y)));
+    e.loads.iter().any(|&(node, fx, fy)| {
+        let mag = fx.hypot(fy);
+        if !(mag > 0.0 && mag.is_finite()) {
+            return false;
+        }
+        let n = &model.nodes[node];
+        let p = frame.p(n.x, n.y);
+        let (ux, uy) = (fx / mag, -fy / mag);
+        let push = outside(frame, bbox, (p.0 - ux * LOAD_LEN, p.1 - uy * LOAD_LEN));
+        let pull = outside(frame, bbox, (p.0 + ux * LOAD_LEN, p.1 + uy * LOAD_LEN));
+        let supported = model.supports.iter().any(|s| s.node == node);
+        (supported || push >= pull) && uy > 0.0
+    })
+}
+
+/// Draw the load arrows of `e` (obstacles in `lay`) and return their labels.
+fn loads(
+    svg: &mut Svg,
+    lay: &mut Layout,
+    frame: &Frame,
+    model: &Model,
+    e: &Effect,
+    sc: &Scale,
+) -> Vec<Pending> {
+    let bbox = bounds(model.nodes.iter().map(|n| (n.x, n.y)));
+    let mut out = Vec::new();
+    svg.raw(r#"<g class="loads">"#);
+    for (node, fx, fy, parts) in loads_by_node(e) {
+        let mag = fx.hypot(fy);
         let n = &model.nodes[node];
         let p = frame.p(n.x, n.y);
         let (ux, uy) = (fx / mag, -fy / mag);
         // Push onto the node from outside the truss where that side is
         // clear (a top-chord load from above); else hang the arrow from the
         // node (a bottom-chord load drawn below it), so it never crosses
-        // the members.
+        // the members. At a support the space below belongs to the support
+        // and its reaction: push from the other side.
         let push_far = (p.0 - ux * LOAD_LEN, p.1 - uy * LOAD_LEN);
         let pull_far = (p.0 + ux * LOAD_LEN, p.1 + uy * LOAD_LEN);
-        let push = outside(frame, bbox, push_far) >= outside(frame, bbox, pull_far);
+        let supported = model.supports.iter().any(|s| s.node == node);
+        let push = supported || outside(frame, bbox, push_far) >= outside(frame, bbox, pull_far);
         let (tail, tip, label_at, dir) = if push {
-            let tip = (p.0 - ux * 5.0, p.1 - uy * 5.0);
+            let tip = (p.0 - ux * 6.0, p.1 - uy * 6.0);
             let tail = (tip.0 - ux * LOAD_LEN, tip.1 - uy * LOAD_LEN);
             (tail, tip, tail, -1.0)
         } else {
@@ -704,23 +869,49 @@ fn loads(svg: &mut Svg, frame: &Frame, model: &Model, e: &Effect, sc: &Scale) {
             (tail, tip, tip, 1.0)
         };
         arrow(svg, tail, tip, pal::LOAD, false, "load");
-        let t = format!("{} {}", sig(mag / sc.force, 3), sc.force_name);
-        // The label beyond the far end of the arrow.
+        lay.obstacle(Quad::segment(tail, tip, 5.5));
+        let total = format!("{} {}", sig(mag / sc.force, 3), sc.force_name);
+        let t = if parts.len() > 1 {
+            let each: Vec<String> = parts.iter().map(|m| sig(m / sc.force, 3)).collect();
+            format!("{total} ({})", each.join(" + "))
+        } else {
+            total
+        };
+        // The label beyond the far end of the arrow, else beside its shaft.
         let (ox, oy) = (dir * ux, dir * uy);
         let (lx, ly) = (label_at.0 + ox * 6.0, label_at.1 + oy * 6.0);
-        let (anchor, ly) = if oy.abs() >= ox.abs() {
-            ("middle", if oy < 0.0 { ly - 2.0 } else { ly + 11.0 })
+        let first = if oy.abs() >= ox.abs() {
+            Candidate::flat((lx, if oy < 0.0 { ly - 2.0 } else { ly + 11.0 }), "middle")
         } else if ox < 0.0 {
-            ("end", ly + 4.0)
+            Candidate::flat((lx, ly + 4.0), "end")
         } else {
-            ("start", ly + 4.0)
+            Candidate::flat((lx, ly + 4.0), "start")
         };
-        svg.text((lx, ly), 11.0, anchor, &t, &halo(pal::LOAD, "bold"));
+        let mid = ((tail.0 + tip.0) / 2.0, (tail.1 + tip.1) / 2.0);
+        let mut c = vec![first];
+        for k in [1.0, 2.0] {
+            c.push(Candidate::flat(
+                (first.at.0, first.at.1 + oy.signum() * 13.0 * k),
+                first.anchor,
+            ));
+        }
+        c.push(Candidate::flat((mid.0 + 8.0, mid.1 + 4.0), "start"));
+        c.push(Candidate::flat((mid.0 - 8.0, mid.1 + 4.0), "end"));
+        out.push((c, t, halo(pal::LOAD, "bold")));
     }
     svg.raw("</g>");
+    out
 }
 
-fn reactions(svg: &mut Svg, frame: &Frame, model: &Model, e: &Effect, sc: &Scale) {
+/// Draw the reaction arrows of `e` (obstacles in `lay`) and return their labels.
+fn reactions(
+    svg: &mut Svg,
+    lay: &mut Layout,
+    frame: &Frame,
+    model: &Model,
+    e: &Effect,
+    sc: &Scale,
+) -> Vec<Pending> {
     let rmax = e
         .reactions
         .iter()
@@ -733,6 +924,7 @@ fn reactions(svg: &mut Svg, frame: &Frame, model: &Model, e: &Effect, sc: &Scale
         .map(|n| n.x)
         .fold(f64::INFINITY, f64::min)
         + sx / 2.0;
+    let mut out = Vec::new();
     svg.raw(r#"<g class="reactions">"#);
     for (s, r) in model.supports.iter().zip(&e.reactions) {
         let n = &model.nodes[s.node];
@@ -745,13 +937,15 @@ fn reactions(svg: &mut Svg, frame: &Frame, model: &Model, e: &Effect, sc: &Scale
                 ((p.0, y_near), (p.0, y_far))
             };
             arrow(svg, tail, tip, pal::REACTION, true, "reaction");
-            svg.text(
-                (p.0 + 7.0, y_far + 12.0),
-                11.0,
-                "middle",
-                &format!("Ry {} {}", sig(r[1] / sc.force, 3), sc.force_name),
-                &halo(pal::REACTION, ""),
-            );
+            lay.obstacle(Quad::segment(tail, tip, 5.5));
+            let c = vec![
+                Candidate::flat((p.0, y_far + 14.0), "middle"),
+                Candidate::flat((p.0 - 8.0, (y_near + y_far) / 2.0 + 4.0), "end"),
+                Candidate::flat((p.0 + 8.0, (y_near + y_far) / 2.0 + 4.0), "start"),
+                Candidate::flat((p.0, y_far + 28.0), "middle"),
+            ];
+            let t = format!("Ry {} {}", sig(r[1] / sc.force, 3), sc.force_name);
+            out.push((c, t, halo(pal::REACTION, "")));
         }
         if r[0].abs() > 1e-9 * rmax {
             let side = if n.x <= mid { -1.0 } else { 1.0 };
@@ -764,16 +958,22 @@ fn reactions(svg: &mut Svg, frame: &Frame, model: &Model, e: &Effect, sc: &Scale
                 ((near, y), (far, y))
             };
             arrow(svg, tail, tip, pal::REACTION, true, "reaction");
-            svg.text(
-                (far + side * 4.0, y - 8.0),
-                11.0,
-                if side < 0.0 { "start" } else { "end" },
-                &format!("Rx {} {}", sig(r[0] / sc.force, 3), sc.force_name),
-                &halo(pal::REACTION, ""),
-            );
+            lay.obstacle(Quad::segment(tail, tip, 5.5));
+            let anchor = if side < 0.0 { "start" } else { "end" };
+            let c = vec![
+                Candidate::flat((far + side * 4.0, y - 9.0), anchor),
+                Candidate::flat((far + side * 4.0, y + 17.0), anchor),
+                Candidate::flat(
+                    (far + side * 6.0, y + 4.0),
+                    if side < 0.0 { "end" } else { "start" },
+                ),
+            ];
+            let t = format!("Rx {} {}", sig(r[0] / sc.force, 3), sc.force_name);
+            out.push((c, t, halo(pal::REACTION, "")));
         }
     }
     svg.raw("</g>");
+    out
 }
 
 fn scale_bar(svg: &mut Svg, frame: &Frame, span: f64, sc: &Scale, x: f64, y: f64) {
@@ -853,7 +1053,8 @@ pub fn influence_plot(
     svg.line((xl, axis_y), (xr, axis_y), pal::INK, 1.0, "");
     let vmax = ords.iter().fold(0.0f64, |a, o| a.max(o.1.abs()));
     if ords.len() >= 2 && vmax > 0.0 {
-        let k = (INFLUENCE_H / 2.0 - 16.0) / vmax;
+        // Room above the peak for its value under the strip's title.
+        let k = (INFLUENCE_H / 2.0 - 26.0) / vmax;
         let pts: Vec<(f64, f64)> = ords
             .iter()
             .map(|&(x, v)| (frame.x(x), axis_y - k * v))
