@@ -25,6 +25,7 @@ pub fn load(path: &Path) -> Result<Converted, Error> {
 /// [`load`] with the crossing-members check handed back, for a command that
 /// runs it beside the analysis.
 fn load_deferred(path: &Path) -> Result<(Converted, input::convert::CrossingCheck), Error> {
+    super::guard::input(path);
     let bytes = crate::timing::stage("read file", || std::fs::read(path)).map_err(|source| {
         Error::Read {
             path: path.to_path_buf(),
@@ -44,16 +45,22 @@ fn load_deferred(path: &Path) -> Result<(Converted, input::convert::CrossingChec
             }],
         },
     })?;
-    input::load_str_deferred(&text, path.parent()).map_err(|diagnostics| Error::Model {
-        path: path.to_path_buf(),
-        diagnostics,
-    })
+    let (c, check) =
+        input::load_str_deferred(&text, path.parent()).map_err(|diagnostics| Error::Model {
+            path: path.to_path_buf(),
+            diagnostics,
+        })?;
+    if let Some(v) = &c.vehicles_path {
+        super::guard::input(v);
+    }
+    Ok((c, check))
 }
 
 pub(super) fn write(
     out: &Option<PathBuf>,
     body: impl FnOnce(&mut dyn Write) -> std::io::Result<()>,
 ) -> Result<(), Error> {
+    super::guard::check(out)?;
     write_output(out.as_deref(), body).map_err(|source| Error::Write {
         what: out
             .as_ref()

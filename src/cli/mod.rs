@@ -4,6 +4,7 @@
 
 mod args;
 mod commands;
+mod guard;
 mod loads;
 mod whatif;
 

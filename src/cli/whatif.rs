@@ -135,6 +135,7 @@ pub fn sweep(a: SweepArgs) -> Result<u8, Error> {
     let c = load(&a.model)?;
     let model = &c.model;
     let curve = rate::choose_curve(model, a.curve.as_deref()).map_err(Error::Usage)?;
+    super::guard::input(&a.sweep);
     let text = fs::read_to_string(&a.sweep).map_err(|source| Error::Read {
         path: a.sweep.clone(),
         source,
@@ -166,6 +167,10 @@ pub fn sweep(a: SweepArgs) -> Result<u8, Error> {
         what: what.clone(),
         source,
     };
+    super::guard::check(&a.out)?;
+    if let Some(out) = &a.out {
+        super::guard::check_out(&partial_path(out))?;
+    }
     let mut sink = Sink::open(&a.out).map_err(werr)?;
     let mut writer = report::whatif::SweepWriter::new(a.format, a.detail, model);
     let shard_text = shard.map_or(String::new(), |(i, n)| {

@@ -39,6 +39,9 @@ impl fmt::Display for Field<'_> {
 pub struct Converted {
     pub model: Model,
     pub warnings: Vec<Diagnostic>,
+    /// The `vehicles_file` read for this model, if any (the CLI refuses an
+    /// `--out` naming it).
+    pub vehicles_path: Option<std::path::PathBuf>,
 }
 
 /// Errors kept per model: a file with a million bad rows needs the first few.
@@ -984,6 +987,7 @@ pub fn convert_deferred(
         Converted {
             model,
             warnings: ctx.warnings,
+            vehicles_path: None,
         },
         CrossingCheck { tol },
     ))

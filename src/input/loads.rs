@@ -394,9 +394,9 @@ fn single(message: String) -> Diagnostics {
 pub(super) fn merge_vehicles_file(
     file: &mut ModelFile,
     dir: Option<&Path>,
-) -> Result<(), Diagnostics> {
+) -> Result<Option<std::path::PathBuf>, Diagnostics> {
     let Some(name) = file.vehicles_file.clone() else {
-        return Ok(());
+        return Ok(None);
     };
     let path = match dir {
         Some(d) => d.join(&name),
@@ -422,5 +422,5 @@ pub(super) fn merge_vehicles_file(
         ))
     })?;
     file.vehicles.extend(more.vehicles);
-    Ok(())
+    Ok(Some(path))
 }

@@ -45,10 +45,12 @@ pub fn load_str_deferred(
         return Err(single("the model file is larger than 2 GiB", None));
     }
     let mut file = crate::timing::stage("parse", || parse_str(text))?;
-    loads::merge_vehicles_file(&mut file, dir)?;
-    crate::timing::stage("validate + convert", || {
+    let vehicles_path = loads::merge_vehicles_file(&mut file, dir)?;
+    let (mut c, check) = crate::timing::stage("validate + convert", || {
         convert::convert_deferred(file, text)
-    })
+    })?;
+    c.vehicles_path = vehicles_path;
+    Ok((c, check))
 }
 
 /// The syntax step of [`load_str`] alone: RON text to the schema types,
