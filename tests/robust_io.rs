@@ -285,3 +285,62 @@ fn a_partial_file_held_by_another_run_is_refused_a_stale_one_reused() {
     assert!(text.lines().filter(|l| !l.starts_with('#')).count() >= 47, "{text}");
     fs::remove_dir_all(d).unwrap();
 }
+
+// ---- item 15: a failing standard output or error --------------------------
+
+fn run_with(args: &[&str], stdout: std::process::Stdio, stderr: std::process::Stdio) -> (i32, String) {
+    let out = std::process::Command::new(env!("CARGO_BIN_EXE_panelpoint"))
+        .args(args)
+        .stdout(stdout)
+        .stderr(stderr)
+        .output()
+        .unwrap();
+    (
+        out.status.code().unwrap_or(-1),
+        String::from_utf8_lossy(&out.stderr).into_owned(),
+    )
+}
+
+fn dev_full() -> std::process::Stdio {
+    fs::OpenOptions::new().write(true).open("/dev/full").unwrap().into()
+}
+
+/// The write end of a pipe whose read end is already closed.
+fn closed_pipe() -> std::process::Stdio {
+    use std::os::unix::io::FromRawFd;
+    let mut fds = [0; 2];
+    // SAFETY: pipe fills two descriptors; the read end is closed at once and
+    // the write end handed to the child.
+    unsafe {
+        assert_eq!(libc::pipe(fds.as_mut_ptr()), 0);
+        libc::close(fds[0]);
+        std::process::Stdio::from(std::fs::File::from_raw_fd(fds[1]))
+    }
+}
+
+#[test]
+fn a_full_or_closed_standard_output_is_an_error_not_a_panic() {
+    use std::process::Stdio;
+    let m = repo("four_panel_live.ron");
+    let m = m.to_str().unwrap();
+    // README: exit status 1 for a failure that is not the input's.
+    let (code, err) = run_with(&["validate", m], dev_full(), Stdio::piped());
+    assert_eq!(code, 1, "{err}");
+    assert!(err.contains("cannot write standard output"), "{err}");
+    assert!(!err.contains("panicked"), "{err}");
+    let (code, err) = run_with(&["rate", m], closed_pipe(), Stdio::piped());
+    assert_eq!(code, 1, "{err}");
+    assert!(err.contains("cannot write standard output"), "{err}");
+    assert!(!err.contains("panicked"), "{err}");
+}
+
+#[test]
+fn a_full_or_closed_standard_error_keeps_the_exit_status() {
+    use std::process::Stdio;
+    // A missing model is bad input: exit 2 even when the message cannot be
+    // printed (a panic would be 101).
+    let (code, _) = run_with(&["validate", "/nonexistent/m.ron"], Stdio::null(), dev_full());
+    assert_eq!(code, 2);
+    let (code, _) = run_with(&["solve", "/nonexistent/m.ron"], Stdio::null(), closed_pipe());
+    assert_eq!(code, 2);
+}

@@ -114,15 +114,18 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             for d in &c.warnings {
                 let _ = writeln!(err, "panelpoint: warning: {}: {d}", model.display());
             }
-            println!(
-                "{}: valid: {} nodes, {} members, {} supports, {} load cases; {}",
-                model.display(),
-                m.nodes.len(),
-                m.members.len(),
-                m.supports.len(),
-                m.cases.len(),
-                m.determinacy().describe()
-            );
+            write(&None, |w| {
+                writeln!(
+                    w,
+                    "{}: valid: {} nodes, {} members, {} supports, {} load cases; {}",
+                    model.display(),
+                    m.nodes.len(),
+                    m.members.len(),
+                    m.supports.len(),
+                    m.cases.len(),
+                    m.determinacy().describe()
+                )
+            })?;
             Ok(0)
         }
         Command::Solve {
