@@ -194,3 +194,80 @@ fn missing_file_directory_and_non_utf8() {
     refused(&solve(&p), &["not UTF-8", "offset 9"]);
     std::fs::remove_dir_all(d).unwrap();
 }
+
+// ---- issue 22, item 12: overflow must never turn into a pass ---------------
+
+fn rate(path: &Path) -> Run {
+    run_os(&[OsStr::new("rate"), path.as_os_str()])
+}
+
+fn bad_rate(name: &str, text: &str, needles: &[&str]) {
+    let d = dir(name);
+    let p = write(&d, "m.ron", text);
+    refused(&rate(&p), needles);
+    std::fs::remove_dir_all(d).unwrap();
+}
+
+/// The triangle with its load case made Live (impact `impact`) and a
+/// combination of it with factor `factor`.
+fn live_triangle(load: &str, impact: &str, factor: &str) -> String {
+    triangle("4.0", "1.5")
+        .replace("fy: 250.0", "fy: 250.0, fu: 400.0")
+        .replace(
+            "load_cases: [(id: \"w\", loads: [(node: \"C\", fy: -10.0)])],",
+            &format!(
+                "load_cases: [(id: \"w\", kind: Live, impact: {impact}, loads: [(node: \"C\", fy: {load})])],\n\
+                 combinations: [(id: \"c\", factors: [(\"w\", {factor})])],"
+            ),
+        )
+}
+
+#[test]
+fn impact_and_factors_out_of_range_are_refused() {
+    // Guard: the same model with ordinary numbers rates.
+    let d = dir("live-ok");
+    let r = rate(&write(&d, "m.ron", live_triangle("-10.0", "0.33", "1.75")));
+    assert_eq!(r.code, 0, "{}", r.stderr);
+    // Bounds: impact 0..2 (a fraction), factors within ±100 (docs/robustness.md).
+    bad_rate(
+        "impact-huge",
+        &live_triangle("-10.0", "1e306", "1.75"),
+        &["case \"w\" impact", "from 0 to 2", "1e306"],
+    );
+    bad_rate(
+        "factor-huge",
+        &live_triangle("-10.0", "0.33", "1e308"),
+        &["combination \"c\" factor on \"w\"", "-100 to 100"],
+    );
+}
+
+#[test]
+fn an_overflowing_combination_is_an_error_not_a_pass() {
+    // fy = -1e305 kN = -1e308 N at the apex of the 4 m × 1.5 m triangle:
+    // by statics each rafter carries F/(2 sin θ) with sin θ = 1.5/2.5 = 0.6,
+    // 0.83e308 N, finite; the combination's 100 × (1 + 0.33) makes it
+    // 1.1e310 N, beyond f64 (1.8e308), which must be refused, naming the
+    // combination, rather than zeroed as round-off.
+    let t = live_triangle("-1e305", "0.33", "100.0");
+    bad_rate("ovf-combo", &t, &["\"c\"", "not a finite number"]);
+}
+
+#[test]
+fn an_overflowing_member_force_is_an_error_naming_the_case() {
+    // A 4 m chord with the apex 1 mm high: each rafter carries
+    // F/(2 sin θ) ≈ F·2/(2·0.0005) = 1000·F; F = 1e306 N overflows.
+    let t = triangle("4.0", "0.001").replace("fy: -10.0", "fy: -1e303");
+    bad("ovf-force", &t, &["load case \"w\"", "not a finite number"]);
+}
+
+#[test]
+fn a_moving_load_impact_out_of_range_is_refused() {
+    let text = std::fs::read_to_string(
+        Path::new(env!("CARGO_MANIFEST_DIR")).join("models/four_panel_live.ron"),
+    )
+    .unwrap()
+    .replace("step: \"1 ft\", impact: 0.10", "step: \"1 ft\", impact: 1e306");
+    let p = temp_model("m.ron", &text);
+    let r = run_os(&[OsStr::new("envelope"), p.as_os_str()]);
+    refused(&r, &["moving load \"cart\"", "from 0 to 2", "1e306"]);
+}

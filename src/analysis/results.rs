@@ -27,6 +27,10 @@ pub enum AnalysisError {
     },
     #[error("the sparse factorization failed for want of memory or a malformed matrix")]
     Internal,
+    /// A force, displacement or reaction overflowed (issue 22, item 12): an
+    /// error rather than a number the checks would treat as zero.
+    #[error("load case \"{case}\": a {what} is not a finite number (overflow); the loads, properties or factors are out of range")]
+    NonFinite { case: String, what: &'static str },
 }
 
 /// The results of one load case, all in SI.
@@ -306,6 +310,21 @@ impl Prepared {
         } else {
             0.0
         };
+        let overflow = if !forces.iter().all(|f| f.is_finite()) {
+            Some("member force")
+        } else if !displacements.iter().flatten().all(|v| v.is_finite()) {
+            Some("displacement")
+        } else if !reactions.iter().flatten().all(|v| v.is_finite()) {
+            Some("reaction")
+        } else {
+            None
+        };
+        if let Some(what) = overflow {
+            return Err(AnalysisError::NonFinite {
+                case: case.id.clone(),
+                what,
+            });
+        }
         if relative.is_nan() || relative > RESIDUAL_LIMIT {
             return Err(AnalysisError::Residual {
                 case: case.id.clone(),

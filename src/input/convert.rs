@@ -44,6 +44,18 @@ pub struct Converted {
     pub vehicles_path: Option<std::path::PathBuf>,
 }
 
+/// A combination factor within ±[`super::MAX_FACTOR`].
+fn plausible_factor(f: f64) -> bool {
+    f.is_finite() && f.abs() <= super::MAX_FACTOR
+}
+
+fn bad_factor(combination: &str, case: &str, f: f64) -> String {
+    format!(
+        "combination \"{combination}\" factor on \"{case}\" must be a finite number from -{m} to {m}, not {f:?}",
+        m = super::MAX_FACTOR
+    )
+}
+
 /// Errors kept per model: a file with a million bad rows needs the first few.
 pub const ERROR_LIMIT: usize = 200;
 
@@ -721,12 +733,13 @@ pub fn convert_deferred(
             Some(CaseKindFile::Other) | None => CaseKind::Other,
         };
         let impact = c.impact.unwrap_or(0.0);
-        if !(impact.is_finite() && impact >= 0.0) {
+        if !(impact.is_finite() && (0.0..=super::MAX_IMPACT).contains(&impact)) {
             let at = ctx.loc.field("id", &c.id, 0);
             ctx.error(
                 format!(
-                    "case \"{}\" impact must be a fraction ≥ 0, not {impact}",
-                    c.id
+                    "case \"{}\" impact must be a fraction from 0 to {} (0.10 for 10 %), not {impact:?}",
+                    c.id,
+                    super::MAX_IMPACT
                 ),
                 at,
             );
@@ -827,28 +840,16 @@ pub fn convert_deferred(
         let mut moving = Vec::new();
         for (case, f) in &c.factors {
             if let Some(k) = live.moving.iter().position(|ml| &ml.id == case) {
-                if f.is_finite() {
+                if plausible_factor(*f) {
                     moving.push((k, *f));
                 } else {
-                    ctx.error(
-                        format!(
-                            "combination \"{}\" factor on \"{case}\" is not finite",
-                            c.id
-                        ),
-                        at,
-                    );
+                    ctx.error(bad_factor(&c.id, case, *f), at);
                 }
                 continue;
             }
             match case_ids.get(case.as_str()) {
-                Some(&i) if f.is_finite() => factors.push((i, *f)),
-                Some(_) => ctx.error(
-                    format!(
-                        "combination \"{}\" factor on \"{case}\" is not finite",
-                        c.id
-                    ),
-                    at,
-                ),
+                Some(&i) if plausible_factor(*f) => factors.push((i, *f)),
+                Some(_) => ctx.error(bad_factor(&c.id, case, *f), at),
                 None => ctx.error(
                     format!(
                         "combination \"{}\" refers to load case \"{case}\", which is not defined (nor is a moving load of that id)",
@@ -895,11 +896,14 @@ pub fn convert_deferred(
         }
         let factor = |ctx: &mut Ctx, v: Option<f64>, name: &str, into: &mut f64| {
             if let Some(v) = v {
-                if v.is_finite() && v > 0.0 {
+                if v.is_finite() && v > 0.0 && v <= super::MAX_FACTOR {
                     *into = v;
                 } else {
                     ctx.error(
-                        format!("rating.{name} must be a positive number, not {v}"),
+                        format!(
+                            "rating.{name} must be a positive number up to {}, not {v:?}",
+                            super::MAX_FACTOR
+                        ),
                         None,
                     );
                 }

@@ -329,10 +329,11 @@ pub(super) fn live_loads(
             at,
         );
         let impact = ml.impact.unwrap_or(0.0);
-        if !(impact.is_finite() && impact >= 0.0) {
+        if !(impact.is_finite() && (0.0..=super::MAX_IMPACT).contains(&impact)) {
             ctx.error(
                 format!(
-                    "{who} impact must be a fraction of at least 0 (0.10 for 10 %), not {impact}"
+                    "{who} impact must be a fraction from 0 to {} (0.10 for 10 %), not {impact:?}",
+                    super::MAX_IMPACT
                 ),
                 at,
             );

@@ -20,6 +20,18 @@ pub use diagnostics::{Diagnostic, Diagnostics, Severity};
 /// something that is not a model at all.
 pub const MAX_FILE_BYTES: usize = 1 << 31;
 
+/// Largest dynamic (impact) allowance accepted, a fraction: 2.0 = 200 %.
+/// Code allowances stay at or below about 1.0 (from memory: HL-93's 0.33,
+/// old railway impact formulas near 1.0 on the shortest spans); above 2 the
+/// number is a typo (a percentage written as a fraction), and huge values
+/// would overflow the forces (issue 22, item 12).
+pub const MAX_IMPACT: f64 = 2.0;
+
+/// Largest magnitude of a combination factor, rating load factor or sweep
+/// scale factor: 100 (load factors in practice are below about 3; common
+/// practice). Past it the input is refused, so no force can overflow.
+pub const MAX_FACTOR: f64 = 100.0;
+
 /// Parse and validate model text; a `vehicles_file` is read relative to
 /// the current folder.
 pub fn load_str(text: &str) -> Result<Converted, Diagnostics> {

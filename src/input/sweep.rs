@@ -214,8 +214,11 @@ fn changes(ctx: &mut Ctx, f: &ChangesFile, at: &str) -> (Vec<Change>, Vec<(Strin
     let mut params = Vec::new();
     for (case, factor) in &f.scale {
         ctx.case(case, at);
-        if !factor.is_finite() {
-            ctx.error(format!("{at}: scale factor of \"{case}\" is not finite"));
+        if !(factor.is_finite() && factor.abs() <= super::MAX_FACTOR) {
+            ctx.error(format!(
+                "{at}: scale factor of \"{case}\" must be a finite number from -{m} to {m}, not {factor:?}",
+                m = super::MAX_FACTOR
+            ));
         }
         out.push(Change::ScaleCase {
             case: case.clone(),
@@ -233,8 +236,12 @@ fn changes(ctx: &mut Ctx, f: &ChangesFile, at: &str) -> (Vec<Change>, Vec<(Strin
             loads.push((l.node.clone(), fx, fy));
         }
         if let Some(i) = add.impact {
-            if !(i.is_finite() && i >= 0.0) {
-                ctx.error(format!("{at}: impact of \"{}\" must be ≥ 0", add.id));
+            if !(i.is_finite() && (0.0..=super::MAX_IMPACT).contains(&i)) {
+                ctx.error(format!(
+                    "{at}: impact of \"{}\" must be a fraction from 0 to {}, not {i:?}",
+                    add.id,
+                    super::MAX_IMPACT
+                ));
             }
         }
         out.push(Change::AddCase(AddedCase {
@@ -403,11 +410,12 @@ fn axis_steps(ctx: &mut Ctx, a: &AxisFile) -> Vec<(String, Vec<Change>)> {
             .iter()
             .map(|v| {
                 let f = match v {
-                    Quantity::Number(f) if f.is_finite() => *f,
+                    Quantity::Number(f) if f.is_finite() && f.abs() <= super::MAX_FACTOR => *f,
                     other => {
                         ctx.error(format!(
-                            "{at}: scale factor {} must be a plain number",
-                            other.show()
+                            "{at}: scale factor {} must be a plain number from -{m} to {m}",
+                            other.show(),
+                            m = super::MAX_FACTOR
                         ));
                         1.0
                     }

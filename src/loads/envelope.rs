@@ -162,7 +162,7 @@ pub fn envelopes_with(
             let vehicle = &model.live.vehicles[ml.vehicle];
             let (tension, compression) = extremes(lines, vehicle, ml)?;
             let nm = model.members.len();
-            let per_member = (0..nm)
+            let per_member: Vec<MemberEnvelope> = (0..nm)
                 .map(|m| MemberEnvelope {
                     member: m,
                     id: model.members[m].id.to_string(),
@@ -171,7 +171,7 @@ pub fn envelopes_with(
                     compression: compression[m].clone(),
                 })
                 .collect();
-            let per_support = (0..model.supports.len())
+            let per_support: Vec<ReactionEnvelope> = (0..model.supports.len())
                 .map(|s| ReactionEnvelope {
                     support: s,
                     node: model.nodes[model.supports[s].node].id.clone(),
@@ -180,6 +180,7 @@ pub fn envelopes_with(
                     down: compression[nm + s].clone(),
                 })
                 .collect();
+            check_finite(model, ml, &per_member, &per_support)?;
             Ok(MovingEnvelope {
                 moving_load: ml.id.clone(),
                 vehicle: vehicle.id.clone(),
@@ -190,6 +191,33 @@ pub fn envelopes_with(
             })
         })
         .collect()
+}
+
+/// Refuse an envelope holding an overflowed value, naming where.
+fn check_finite(
+    model: &Model,
+    ml: &MovingLoad,
+    members: &[MemberEnvelope],
+    supports: &[ReactionEnvelope],
+) -> Result<(), LoadError> {
+    let bad = |of: String| LoadError::NonFinite {
+        id: ml.id.clone(),
+        of,
+    };
+    for e in members {
+        let v = [e.dead, e.max_tension(), e.max_compression()];
+        if !v.iter().all(|x| x.is_finite()) {
+            return Err(bad(format!("member \"{}\"", e.id)));
+        }
+    }
+    for (s, e) in supports.iter().enumerate() {
+        let v = [e.dead, e.up.force, e.down.force];
+        if !v.iter().all(|x| x.is_finite()) {
+            let node = &model.nodes[model.supports[s].node].id;
+            return Err(bad(format!("the reaction at \"{node}\"")));
+        }
+    }
+    Ok(())
 }
 
 /// Greatest and least effect of `vehicle` for every member force then
@@ -215,6 +243,20 @@ pub fn extremes(
         for (k, v) in lines.reaction_y(s).iter().enumerate() {
             rows[k * ne + nm + s] = *v;
         }
+    }
+    // No sum below can exceed (Σ|P|·(1 + I) + |w|·L·(1 + I))·max|η|: when that
+    // bound is finite nothing overflows, so one check here replaces a test
+    // of every value (issue 22, item 12: an overflow must not be zeroed by
+    // the round-off floor below and pass).
+    let largest = rows.iter().fold(0.0f64, |a, v| a.max(v.abs()));
+    let abs_total: f64 = vehicle.axles.iter().map(|a| a.load.abs()).sum();
+    let lane_total = vehicle.lane.unwrap_or(0.0).abs() * deck.length();
+    let bound = (abs_total + lane_total) * (1.0 + ml.impact) * largest;
+    if !bound.is_finite() {
+        return Err(LoadError::NonFinite {
+            id: ml.id.clone(),
+            of: format!("vehicle \"{}\" (its loads overflow)", vehicle.id),
+        });
     }
     let mut hi: Vec<(f64, Option<Placement>)> = vec![(0.0, None); ne];
     let mut lo: Vec<(f64, Option<Placement>)> = vec![(0.0, None); ne];
@@ -258,7 +300,6 @@ pub fn extremes(
     // Round-off floor: an effect below 1e-9 of the largest ordinate of any
     // effect times the load is noise (a zero-force member), reported as
     // zero with no placement.
-    let largest = rows.iter().fold(0.0f64, |a, v| a.max(v.abs()));
     let total: f64 = vehicle.axles.iter().map(|a| a.load).sum();
     let floor = 1e-9 * largest * total;
     for e in 0..ne {

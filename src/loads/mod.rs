@@ -93,6 +93,9 @@ pub enum LoadError {
         positions: f64,
         min: f64,
     },
+    /// An envelope value overflowed (issue 22, item 12).
+    #[error("moving load \"{id}\": the envelope of {of} is not a finite number (overflow); the axle loads or impact are out of range")]
+    NonFinite { id: String, of: String },
     #[error(transparent)]
     Analysis(#[from] AnalysisError),
 }

@@ -25,6 +25,9 @@ pub enum RateError {
     NoTensile(String),
     #[error("moving loads: {0}")]
     Loads(#[from] crate::loads::LoadError),
+    /// A combined or enveloped force overflowed (issue 22, item 12).
+    #[error("load case or combination \"{effect}\": the force of member \"{member}\" is not a finite number (overflow); the loads or factors are out of range")]
+    NonFinite { effect: String, member: String },
     #[error("member \"{member}\": {source}")]
     Capacity {
         member: String,
@@ -152,6 +155,14 @@ pub fn rate_results(
         .collect::<Result<Vec<_>, _>>()?;
     let mut effects = combine::load_effects_of(model, results);
     effects.extend(moving_effects(model, results, envelopes));
+    for e in &effects {
+        if let Some(m) = e.forces.iter().position(|f| !f.is_finite()) {
+            return Err(RateError::NonFinite {
+                effect: e.id.clone(),
+                member: model.members[m].id.to_string(),
+            });
+        }
+    }
     let dead_cases = model.dead_cases();
     let dead: Vec<f64> = (0..model.members.len())
         .map(|m| dead_cases.iter().map(|&c| results[c].forces[m]).sum())
