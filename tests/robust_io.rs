@@ -344,3 +344,41 @@ fn a_full_or_closed_standard_error_keeps_the_exit_status() {
     let (code, _) = run_with(&["solve", "/nonexistent/m.ron"], Stdio::null(), closed_pipe());
     assert_eq!(code, 2);
 }
+
+// ---- item 13: CSV formula injection ----------------------------------------
+
+#[test]
+fn formula_like_ids_are_neutralised_in_csv_and_exact_in_json() {
+    // Member ids that a spreadsheet would run as formulas.
+    let t = triangle("4.0", "1.5")
+        .replace("fy: 250.0", "fy: 250.0, fu: 400.0")
+        .replace("(id: \"AB\"", "(id: \"=1+2\"")
+        .replace("(id: \"BC\"", "(id: \"-BC\"")
+        .replace("(id: \"CA\"", "(id: \"@CA\"")
+        .replace("(id: \"C\"", "(id: \"+C\"")
+        .replace("\"C\"", "\"+C\"");
+    let d = dir("csv-inject");
+    let m = write(&d, "m.ron", &t);
+    let csv = pp(&[os("solve"), m.as_os_str(), os("--format"), os("csv")]);
+    assert_eq!(csv.code, 0, "{}", csv.stderr);
+    for line in csv.stdout.lines().skip(1) {
+        for cell in line.split(',') {
+            let c = cell.trim_start_matches('"');
+            // A cell may start with '-' only as a number.
+            if c.starts_with(['=', '+', '@']) || (c.starts_with('-') && c.parse::<f64>().is_err()) {
+                panic!("formula-like cell {cell:?} in {line:?}");
+            }
+        }
+    }
+    assert!(csv.stdout.contains(",'=1+2,"), "{}", csv.stdout);
+    assert!(csv.stdout.contains(",'+C,"), "{}", csv.stdout);
+    // A negative force stays a plain number (the apex load compresses the
+    // rafters: by statics each carries -10/(2·0.6) = -8.33 kN).
+    assert!(csv.stdout.contains(",-8.33"), "{}", csv.stdout);
+    let rate = pp(&[os("rate"), m.as_os_str(), os("--format"), os("csv")]);
+    assert_eq!(rate.code, 0, "{}", rate.stderr);
+    assert!(rate.stdout.contains("'-BC") && !rate.stdout.contains(",-BC"), "{}", rate.stdout);
+    let json = pp(&[os("solve"), m.as_os_str(), os("--format"), os("json")]);
+    assert!(json.stdout.contains("\"=1+2\"") && !json.stdout.contains("'=1+2"));
+    fs::remove_dir_all(d).unwrap();
+}
