@@ -271,3 +271,81 @@ fn a_moving_load_impact_out_of_range_is_refused() {
     let r = run_os(&[OsStr::new("envelope"), p.as_os_str()]);
     refused(&r, &["moving load \"cart\"", "from 0 to 2", "1e306"]);
 }
+
+// ---- issue 22, item 14: control and bidirectional characters ---------------
+
+/// ESC, BEL, NUL, CR, RIGHT-TO-LEFT OVERRIDE, RIGHT-TO-LEFT ISOLATE: the
+/// characters the issue lists (written raw into the file).
+const HOSTILE_CHARS: [&str; 6] = ["\u{1b}", "\u{7}", "\u{0}", "\r", "\u{202E}", "\u{2067}"];
+
+#[test]
+fn control_and_bidi_characters_in_ids_are_refused() {
+    for (k, c) in HOSTILE_CHARS.iter().enumerate() {
+        let t = triangle("4.0", "1.5").replace("(id: \"C\"", &format!("(id: \"C{c}x\""));
+        bad(&format!("bidi-node-{k}"), &t, &["node number 3", "control character or a bidirectional mark"]);
+    }
+}
+
+#[test]
+fn control_and_bidi_characters_in_vehicle_and_moving_load_ids_are_refused() {
+    let base = std::fs::read_to_string(
+        Path::new(env!("CARGO_MANIFEST_DIR")).join("models/four_panel_live.ron"),
+    )
+    .unwrap();
+    for c in ["\u{1b}", "\u{202E}"] {
+        let t = base.replace("(id: \"cart\"", &format!("(id: \"ca{c}rt\""));
+        let p = temp_model("m.ron", &t);
+        refused(&solve(&p), &["moving load id", "bidirectional mark"]);
+        let v = std::fs::read_to_string(
+            Path::new(env!("CARGO_MANIFEST_DIR")).join("models/vehicles.ron"),
+        )
+        .unwrap();
+        let p = temp_model("m.ron", &base);
+        let first = v.find("id: \"").unwrap() + 5;
+        let mut bad_v = v.clone();
+        bad_v.insert_str(first, c);
+        std::fs::write(p.with_file_name("vehicles.ron"), bad_v).unwrap();
+        refused(&solve(&p), &["vehicle number", "bidirectional mark"]);
+    }
+}
+
+#[test]
+fn control_and_bidi_characters_in_sweep_names_are_refused() {
+    let root = Path::new(env!("CARGO_MANIFEST_DIR")).join("models");
+    let d = dir("bidi-sweep");
+    std::fs::copy(root.join("millrace-footbridge.ron"), d.join("m.ron")).unwrap();
+    std::fs::copy(root.join("vehicles.ron"), d.join("vehicles.ron")).unwrap();
+    let sw = std::fs::read_to_string(root.join("millrace-sweep.ron"))
+        .unwrap()
+        .replace("maintenance cart at L3", "cart\u{202E}3L ta")
+        .replace("(name: \"crowd\"", "(name: \"cr\u{1b}[2Jowd\"");
+    let s = write(&d, "s.ron", sw);
+    let r = run_os(&[OsStr::new("sweep"), d.join("m.ron").as_os_str(), s.as_os_str()]);
+    refused(&r, &["variant number 1 name", "an axis name", "bidirectional mark"]);
+    std::fs::remove_dir_all(d).unwrap();
+}
+
+#[test]
+fn control_and_bidi_characters_in_the_title_are_removed() {
+    let t = triangle("4.0", "1.5").replace(
+        "(\n    units",
+        "(\n    title: \"Mill\u{1b}]0;pwned\u{7}race \u{202E}bridge\",\n    units",
+    );
+    let d = dir("bidi-title");
+    let p = write(&d, "m.ron", t);
+    for args in [
+        vec![OsStr::new("solve"), p.as_os_str()],
+        vec![OsStr::new("report"), p.as_os_str()],
+        vec![OsStr::new("draw"), p.as_os_str()],
+    ] {
+        let r = run_os(&args);
+        assert_eq!(r.code, 0, "{}", r.stderr);
+        for c in HOSTILE_CHARS {
+            assert!(!r.stdout.contains(c), "{c:?} reached the output of {:?}", args[0]);
+        }
+        assert!(r.stdout.contains("Mill]0;pwnedrace bridge"), "{}", &r.stdout[..r.stdout.len().min(400)]);
+    }
+    let r = solve(&p);
+    assert!(r.stderr.is_empty() || !r.stderr.contains('\u{1b}'));
+    std::fs::remove_dir_all(d).unwrap();
+}

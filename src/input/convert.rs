@@ -202,10 +202,10 @@ pub(super) fn intern<'f, T>(
                 ),
                 None,
             );
-        } else if name.chars().any(char::is_control) {
+        } else if crate::textsafe::has_unsafe(name) {
             ctx.error(
                 format!(
-                    "{kind} number {} id \"{}\" contains a control character (newline, tab ...); ids must print on one line",
+                    "{kind} number {} id \"{}\" contains a control character or a bidirectional mark (newline, tab, ESC, U+202E ...); ids must print on one line as written",
                     i + 1,
                     name.escape_debug()
                 ),
@@ -254,7 +254,7 @@ impl<'f, T: Sync> LazyIds<'f, T> {
         let good = |name: &str| {
             !name.trim().is_empty()
                 && name.chars().count() <= MAX_ID_CHARS
-                && !name.chars().any(char::is_control)
+                && !crate::textsafe::has_unsafe(name)
         };
         let hasher = rustc_hash::FxBuildHasher;
         let mut hashes: Vec<(u64, u32)> = match items
@@ -973,8 +973,18 @@ pub fn convert_deferred(
             ctx.warn(format!("node \"{}\" has no member", n.id), at);
         }
     }
+    // Free text: control characters and bidirectional marks are removed
+    // (they would reach the terminal, HTML and SVG), with a warning.
+    let mut title = file.title.unwrap_or_default();
+    if crate::textsafe::has_unsafe(&title) {
+        title = crate::textsafe::strip(&title);
+        ctx.warn(
+            "title: control characters and bidirectional marks removed".into(),
+            None,
+        );
+    }
     let model = Model {
-        title: file.title.unwrap_or_default(),
+        title,
         units,
         materials,
         sections,

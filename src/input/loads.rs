@@ -241,6 +241,15 @@ pub(super) fn live_loads(
         let at = ctx.loc.field("id", &v.id, 0);
         if v.id.trim().is_empty() {
             ctx.error(format!("vehicle number {} has an empty id", i + 1), None);
+        } else if crate::textsafe::has_unsafe(&v.id) {
+            ctx.error(
+                format!(
+                    "vehicle number {} id \"{}\" contains a control character or a bidirectional mark; ids must print on one line as written",
+                    i + 1,
+                    v.id.escape_debug()
+                ),
+                None,
+            );
         } else if vehicle_ids.insert(&v.id, i).is_some() {
             ctx.error(format!("duplicate vehicle id \"{}\"", v.id), at);
         }
@@ -303,6 +312,15 @@ pub(super) fn live_loads(
     for ml in &file.moving_loads {
         let at = ctx.loc.field("id", &ml.id, 0);
         let who = format!("moving load \"{}\"", ml.id);
+        if crate::textsafe::has_unsafe(&ml.id) {
+            ctx.error(
+                format!(
+                    "moving load id \"{}\" contains a control character or a bidirectional mark; ids must print on one line as written",
+                    ml.id.escape_debug()
+                ),
+                None,
+            );
+        }
         if seen.insert(&ml.id, ()).is_some() {
             ctx.error(format!("duplicate moving load id \"{}\"", ml.id), at);
         }

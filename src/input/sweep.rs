@@ -476,6 +476,7 @@ pub fn load_sweep(text: &str, model: &Model) -> Result<Sweep, Diagnostics> {
             .name
             .clone()
             .unwrap_or_else(|| format!("variant {}", i + 1));
+        printable(&mut ctx, &name, &format!("variant number {}", i + 1));
         let (changes, parameters) = changes(&mut ctx, v, &format!("variant \"{name}\""));
         sweep.variants.push(Variant {
             name,
@@ -487,7 +488,15 @@ pub fn load_sweep(text: &str, model: &Model) -> Result<Sweep, Diagnostics> {
         let axes: Vec<Axis> = file
             .axes
             .iter()
-            .map(|a| (a.name.clone(), axis_steps(&mut ctx, a)))
+            .map(|a| {
+                printable(&mut ctx, &a.name, "an axis");
+                for st in &a.steps {
+                    if let Some(n) = &st.name {
+                        printable(&mut ctx, n, &format!("axis \"{}\" step", a.name.escape_debug()));
+                    }
+                }
+                (a.name.clone(), axis_steps(&mut ctx, a))
+            })
             .collect();
         let total = axes
             .iter()
@@ -508,6 +517,17 @@ pub fn load_sweep(text: &str, model: &Model) -> Result<Sweep, Diagnostics> {
         Ok(sweep)
     } else {
         Err(Diagnostics { errors: ctx.errors })
+    }
+}
+
+/// Sweep names reach the terminal, CSV and JSON: control characters and
+/// bidirectional marks are refused (issue 22, item 14).
+fn printable(ctx: &mut Ctx, name: &str, what: &str) {
+    if crate::textsafe::has_unsafe(name) {
+        ctx.error(format!(
+            "{what} name \"{}\" contains a control character or a bidirectional mark; names must print on one line as written",
+            name.escape_debug()
+        ));
     }
 }
 
