@@ -382,3 +382,71 @@ fn formula_like_ids_are_neutralised_in_csv_and_exact_in_json() {
     assert!(json.stdout.contains("\"=1+2\"") && !json.stdout.contains("'=1+2"));
     fs::remove_dir_all(d).unwrap();
 }
+
+// ---- item 7: bounded reads -------------------------------------------------
+
+#[test]
+fn devices_fifos_and_folders_are_refused_as_inputs_without_hanging() {
+    let d = scratch("reads");
+    let m = four_panel(&d);
+    let fifo = d.join("pipe.ron");
+    mkfifo(&fifo);
+    // The model: /dev/zero would be read until memory runs out, a FIFO with
+    // no writer would block for ever.
+    for (path, needle) in [
+        (Path::new("/dev/zero"), "a device"),
+        (Path::new("/dev/urandom"), "a device"),
+        (fifo.as_path(), "a FIFO"),
+        (d.as_path(), "a folder"),
+    ] {
+        refused(&pp(&[os("validate"), path.as_os_str()]), &["cannot read", needle]);
+        // The sweep file.
+        refused(
+            &pp(&[os("sweep"), m.as_os_str(), path.as_os_str()]),
+            &["cannot read", needle],
+        );
+    }
+    // The vehicles file (allowed outside the folder, still refused).
+    let t = fs::read_to_string(&m)
+        .unwrap()
+        .replace("vehicles_file: \"vehicles.ron\"", "vehicles_file: \"/dev/zero\"");
+    let z = write(&d, "z.ron", t);
+    refused(
+        &pp(&[os("--allow-outside-files"), os("validate"), z.as_os_str()]),
+        &["vehicles_file \"/dev/zero\"", "a device"],
+    );
+    fs::remove_dir_all(d).unwrap();
+}
+
+// ---- item 8: vehicles_file stays in the model's folder -----------------------
+
+#[test]
+fn a_vehicles_file_outside_the_models_folder_is_refused_unless_allowed() {
+    let d = scratch("outside");
+    let sub = d.join("model");
+    fs::create_dir_all(&sub).unwrap();
+    fs::copy(repo("vehicles.ron"), sub.join("vehicles.ron")).unwrap();
+    let text = fs::read_to_string(four_panel(&d)).unwrap();
+    let with = |v: &str| text.replace("vehicles_file: \"vehicles.ron\"", &format!("vehicles_file: \"{v}\""));
+    // Inside (the same folder): fine, whatever the current folder is.
+    let ok = write(&sub, "ok.ron", with("vehicles.ron"));
+    assert_eq!(pp(&[os("validate"), ok.as_os_str()]).code, 0);
+    // `..`, an absolute path and a symlink leading out are refused.
+    let up = write(&sub, "up.ron", with("../vehicles.ron"));
+    refused(&pp(&[os("validate"), up.as_os_str()]), &["outside the model's folder", "--allow-outside-files"]);
+    let abs = write(&sub, "abs.ron", with(d.join("vehicles.ron").to_str().unwrap()));
+    refused(&pp(&[os("validate"), abs.as_os_str()]), &["outside the model's folder"]);
+    std::os::unix::fs::symlink(d.join("vehicles.ron"), sub.join("link.ron")).unwrap();
+    let link = write(&sub, "link-model.ron", with("link.ron"));
+    refused(&pp(&[os("validate"), link.as_os_str()]), &["outside the model's folder"]);
+    // The explicit option allows it.
+    let r = pp(&[os("--allow-outside-files"), os("validate"), up.as_os_str()]);
+    assert_eq!(r.code, 0, "{}", r.stderr);
+    // A file that is not RON is never quoted in the error.
+    let secret = write(&d, "secret", "root:x:0:0:hunter2:/root:/bin/sh\n");
+    let s = write(&sub, "s.ron", with(secret.to_str().unwrap()));
+    let r = pp(&[os("--allow-outside-files"), os("validate"), s.as_os_str()]);
+    refused(&r, &["vehicles_file", "line 1, column 1"]);
+    assert!(!r.stderr.contains("root") && !r.stderr.contains("hunter2"), "{}", r.stderr);
+    fs::remove_dir_all(d).unwrap();
+}

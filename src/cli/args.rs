@@ -15,6 +15,9 @@ the owner's rating rules and licensed practice govern."
 pub struct Cli {
     #[command(subcommand)]
     pub command: Command,
+    /// Let a model's vehicles_file name a file outside the model's folder.
+    #[arg(long, global = true)]
+    pub allow_outside_files: bool,
 }
 
 #[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]

@@ -26,7 +26,7 @@ pub fn load(path: &Path) -> Result<Converted, Error> {
 /// runs it beside the analysis.
 fn load_deferred(path: &Path) -> Result<(Converted, input::convert::CrossingCheck), Error> {
     super::guard::input(path);
-    let bytes = crate::timing::stage("read file", || std::fs::read(path)).map_err(|source| {
+    let bytes = crate::timing::stage("read file", || input::file::read_bounded(path)).map_err(|source| {
         Error::Read {
             path: path.to_path_buf(),
             source,
@@ -106,6 +106,7 @@ fn warnings_to_stderr(path: &Path, model: &[input::Diagnostic], analysis: &[Stri
 
 /// Run a command; `Ok` carries the exit status of a successful run.
 pub fn run(cli: Cli) -> Result<u8, Error> {
+    input::allow_outside_files(cli.allow_outside_files);
     match cli.command {
         Command::Validate { model } => {
             let c = load(&model)?;

@@ -174,9 +174,19 @@ pub fn sweep(a: SweepArgs) -> Result<u8, Error> {
     let model = &c.model;
     let curve = rate::choose_curve(model, a.curve.as_deref()).map_err(Error::Usage)?;
     super::guard::input(&a.sweep);
-    let text = fs::read_to_string(&a.sweep).map_err(|source| Error::Read {
+    let bytes = input::file::read_bounded(&a.sweep).map_err(|source| Error::Read {
         path: a.sweep.clone(),
         source,
+    })?;
+    let text = String::from_utf8(bytes).map_err(|e| Error::Read {
+        path: a.sweep.clone(),
+        source: io::Error::new(
+            io::ErrorKind::InvalidData,
+            format!(
+                "the file is not UTF-8 text (bad byte at offset {})",
+                e.utf8_error().valid_up_to()
+            ),
+        ),
     })?;
     let sw = input::sweep::load_sweep(&text, model).map_err(|diagnostics| Error::Model {
         path: a.sweep.clone(),

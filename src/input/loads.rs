@@ -408,8 +408,70 @@ fn single(message: String) -> Diagnostics {
     }
 }
 
-/// Read `vehicles_file` (relative to `dir`, the model file's folder, or the
-/// current folder) and append its vehicles to the model's own.
+static ALLOW_OUTSIDE: std::sync::atomic::AtomicBool = std::sync::atomic::AtomicBool::new(false);
+
+/// Let a model's `vehicles_file` name a file outside the model's folder
+/// (the CLI's `--allow-outside-files`; off by default, issue 22 item 8).
+pub fn allow_outside_files(on: bool) {
+    ALLOW_OUTSIDE.store(on, std::sync::atomic::Ordering::Relaxed);
+}
+
+/// Where `vehicles_file` `name` is: relative to `dir` (the model file's
+/// folder, or the current folder), and inside it (symlinks resolved) unless
+/// [`allow_outside_files`] was set.
+fn vehicles_path(name: &str, dir: Option<&Path>) -> Result<std::path::PathBuf, Diagnostics> {
+    let dir = match dir {
+        Some(d) if !d.as_os_str().is_empty() => d.to_path_buf(),
+        _ => std::path::PathBuf::from("."),
+    };
+    let path = dir.join(name);
+    let cannot = |e: std::io::Error| {
+        single(format!(
+            "vehicles_file \"{name}\": cannot read {}: {e}",
+            path.display()
+        ))
+    };
+    if ALLOW_OUTSIDE.load(std::sync::atomic::Ordering::Relaxed) {
+        return Ok(path);
+    }
+    let real_dir = std::fs::canonicalize(&dir).map_err(cannot)?;
+    let real = std::fs::canonicalize(&path).map_err(cannot)?;
+    if !real.starts_with(&real_dir) {
+        return Err(single(format!(
+            "vehicles_file \"{name}\" is outside the model's folder ({}); a model reads files only \
+             from its own folder and below (pass --allow-outside-files to allow it)",
+            real_dir.display()
+        )));
+    }
+    Ok(path)
+}
+
+/// A RON error without any text of the file: a file that is not a vehicles
+/// file (say `/etc/shadow`) must not be quoted in the message. Everything
+/// between quotes or backticks in the parser's message is left out.
+fn redacted(code: &str) -> String {
+    let mut out = String::with_capacity(code.len());
+    let mut inside: Option<char> = None;
+    for c in code.chars() {
+        match inside {
+            Some(q) if c == q => {
+                inside = None;
+                out.push('…');
+                out.push(c);
+            }
+            Some(_) => {}
+            None if c == '`' || c == '"' || c == '\'' => {
+                inside = Some(c);
+                out.push(c);
+            }
+            None => out.push(c),
+        }
+    }
+    out
+}
+
+/// Read `vehicles_file` (see [`vehicles_path`]) with the bounds of
+/// [`super::file`] and append its vehicles to the model's own.
 pub(super) fn merge_vehicles_file(
     file: &mut ModelFile,
     dir: Option<&Path>,
@@ -417,27 +479,29 @@ pub(super) fn merge_vehicles_file(
     let Some(name) = file.vehicles_file.clone() else {
         return Ok(None);
     };
-    let path = match dir {
-        Some(d) => d.join(&name),
-        None => Path::new(&name).to_path_buf(),
-    };
-    let text = std::fs::read_to_string(&path).map_err(|e| {
+    let path = vehicles_path(&name, dir)?;
+    let bytes = super::file::read_bounded(&path).map_err(|e| {
         single(format!(
             "vehicles_file \"{name}\": cannot read {}: {e}",
             path.display()
         ))
     })?;
-    if text.len() > super::MAX_FILE_BYTES {
-        return Err(single(format!("vehicles_file \"{name}\" is too large")));
-    }
+    let text = String::from_utf8(bytes).map_err(|e| {
+        single(format!(
+            "vehicles_file \"{name}\": not UTF-8 text (bad byte at offset {})",
+            e.utf8_error().valid_up_to()
+        ))
+    })?;
     let options = ron::Options::default()
         .with_default_extension(ron::extensions::Extensions::IMPLICIT_SOME)
         .with_recursion_limit(64);
     let more: VehiclesFile = options.from_str(&text).map_err(|e| {
         let pos = e.span.start;
         single(format!(
-            "vehicles_file \"{name}\": line {}, column {}: syntax: {}",
-            pos.line, pos.col, e.code
+            "vehicles_file \"{name}\": line {}, column {}: syntax: {} (not a vehicles file?)",
+            pos.line,
+            pos.col,
+            redacted(&e.code.to_string())
         ))
     })?;
     file.vehicles.extend(more.vehicles);

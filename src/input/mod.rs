@@ -5,6 +5,7 @@
 mod bulk;
 pub mod convert;
 pub mod diagnostics;
+pub mod file;
 mod loads;
 pub mod parts;
 pub mod quantity;
@@ -14,6 +15,7 @@ mod sections;
 pub mod sweep;
 
 pub use convert::Converted;
+pub use loads::allow_outside_files;
 pub use diagnostics::{Diagnostic, Diagnostics, Severity};
 
 /// Largest model file accepted, bytes; a guard against feeding the loader
