@@ -349,3 +349,116 @@ fn control_and_bidi_characters_in_the_title_are_removed() {
     assert!(r.stderr.is_empty() || !r.stderr.contains('\u{1b}'));
     std::fs::remove_dir_all(d).unwrap();
 }
+
+// ---- issue 22, items 9 and 10: work and memory bounded ---------------------
+
+#[test]
+fn new_bounds_panels_and_extent() {
+    // usize::MAX panels used to panic ("capacity overflow").
+    let r = run_os(&[
+        OsStr::new("new"),
+        OsStr::new("pratt"),
+        OsStr::new("--panels"),
+        OsStr::new("18446744073709551615"),
+        OsStr::new("--panel-width"),
+        OsStr::new("10"),
+        OsStr::new("--height"),
+        OsStr::new("8"),
+    ]);
+    refused(&r, &["at most 100000 panels"]);
+    // A model the loader would refuse (coordinates beyond ±1e8 m) is not written.
+    let r = run_os(&[
+        OsStr::new("new"),
+        OsStr::new("pratt"),
+        OsStr::new("--panels"),
+        OsStr::new("10"),
+        OsStr::new("--panel-width"),
+        OsStr::new("1e300"),
+        OsStr::new("--height"),
+        OsStr::new("8"),
+    ]);
+    refused(&r, &["coordinate bound"]);
+}
+
+#[test]
+fn a_block_solve_larger_than_memory_is_refused_before_allocating() {
+    use panelpoint::generate::{generate, Family, GenerateOptions, UnitSystem};
+    // A 200-panel Pratt: about 400 nodes and 800 free DOF.
+    let layout = generate(&GenerateOptions {
+        family: Family::Pratt,
+        panels: 200,
+        panel_width: 10.0,
+        height: 8.0,
+        panel_load: Some(1.0),
+        units: UnitSystem::Us,
+        top_heights: None,
+    })
+    .unwrap();
+    let text = panelpoint::input::ron_writer::layout_to_ron(&layout);
+    let model = panelpoint::input::load_str(&text).unwrap().model;
+    let prepared = panelpoint::analysis::results::Prepared::new(&model).unwrap();
+    // Enough copies of the case that 8 bytes × cases × (DOF + 2·nodes +
+    // members) is twice the machine's memory.
+    let per_case = 8.0 * (prepared.n() + 2 * model.nodes.len() + model.members.len()) as f64;
+    let cases = (2.0 * panelpoint::analysis::results::physical_memory() as f64 / per_case) as usize + 1;
+    let many = vec![panelpoint::model::LoadCase::default(); cases];
+    match prepared.solve_cases(&model, &many) {
+        Err(e) => {
+            let m = e.to_string();
+            assert!(m.contains("GiB") && m.contains("load cases"), "{m}");
+        }
+        Ok(_) => panic!("{cases} cases were solved: the estimate did not stop it"),
+    }
+}
+
+#[test]
+fn a_vehicle_with_very_many_axles_is_refused_with_useful_advice() {
+    // 20,000 axles 1 ft apart on the 72 ft four-panel deck: 20,000 × 5 deck
+    // nodes = 100,000 axle-on-node positions, × 20,000 axles = 2e9 axle
+    // placements, beyond the 2e7 limit whatever the step.
+    let axles: String = (0..20_000)
+        .map(|i| if i == 0 { "(load: \"1 kip\")".to_string() } else { "(load: \"1 kip\", spacing: \"1 ft\")".to_string() })
+        .collect::<Vec<_>>()
+        .join(", ");
+    let text = std::fs::read_to_string(
+        Path::new(env!("CARGO_MANIFEST_DIR")).join("models/four_panel_live.ron"),
+    )
+    .unwrap()
+    .replace(
+        "vehicles: [",
+        &format!("vehicles: [(id: \"train\", axles: [{axles}]),"),
+    )
+    .replace(
+        "moving_loads: [",
+        "moving_loads: [(id: \"long\", vehicle: \"train\", step: \"1 ft\"),",
+    );
+    let p = temp_model("m.ron", &text);
+    let r = run_os(&[OsStr::new("envelope"), p.as_os_str()]);
+    refused(&r, &["moving load \"long\"", "20000 axles", "group close axles"]);
+}
+
+// ---- issue 22, item 11: a negative pivot is the model's ill-conditioning ---
+
+#[test]
+fn a_negative_pivot_is_an_ill_conditioning_error_naming_the_node() {
+    // The issue's reproduction: 400 panels of 10 ft, 0.01 ft deep (span /
+    // depth = 400,000): the Jacobi-scaled K loses positive definiteness in
+    // floating point. It used to exit 1, "internal".
+    let d = dir("negative-pivot");
+    let m = d.join("m.ron");
+    let r = run_os(&[
+        OsStr::new("new"),
+        OsStr::new("pratt"),
+        OsStr::new("--panels"),
+        OsStr::new("400"),
+        OsStr::new("--panel-width"),
+        OsStr::new("10"),
+        OsStr::new("--height"),
+        OsStr::new("0.01"),
+        OsStr::new("--out"),
+        m.as_os_str(),
+    ]);
+    assert_eq!(r.code, 0, "{}", r.stderr);
+    refused(&solve(&m), &["too ill-conditioned to factor", "at node \""]);
+    std::fs::remove_dir_all(d).unwrap();
+}

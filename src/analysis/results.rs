@@ -25,12 +25,55 @@ pub enum AnalysisError {
         relative: f64,
         limit: f64,
     },
+    #[error("the stiffness matrix is too ill-conditioned to factor: it lost positive definiteness at node \"{node}\" ({direction}); look there for a nearly flat or nearly collinear layout or members of very different stiffness")]
+    IllConditioned { node: String, direction: String },
     #[error("the sparse factorization failed for want of memory or a malformed matrix")]
     Internal,
     /// A force, displacement or reaction overflowed (issue 22, item 12): an
     /// error rather than a number the checks would treat as zero.
     #[error("load case \"{case}\": a {what} is not a finite number (overflow); the loads, properties or factors are out of range")]
     NonFinite { case: String, what: &'static str },
+    /// A job whose memory, estimated before allocating, exceeds the
+    /// machine's (issue 22, item 9).
+    #[error("{what} needs about {needed_gib:.1} GiB, more than this machine's {available_gib:.1} GiB of memory; {advice}")]
+    TooLarge {
+        what: String,
+        needed_gib: f64,
+        available_gib: f64,
+        advice: &'static str,
+    },
+}
+
+/// The machine's physical memory, bytes (`u64::MAX` when unknown).
+pub fn physical_memory() -> u64 {
+    // SAFETY: sysconf has no preconditions.
+    let (pages, size) = unsafe {
+        (
+            libc::sysconf(libc::_SC_PHYS_PAGES),
+            libc::sysconf(libc::_SC_PAGESIZE),
+        )
+    };
+    if pages > 0 && size > 0 {
+        (pages as u64).saturating_mul(size as u64)
+    } else {
+        u64::MAX
+    }
+}
+
+/// Refuse a job of `needed` bytes (computed in f64, so no overflow) above
+/// the physical memory, before anything is allocated.
+pub fn check_memory(needed: f64, what: impl FnOnce() -> String, advice: &'static str) -> Result<(), AnalysisError> {
+    let available = physical_memory() as f64;
+    if needed > available {
+        const GIB: f64 = 1024.0 * 1024.0 * 1024.0;
+        return Err(AnalysisError::TooLarge {
+            what: what(),
+            needed_gib: needed / GIB,
+            available_gib: available / GIB,
+            advice,
+        });
+    }
+    Ok(())
 }
 
 /// The results of one load case, all in SI.
@@ -80,6 +123,10 @@ fn mechanism(model: &Model, dofs: &Dofs, e: FactorError) -> AnalysisError {
             node: model.nodes[dofs.node[dof] as usize].id.clone(),
             direction: dofs.direction_name(dof),
             pivot_ratio,
+        },
+        FactorError::NotPositive { dof } => AnalysisError::IllConditioned {
+            node: model.nodes[dofs.node[dof] as usize].id.clone(),
+            direction: dofs.direction_name(dof),
         },
         FactorError::Internal => AnalysisError::Internal,
     }
@@ -203,7 +250,22 @@ impl Prepared {
         let n = self.n();
         let extra = extra.filter(|e| e.len() == n);
         let columns = cases.len() + usize::from(extra.is_some());
-        let mut rhs = vec![0.0; n * columns];
+        // The block of right-hand sides and each case's results (nodes ×
+        // 2 displacements, member forces, support reactions), 8 bytes each.
+        let per_case = n + 2 * model.nodes.len() + model.members.len() + 2 * model.supports.len();
+        check_memory(
+            8.0 * columns as f64 * per_case as f64,
+            || format!("solving {} load cases of {n} degrees of freedom at once", cases.len()),
+            "split the load cases over several model files or sweep shards",
+        )?;
+        let mut rhs = Vec::new();
+        rhs.try_reserve_exact(n * columns).map_err(|_| AnalysisError::TooLarge {
+            what: format!("solving {} load cases of {n} degrees of freedom", cases.len()),
+            needed_gib: 8.0 * (n * columns) as f64 / (1u64 << 30) as f64,
+            available_gib: physical_memory() as f64 / (1u64 << 30) as f64,
+            advice: "the memory could not be allocated; split the load cases",
+        })?;
+        rhs.resize(n * columns, 0.0);
         for (c, case) in cases.iter().enumerate() {
             self.load_vector(model, case, &mut rhs[c * n..(c + 1) * n]);
         }
