@@ -414,6 +414,30 @@ impl Prepared {
 /// single-threaded ordering): the layout warnings and the power iteration
 /// for λmax of the condition estimate. The first inverse-iteration step of
 /// the estimate is solved in the same block as the load cases.
+/// The smallest-pivot warning of a factorization, if it is ill-conditioned.
+fn pivot_warning(model: &Model, prepared: &Prepared) -> Option<String> {
+    let ratio = prepared.factor.min_pivot_ratio;
+    (ratio < CONDITION_WARNING_RATIO).then(|| {
+        let dof = prepared.factor.min_pivot_dof;
+        format!(
+            "ill-conditioned stiffness: smallest pivot ratio {ratio:.1e} at node \"{}\" ({}); about {:.0} of 16 digits may be lost",
+            model.nodes[prepared.dofs.node[dof] as usize].id,
+            prepared.dofs.direction_name(dof),
+            (1.0 / ratio).log10()
+        )
+    })
+}
+
+/// The analysis warnings a command that only factors (influence lines,
+/// envelopes) can give without solving the load cases: the smallest pivot
+/// and the layout checks (near-mechanism, shallow layout). The condition
+/// estimate needs the cases' block solve and is left to `analyse`.
+pub fn prepared_warnings(model: &Model, prepared: &Prepared) -> Vec<String> {
+    let mut w: Vec<String> = pivot_warning(model, prepared).into_iter().collect();
+    w.extend(super::conditioning::layout_warnings(model, &prepared.dofs));
+    w
+}
+
 pub fn analyse(model: &Model) -> Result<Analysis, AnalysisError> {
     analyse_beside(model, || ()).0
 }
@@ -459,17 +483,7 @@ fn analyse_with(model: &Model, beside: impl FnOnce() + Send) -> Result<Analysis,
     let (cases, first) = stage("solve + member forces", || {
         prepared.solve_cases_with(model, &model.cases, probe)
     })?;
-    let mut warnings = Vec::new();
-    let ratio = prepared.factor.min_pivot_ratio;
-    if ratio < CONDITION_WARNING_RATIO {
-        let dof = prepared.factor.min_pivot_dof;
-        warnings.push(format!(
-            "ill-conditioned stiffness: smallest pivot ratio {ratio:.1e} at node \"{}\" ({}); about {:.0} of 16 digits may be lost",
-            model.nodes[prepared.dofs.node[dof] as usize].id,
-            prepared.dofs.direction_name(dof),
-            (1.0 / ratio).log10()
-        ));
-    }
+    let mut warnings: Vec<String> = pivot_warning(model, &prepared).into_iter().collect();
     warnings.extend(layout_warnings);
     let estimate = stage("condition estimate", || {
         lambda_max.and_then(|l| conditioning::estimate_with(&prepared, l, first))

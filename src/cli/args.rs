@@ -122,7 +122,7 @@ pub enum Command {
         #[arg(long)]
         height: f64,
         /// Downward load at every interior bottom panel point, case "panel".
-        #[arg(long)]
+        #[arg(long, allow_negative_numbers = true)]
         panel_load: Option<f64>,
         /// us (ft, kip, in, ksi) or si (m, kN, mm, MPa).
         #[arg(long, default_value = "us")]

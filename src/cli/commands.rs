@@ -96,7 +96,7 @@ fn free_in_background<T: Send + 'static>(big: T) {
 
 /// CSV carries numbers only: the model's and the analysis's warnings go to
 /// stderr instead, one line each, as `validate` prints them.
-fn warnings_to_stderr(path: &Path, model: &[input::Diagnostic], analysis: &[String]) {
+pub(super) fn warnings_to_stderr(path: &Path, model: &[input::Diagnostic], analysis: &[String]) {
     let mut err = std::io::stderr();
     let all = model.iter().map(|d| d.to_string());
     for d in all.chain(analysis.iter().cloned()) {

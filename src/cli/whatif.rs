@@ -234,10 +234,13 @@ pub fn sweep(a: SweepArgs) -> Result<u8, Error> {
         );
         bar
     });
+    let (mut rows, mut failed) = (0usize, 0usize);
     let result = writer
         .header(&mut sink.w, model, sw.variants.len(), &shard_text)
         .and_then(|_| {
             sweep::run(model, &sw, &indices, &opts, |row| {
+                rows += 1;
+                failed += usize::from(row.outcome.is_err());
                 writer.row(&mut sink.w, &row)?;
                 if let Some(p) = &progress {
                     p.inc(1);
@@ -252,6 +255,16 @@ pub fn sweep(a: SweepArgs) -> Result<u8, Error> {
     match result {
         Ok(()) => {
             sink.finish().map_err(werr)?;
+            // Every row an error (a model without fy, say): the output is
+            // kept, but the run did not rate anything (issue 22, item 16).
+            if rows > 0 && failed == rows {
+                let _ = writeln!(
+                    io::stderr(),
+                    "panelpoint: error: {}: every one of the {rows} variants failed (see the error column); nothing was rated",
+                    a.sweep.display()
+                );
+                return Ok(2);
+            }
             Ok(0)
         }
         Err(e) => {

@@ -692,7 +692,22 @@ pub fn convert_deferred(
             SupportKindFile::InclinedRoller { angle } => {
                 let what = format!("inclined roller at node \"{}\" angle", s.node);
                 match value(&mut ctx, angle, Dimension::Angle, u, &what, None) {
-                    Some(a) => Restraint::InclinedRoller { angle: a },
+                    // Beyond one turn either way the number is a mistake
+                    // (1e300° used to be accepted; issue 22, item 16).
+                    Some(a) if a.abs() <= 2.0 * std::f64::consts::PI => {
+                        Restraint::InclinedRoller { angle: a }
+                    }
+                    Some(a) => {
+                        let at = ctx.loc.field("node", &s.node, 0);
+                        ctx.error(
+                            format!(
+                                "{what} {:.3e}° is beyond ±360°",
+                                a.to_degrees()
+                            ),
+                            at,
+                        );
+                        continue;
+                    }
                     None => continue,
                 }
             }

@@ -501,14 +501,19 @@ pub fn load_sweep(text: &str, model: &Model) -> Result<Sweep, Diagnostics> {
         let total = axes
             .iter()
             .try_fold(1usize, |acc, (_, s)| acc.checked_mul(s.len()))
-            .filter(|&t| t <= MAX_VARIANTS);
+            .filter(|&t| t + sweep.variants.len() <= MAX_VARIANTS);
         match total {
             None => ctx.error(format!(
-                "the axes expand to more than {MAX_VARIANTS} variants; split the sweep"
+                "the listed variants and the axes' product make more than {MAX_VARIANTS} variants; split the sweep"
             )),
             Some(_) if ctx.errors.is_empty() => product(&axes, &mut sweep),
             Some(_) => {}
         }
+    }
+    if sweep.variants.len() > MAX_VARIANTS {
+        ctx.error(format!(
+            "the sweep lists more than {MAX_VARIANTS} variants; split the sweep"
+        ));
     }
     if sweep.variants.is_empty() {
         ctx.error("the sweep has no variants (give variants or axes)".into());
