@@ -39,12 +39,17 @@ mod tests {
 
     #[test]
     fn controls_and_bidi_are_caught_and_stripped() {
-        for c in ['\u{1b}', '\u{7}', '\0', '\r', '\u{85}', '\u{202E}', '\u{2067}', '\u{200F}'] {
+        for c in [
+            '\u{1b}', '\u{7}', '\0', '\r', '\u{85}', '\u{202E}', '\u{2067}', '\u{200F}',
+        ] {
             assert!(unsafe_char(c), "{:?}", c);
         }
         for c in ['a', 'Ω', '✓', ' ', '"', '\u{00E9}'] {
             assert!(!unsafe_char(c), "{:?}", c);
         }
-        assert_eq!(strip("Mill\u{1b}[31mrace\u{202E}\tbridge\u{7}"), "Mill[31mrace bridge");
+        assert_eq!(
+            strip("Mill\u{1b}[31mrace\u{202E}\tbridge\u{7}"),
+            "Mill[31mrace bridge"
+        );
     }
 }

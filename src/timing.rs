@@ -4,8 +4,8 @@
 //! without a profiler. Off by default; when off a stage costs one load of a
 //! cached flag.
 
-use std::sync::OnceLock;
 use std::io::Write;
+use std::sync::OnceLock;
 use std::time::Instant;
 
 fn enabled() -> bool {

@@ -266,7 +266,10 @@ fn a_moving_load_impact_out_of_range_is_refused() {
         Path::new(env!("CARGO_MANIFEST_DIR")).join("models/four_panel_live.ron"),
     )
     .unwrap()
-    .replace("step: \"1 ft\", impact: 0.10", "step: \"1 ft\", impact: 1e306");
+    .replace(
+        "step: \"1 ft\", impact: 0.10",
+        "step: \"1 ft\", impact: 1e306",
+    );
     let p = temp_model("m.ron", &text);
     let r = run_os(&[OsStr::new("envelope"), p.as_os_str()]);
     refused(&r, &["moving load \"cart\"", "from 0 to 2", "1e306"]);
@@ -282,7 +285,11 @@ const HOSTILE_CHARS: [&str; 6] = ["\u{1b}", "\u{7}", "\u{0}", "\r", "\u{202E}", 
 fn control_and_bidi_characters_in_ids_are_refused() {
     for (k, c) in HOSTILE_CHARS.iter().enumerate() {
         let t = triangle("4.0", "1.5").replace("(id: \"C\"", &format!("(id: \"C{c}x\""));
-        bad(&format!("bidi-node-{k}"), &t, &["node number 3", "control character or a bidirectional mark"]);
+        bad(
+            &format!("bidi-node-{k}"),
+            &t,
+            &["node number 3", "control character or a bidirectional mark"],
+        );
     }
 }
 
@@ -320,8 +327,19 @@ fn control_and_bidi_characters_in_sweep_names_are_refused() {
         .replace("maintenance cart at L3", "cart\u{202E}3L ta")
         .replace("(name: \"crowd\"", "(name: \"cr\u{1b}[2Jowd\"");
     let s = write(&d, "s.ron", sw);
-    let r = run_os(&[OsStr::new("sweep"), d.join("m.ron").as_os_str(), s.as_os_str()]);
-    refused(&r, &["variant number 1 name", "an axis name", "bidirectional mark"]);
+    let r = run_os(&[
+        OsStr::new("sweep"),
+        d.join("m.ron").as_os_str(),
+        s.as_os_str(),
+    ]);
+    refused(
+        &r,
+        &[
+            "variant number 1 name",
+            "an axis name",
+            "bidirectional mark",
+        ],
+    );
     std::fs::remove_dir_all(d).unwrap();
 }
 
@@ -341,9 +359,17 @@ fn control_and_bidi_characters_in_the_title_are_removed() {
         let r = run_os(&args);
         assert_eq!(r.code, 0, "{}", r.stderr);
         for c in HOSTILE_CHARS {
-            assert!(!r.stdout.contains(c), "{c:?} reached the output of {:?}", args[0]);
+            assert!(
+                !r.stdout.contains(c),
+                "{c:?} reached the output of {:?}",
+                args[0]
+            );
         }
-        assert!(r.stdout.contains("Mill]0;pwnedrace bridge"), "{}", &r.stdout[..r.stdout.len().min(400)]);
+        assert!(
+            r.stdout.contains("Mill]0;pwnedrace bridge"),
+            "{}",
+            &r.stdout[..r.stdout.len().min(400)]
+        );
     }
     let r = solve(&p);
     assert!(r.stderr.is_empty() || !r.stderr.contains('\u{1b}'));
@@ -400,7 +426,8 @@ fn a_block_solve_larger_than_memory_is_refused_before_allocating() {
     // Enough copies of the case that 8 bytes × cases × (DOF + 2·nodes +
     // members) is twice the machine's memory.
     let per_case = 8.0 * (prepared.n() + 2 * model.nodes.len() + model.members.len()) as f64;
-    let cases = (2.0 * panelpoint::analysis::results::physical_memory() as f64 / per_case) as usize + 1;
+    let cases =
+        (2.0 * panelpoint::analysis::results::physical_memory() as f64 / per_case) as usize + 1;
     let many = vec![panelpoint::model::LoadCase::default(); cases];
     match prepared.solve_cases(&model, &many) {
         Err(e) => {
@@ -417,7 +444,13 @@ fn a_vehicle_with_very_many_axles_is_refused_with_useful_advice() {
     // nodes = 100,000 axle-on-node positions, × 20,000 axles = 2e9 axle
     // placements, beyond the 2e7 limit whatever the step.
     let axles: String = (0..20_000)
-        .map(|i| if i == 0 { "(load: \"1 kip\")".to_string() } else { "(load: \"1 kip\", spacing: \"1 ft\")".to_string() })
+        .map(|i| {
+            if i == 0 {
+                "(load: \"1 kip\")".to_string()
+            } else {
+                "(load: \"1 kip\", spacing: \"1 ft\")".to_string()
+            }
+        })
         .collect::<Vec<_>>()
         .join(", ");
     let text = std::fs::read_to_string(
@@ -434,7 +467,10 @@ fn a_vehicle_with_very_many_axles_is_refused_with_useful_advice() {
     );
     let p = temp_model("m.ron", &text);
     let r = run_os(&[OsStr::new("envelope"), p.as_os_str()]);
-    refused(&r, &["moving load \"long\"", "20000 axles", "group close axles"]);
+    refused(
+        &r,
+        &["moving load \"long\"", "20000 axles", "group close axles"],
+    );
 }
 
 // ---- issue 22, item 11: a negative pivot is the model's ill-conditioning ---
@@ -484,18 +520,30 @@ fn influence_reports_the_analysis_warnings_in_every_format() {
     for f in ["text", "json"] {
         let r = args(f);
         assert_eq!(r.code, 0, "{}", r.stderr);
-        assert!(r.stdout.contains("near-mechanism at node"), "{f}: {}", r.stdout);
+        assert!(
+            r.stdout.contains("near-mechanism at node"),
+            "{f}: {}",
+            r.stdout
+        );
     }
     let r = args("csv");
     assert_eq!(r.code, 0, "{}", r.stderr);
-    assert!(r.stderr.contains("warning") && r.stderr.contains("near-mechanism"), "{}", r.stderr);
+    assert!(
+        r.stderr.contains("warning") && r.stderr.contains("near-mechanism"),
+        "{}",
+        r.stderr
+    );
     std::fs::remove_dir_all(d).unwrap();
 }
 
 #[test]
 fn an_inclined_roller_angle_beyond_a_turn_is_refused() {
     let t = triangle("4.0", "1.5").replace("kind: Roller", "kind: InclinedRoller(angle: 1e300)");
-    bad("angle", &t, &["inclined roller at node \"B\" angle", "beyond ±360°"]);
+    bad(
+        "angle",
+        &t,
+        &["inclined roller at node \"B\" angle", "beyond ±360°"],
+    );
 }
 
 #[test]
@@ -518,7 +566,11 @@ fn new_accepts_a_negative_panel_load_without_equals() {
     assert!(r.stdout.contains("fy: 5"), "{}", r.stdout);
 }
 
-fn millrace_sweep(name: &str, model_edit: impl Fn(String) -> String, sweep_edit: impl Fn(String) -> String) -> Run {
+fn millrace_sweep(
+    name: &str,
+    model_edit: impl Fn(String) -> String,
+    sweep_edit: impl Fn(String) -> String,
+) -> Run {
     let root = Path::new(env!("CARGO_MANIFEST_DIR")).join("models");
     let d = dir(name);
     let m = model_edit(std::fs::read_to_string(root.join("millrace-footbridge.ron")).unwrap());
@@ -526,7 +578,13 @@ fn millrace_sweep(name: &str, model_edit: impl Fn(String) -> String, sweep_edit:
     std::fs::copy(root.join("vehicles.ron"), d.join("vehicles.ron")).unwrap();
     let s = sweep_edit(std::fs::read_to_string(root.join("millrace-sweep.ron")).unwrap());
     let s = write(&d, "s.ron", s);
-    run_os(&[OsStr::new("sweep"), m.as_os_str(), s.as_os_str(), OsStr::new("--format"), OsStr::new("csv")])
+    run_os(&[
+        OsStr::new("sweep"),
+        m.as_os_str(),
+        s.as_os_str(),
+        OsStr::new("--format"),
+        OsStr::new("csv"),
+    ])
 }
 
 #[test]
@@ -541,32 +599,64 @@ fn a_sweep_whose_every_row_failed_exits_non_zero() {
                     .collect::<Vec<_>>()
                     .join(",")
             };
-            m.lines().map(|l| if l.contains("fy:") && l.contains("id:") { re_fy(l) } else { l.to_string() }).collect::<Vec<_>>().join("\n")
+            m.lines()
+                .map(|l| {
+                    if l.contains("fy:") && l.contains("id:") {
+                        re_fy(l)
+                    } else {
+                        l.to_string()
+                    }
+                })
+                .collect::<Vec<_>>()
+                .join("\n")
         },
-        |s| s.replace("(name: \"weaker steel\", material_properties: [(material: \"medium-steel\", fy: \"30 ksi\")]),", ""),
+        |s| {
+            s.replace("(name: \"weaker steel\", material_properties: [(material: \"medium-steel\", fy: \"30 ksi\")]),", "")
+        },
     );
-    assert_eq!(r.code, 2, "stdout: {}\nstderr: {}", &r.stdout[..r.stdout.len().min(500)], r.stderr);
+    assert_eq!(
+        r.code,
+        2,
+        "stdout: {}\nstderr: {}",
+        &r.stdout[..r.stdout.len().min(500)],
+        r.stderr
+    );
     assert!(r.stderr.contains("every one of the"), "{}", r.stderr);
 }
 
 #[test]
 fn a_sweep_move_beyond_the_coordinate_bound_fails_its_row() {
-    let r = millrace_sweep("sweep-move", |m| m, |s| s.replace("dy: \"1 ft\"", "dy: \"1e300 ft\""));
+    let r = millrace_sweep(
+        "sweep-move",
+        |m| m,
+        |s| s.replace("dy: \"1 ft\"", "dy: \"1e300 ft\""),
+    );
     assert_eq!(r.code, 0, "{}", r.stderr);
-    assert!(r.stdout.contains("after the moves is beyond"), "{}", r.stdout);
+    assert!(
+        r.stdout.contains("after the moves is beyond"),
+        "{}",
+        r.stdout
+    );
 }
 
 #[test]
 fn the_variant_cap_counts_listed_variants_and_the_axes_together() {
     // Two scale axes of 1,000 values: a product of exactly 1,000,000 (the
     // cap), plus the base variant listed first: 1,000,001, one too many.
-    let values = (1..=1000).map(|i| format!("{:?}", i as f64 / 100.0)).collect::<Vec<_>>().join(", ");
-    let r = millrace_sweep("sweep-cap", |m| m, |_| {
-        format!(
-            "(model: \"m.ron\", include_base: true, axes: [\n\
+    let values = (1..=1000)
+        .map(|i| format!("{:?}", i as f64 / 100.0))
+        .collect::<Vec<_>>()
+        .join(", ");
+    let r = millrace_sweep(
+        "sweep-cap",
+        |m| m,
+        |_| {
+            format!(
+                "(model: \"m.ron\", include_base: true, axes: [\n\
              (name: \"a\", scale: \"crowd\", values: [{values}]),\n\
              (name: \"b\", scale: \"crowd\", values: [{values}]),\n])"
-        )
-    });
+            )
+        },
+    );
     refused(&r, &["more than 1000000 variants"]);
 }

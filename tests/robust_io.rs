@@ -12,7 +12,9 @@ use std::fs;
 use std::path::{Path, PathBuf};
 
 fn repo(name: &str) -> PathBuf {
-    Path::new(env!("CARGO_MANIFEST_DIR")).join("models").join(name)
+    Path::new(env!("CARGO_MANIFEST_DIR"))
+        .join("models")
+        .join(name)
 }
 
 /// A fresh folder holding copies of the repository's models.
@@ -69,7 +71,14 @@ fn out_naming_the_model_is_refused_and_the_model_kept() {
     // So is a symlink to it.
     let sym = d.join("sym.ron");
     std::os::unix::fs::symlink(&m, &sym).unwrap();
-    let r = pp(&[os("solve"), m.as_os_str(), os("--format"), os("json"), os("--out"), sym.as_os_str()]);
+    let r = pp(&[
+        os("solve"),
+        m.as_os_str(),
+        os("--format"),
+        os("json"),
+        os("--out"),
+        sym.as_os_str(),
+    ]);
     refused(&r, &["same file as the input"]);
     assert_eq!(fs::read(&m).unwrap(), before);
     // A different output file is fine.
@@ -87,7 +96,11 @@ fn out_naming_the_vehicles_file_is_refused() {
     let before = fs::read(&v).unwrap();
     let r = pp(&[os("envelope"), m.as_os_str(), os("--out"), v.as_os_str()]);
     refused(&r, &["same file as the input", "vehicles.ron"]);
-    assert_eq!(fs::read(&v).unwrap(), before, "the vehicles file was replaced");
+    assert_eq!(
+        fs::read(&v).unwrap(),
+        before,
+        "the vehicles file was replaced"
+    );
     fs::remove_dir_all(d).unwrap();
 }
 
@@ -97,10 +110,22 @@ fn out_naming_the_sweep_file_is_refused() {
     let m = d.join("millrace-footbridge.ron");
     let s = d.join("millrace-sweep.ron");
     let before = fs::read(&s).unwrap();
-    let r = pp(&[os("sweep"), m.as_os_str(), s.as_os_str(), os("--out"), s.as_os_str()]);
+    let r = pp(&[
+        os("sweep"),
+        m.as_os_str(),
+        s.as_os_str(),
+        os("--out"),
+        s.as_os_str(),
+    ]);
     refused(&r, &["same file as the input", "millrace-sweep.ron"]);
     assert_eq!(fs::read(&s).unwrap(), before, "the sweep file was replaced");
-    let r = pp(&[os("sweep"), m.as_os_str(), s.as_os_str(), os("--out"), m.as_os_str()]);
+    let r = pp(&[
+        os("sweep"),
+        m.as_os_str(),
+        s.as_os_str(),
+        os("--out"),
+        m.as_os_str(),
+    ]);
     refused(&r, &["same file as the input", "millrace-footbridge.ron"]);
     fs::remove_dir_all(d).unwrap();
 }
@@ -122,7 +147,10 @@ fn a_device_target_is_written_not_replaced() {
     let m = four_panel(&d);
     let r = solve_to(&m, Path::new("/dev/null"));
     assert_eq!(r.code, 0, "{}", r.stderr);
-    assert!(fs::metadata("/dev/null").unwrap().file_type().is_char_device());
+    assert!(fs::metadata("/dev/null")
+        .unwrap()
+        .file_type()
+        .is_char_device());
     if is_root() {
         // A device node of our own (the null device, major 1 minor 3).
         let node = d.join("fakenull");
@@ -133,7 +161,10 @@ fn a_device_target_is_written_not_replaced() {
         let r = solve_to(&m, &node);
         assert_eq!(r.code, 0, "{}", r.stderr);
         let ft = fs::symlink_metadata(&node).unwrap().file_type();
-        assert!(ft.is_char_device(), "the device node was replaced by a regular file");
+        assert!(
+            ft.is_char_device(),
+            "the device node was replaced by a regular file"
+        );
     } else {
         eprintln!("skipped the mknod case: not root");
     }
@@ -147,7 +178,11 @@ fn dev_stdout_on_a_pipe_is_written_directly() {
     // The test harness gives the child a pipe for standard output.
     let r = solve_to(&m, Path::new("/dev/stdout"));
     assert_eq!(r.code, 0, "{}", r.stderr);
-    assert!(r.stdout.contains("U1L1") || r.stdout.contains("member"), "{}", r.stdout);
+    assert!(
+        r.stdout.contains("U1L1") || r.stdout.contains("member"),
+        "{}",
+        r.stdout
+    );
     fs::remove_dir_all(d).unwrap();
 }
 
@@ -197,7 +232,10 @@ fn a_symlinked_target_is_followed_and_a_dangling_one_refused() {
     std::os::unix::fs::symlink(&real, &link).unwrap();
     let r = solve_to(&m, &link);
     assert_eq!(r.code, 0, "{}", r.stderr);
-    assert!(fs::symlink_metadata(&link).unwrap().file_type().is_symlink());
+    assert!(fs::symlink_metadata(&link)
+        .unwrap()
+        .file_type()
+        .is_symlink());
     assert!(fs::read_to_string(&real).unwrap().contains("Screening"));
     // Dangling: the file it points to is not created.
     let nowhere = d.join("nowhere.txt");
@@ -282,13 +320,20 @@ fn a_partial_file_held_by_another_run_is_refused_a_stale_one_reused() {
     assert!(!text.contains("stale rows"), "{text}");
     // 40 axis variants + 6 listed + the base = 47 rows (docs/sweeps.md's
     // example, counted by hand from models/millrace-sweep.ron) + header.
-    assert!(text.lines().filter(|l| !l.starts_with('#')).count() >= 47, "{text}");
+    assert!(
+        text.lines().filter(|l| !l.starts_with('#')).count() >= 47,
+        "{text}"
+    );
     fs::remove_dir_all(d).unwrap();
 }
 
 // ---- item 15: a failing standard output or error --------------------------
 
-fn run_with(args: &[&str], stdout: std::process::Stdio, stderr: std::process::Stdio) -> (i32, String) {
+fn run_with(
+    args: &[&str],
+    stdout: std::process::Stdio,
+    stderr: std::process::Stdio,
+) -> (i32, String) {
     let out = std::process::Command::new(env!("CARGO_BIN_EXE_panelpoint"))
         .args(args)
         .stdout(stdout)
@@ -302,7 +347,11 @@ fn run_with(args: &[&str], stdout: std::process::Stdio, stderr: std::process::St
 }
 
 fn dev_full() -> std::process::Stdio {
-    fs::OpenOptions::new().write(true).open("/dev/full").unwrap().into()
+    fs::OpenOptions::new()
+        .write(true)
+        .open("/dev/full")
+        .unwrap()
+        .into()
 }
 
 /// The write end of a pipe whose read end is already closed.
@@ -339,9 +388,17 @@ fn a_full_or_closed_standard_error_keeps_the_exit_status() {
     use std::process::Stdio;
     // A missing model is bad input: exit 2 even when the message cannot be
     // printed (a panic would be 101).
-    let (code, _) = run_with(&["validate", "/nonexistent/m.ron"], Stdio::null(), dev_full());
+    let (code, _) = run_with(
+        &["validate", "/nonexistent/m.ron"],
+        Stdio::null(),
+        dev_full(),
+    );
     assert_eq!(code, 2);
-    let (code, _) = run_with(&["solve", "/nonexistent/m.ron"], Stdio::null(), closed_pipe());
+    let (code, _) = run_with(
+        &["solve", "/nonexistent/m.ron"],
+        Stdio::null(),
+        closed_pipe(),
+    );
     assert_eq!(code, 2);
 }
 
@@ -377,7 +434,11 @@ fn formula_like_ids_are_neutralised_in_csv_and_exact_in_json() {
     assert!(csv.stdout.contains(",-8.33"), "{}", csv.stdout);
     let rate = pp(&[os("rate"), m.as_os_str(), os("--format"), os("csv")]);
     assert_eq!(rate.code, 0, "{}", rate.stderr);
-    assert!(rate.stdout.contains("'-BC") && !rate.stdout.contains(",-BC"), "{}", rate.stdout);
+    assert!(
+        rate.stdout.contains("'-BC") && !rate.stdout.contains(",-BC"),
+        "{}",
+        rate.stdout
+    );
     let json = pp(&[os("solve"), m.as_os_str(), os("--format"), os("json")]);
     assert!(json.stdout.contains("\"=1+2\"") && !json.stdout.contains("'=1+2"));
     fs::remove_dir_all(d).unwrap();
@@ -399,7 +460,10 @@ fn devices_fifos_and_folders_are_refused_as_inputs_without_hanging() {
         (fifo.as_path(), "a FIFO"),
         (d.as_path(), "a folder"),
     ] {
-        refused(&pp(&[os("validate"), path.as_os_str()]), &["cannot read", needle]);
+        refused(
+            &pp(&[os("validate"), path.as_os_str()]),
+            &["cannot read", needle],
+        );
         // The sweep file.
         refused(
             &pp(&[os("sweep"), m.as_os_str(), path.as_os_str()]),
@@ -407,9 +471,10 @@ fn devices_fifos_and_folders_are_refused_as_inputs_without_hanging() {
         );
     }
     // The vehicles file (allowed outside the folder, still refused).
-    let t = fs::read_to_string(&m)
-        .unwrap()
-        .replace("vehicles_file: \"vehicles.ron\"", "vehicles_file: \"/dev/zero\"");
+    let t = fs::read_to_string(&m).unwrap().replace(
+        "vehicles_file: \"vehicles.ron\"",
+        "vehicles_file: \"/dev/zero\"",
+    );
     let z = write(&d, "z.ron", t);
     refused(
         &pp(&[os("--allow-outside-files"), os("validate"), z.as_os_str()]),
@@ -427,18 +492,36 @@ fn a_vehicles_file_outside_the_models_folder_is_refused_unless_allowed() {
     fs::create_dir_all(&sub).unwrap();
     fs::copy(repo("vehicles.ron"), sub.join("vehicles.ron")).unwrap();
     let text = fs::read_to_string(four_panel(&d)).unwrap();
-    let with = |v: &str| text.replace("vehicles_file: \"vehicles.ron\"", &format!("vehicles_file: \"{v}\""));
+    let with = |v: &str| {
+        text.replace(
+            "vehicles_file: \"vehicles.ron\"",
+            &format!("vehicles_file: \"{v}\""),
+        )
+    };
     // Inside (the same folder): fine, whatever the current folder is.
     let ok = write(&sub, "ok.ron", with("vehicles.ron"));
     assert_eq!(pp(&[os("validate"), ok.as_os_str()]).code, 0);
     // `..`, an absolute path and a symlink leading out are refused.
     let up = write(&sub, "up.ron", with("../vehicles.ron"));
-    refused(&pp(&[os("validate"), up.as_os_str()]), &["outside the model's folder", "--allow-outside-files"]);
-    let abs = write(&sub, "abs.ron", with(d.join("vehicles.ron").to_str().unwrap()));
-    refused(&pp(&[os("validate"), abs.as_os_str()]), &["outside the model's folder"]);
+    refused(
+        &pp(&[os("validate"), up.as_os_str()]),
+        &["outside the model's folder", "--allow-outside-files"],
+    );
+    let abs = write(
+        &sub,
+        "abs.ron",
+        with(d.join("vehicles.ron").to_str().unwrap()),
+    );
+    refused(
+        &pp(&[os("validate"), abs.as_os_str()]),
+        &["outside the model's folder"],
+    );
     std::os::unix::fs::symlink(d.join("vehicles.ron"), sub.join("link.ron")).unwrap();
     let link = write(&sub, "link-model.ron", with("link.ron"));
-    refused(&pp(&[os("validate"), link.as_os_str()]), &["outside the model's folder"]);
+    refused(
+        &pp(&[os("validate"), link.as_os_str()]),
+        &["outside the model's folder"],
+    );
     // The explicit option allows it.
     let r = pp(&[os("--allow-outside-files"), os("validate"), up.as_os_str()]);
     assert_eq!(r.code, 0, "{}", r.stderr);
@@ -447,6 +530,10 @@ fn a_vehicles_file_outside_the_models_folder_is_refused_unless_allowed() {
     let s = write(&sub, "s.ron", with(secret.to_str().unwrap()));
     let r = pp(&[os("--allow-outside-files"), os("validate"), s.as_os_str()]);
     refused(&r, &["vehicles_file", "line 1, column 1"]);
-    assert!(!r.stderr.contains("root") && !r.stderr.contains("hunter2"), "{}", r.stderr);
+    assert!(
+        !r.stderr.contains("root") && !r.stderr.contains("hunter2"),
+        "{}",
+        r.stderr
+    );
     fs::remove_dir_all(d).unwrap();
 }

@@ -62,7 +62,11 @@ pub fn physical_memory() -> u64 {
 
 /// Refuse a job of `needed` bytes (computed in f64, so no overflow) above
 /// the physical memory, before anything is allocated.
-pub fn check_memory(needed: f64, what: impl FnOnce() -> String, advice: &'static str) -> Result<(), AnalysisError> {
+pub fn check_memory(
+    needed: f64,
+    what: impl FnOnce() -> String,
+    advice: &'static str,
+) -> Result<(), AnalysisError> {
     let available = physical_memory() as f64;
     if needed > available {
         const GIB: f64 = 1024.0 * 1024.0 * 1024.0;
@@ -255,16 +259,25 @@ impl Prepared {
         let per_case = n + 2 * model.nodes.len() + model.members.len() + 2 * model.supports.len();
         check_memory(
             8.0 * columns as f64 * per_case as f64,
-            || format!("solving {} load cases of {n} degrees of freedom at once", cases.len()),
+            || {
+                format!(
+                    "solving {} load cases of {n} degrees of freedom at once",
+                    cases.len()
+                )
+            },
             "split the load cases over several model files or sweep shards",
         )?;
         let mut rhs = Vec::new();
-        rhs.try_reserve_exact(n * columns).map_err(|_| AnalysisError::TooLarge {
-            what: format!("solving {} load cases of {n} degrees of freedom", cases.len()),
-            needed_gib: 8.0 * (n * columns) as f64 / (1u64 << 30) as f64,
-            available_gib: physical_memory() as f64 / (1u64 << 30) as f64,
-            advice: "the memory could not be allocated; split the load cases",
-        })?;
+        rhs.try_reserve_exact(n * columns)
+            .map_err(|_| AnalysisError::TooLarge {
+                what: format!(
+                    "solving {} load cases of {n} degrees of freedom",
+                    cases.len()
+                ),
+                needed_gib: 8.0 * (n * columns) as f64 / (1u64 << 30) as f64,
+                available_gib: physical_memory() as f64 / (1u64 << 30) as f64,
+                advice: "the memory could not be allocated; split the load cases",
+            })?;
         rhs.resize(n * columns, 0.0);
         for (c, case) in cases.iter().enumerate() {
             self.load_vector(model, case, &mut rhs[c * n..(c + 1) * n]);

@@ -26,12 +26,12 @@ pub fn load(path: &Path) -> Result<Converted, Error> {
 /// runs it beside the analysis.
 fn load_deferred(path: &Path) -> Result<(Converted, input::convert::CrossingCheck), Error> {
     super::guard::input(path);
-    let bytes = crate::timing::stage("read file", || input::file::read_bounded(path)).map_err(|source| {
-        Error::Read {
+    let bytes = crate::timing::stage("read file", || input::file::read_bounded(path)).map_err(
+        |source| Error::Read {
             path: path.to_path_buf(),
             source,
-        }
-    })?;
+        },
+    )?;
     let text = String::from_utf8(bytes).map_err(|e| Error::Model {
         path: path.to_path_buf(),
         diagnostics: input::Diagnostics {

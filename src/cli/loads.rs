@@ -24,12 +24,15 @@ fn prepare(
     if format == Format::Csv {
         super::commands::warnings_to_stderr(path, &c.warnings, &warnings);
     }
-    c.warnings
-        .extend(warnings.into_iter().map(|message| crate::input::Diagnostic {
-            severity: crate::input::Severity::Warning,
-            message,
-            location: None,
-        }));
+    c.warnings.extend(
+        warnings
+            .into_iter()
+            .map(|message| crate::input::Diagnostic {
+                severity: crate::input::Severity::Warning,
+                message,
+                location: None,
+            }),
+    );
     Ok(p)
 }
 

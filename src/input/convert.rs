@@ -700,10 +700,7 @@ pub fn convert_deferred(
                     Some(a) => {
                         let at = ctx.loc.field("node", &s.node, 0);
                         ctx.error(
-                            format!(
-                                "{what} {:.3e}° is beyond ±360°",
-                                a.to_degrees()
-                            ),
+                            format!("{what} {:.3e}° is beyond ±360°", a.to_degrees()),
                             at,
                         );
                         continue;

@@ -15,8 +15,8 @@ mod sections;
 pub mod sweep;
 
 pub use convert::Converted;
-pub use loads::allow_outside_files;
 pub use diagnostics::{Diagnostic, Diagnostics, Severity};
+pub use loads::allow_outside_files;
 
 /// Largest model file accepted, bytes; a guard against feeding the loader
 /// something that is not a model at all.

@@ -492,7 +492,11 @@ pub fn load_sweep(text: &str, model: &Model) -> Result<Sweep, Diagnostics> {
                 printable(&mut ctx, &a.name, "an axis");
                 for st in &a.steps {
                     if let Some(n) = &st.name {
-                        printable(&mut ctx, n, &format!("axis \"{}\" step", a.name.escape_debug()));
+                        printable(
+                            &mut ctx,
+                            n,
+                            &format!("axis \"{}\" step", a.name.escape_debug()),
+                        );
                     }
                 }
                 (a.name.clone(), axis_steps(&mut ctx, a))

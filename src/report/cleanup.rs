@@ -64,7 +64,12 @@ impl Registered {
         let raw = c.into_raw();
         for (i, slot) in PATHS.iter().enumerate() {
             if slot
-                .compare_exchange(std::ptr::null_mut(), raw, Ordering::SeqCst, Ordering::SeqCst)
+                .compare_exchange(
+                    std::ptr::null_mut(),
+                    raw,
+                    Ordering::SeqCst,
+                    Ordering::SeqCst,
+                )
                 .is_ok()
             {
                 return Registered { slot: Some(i) };

@@ -92,7 +92,10 @@ mod injection {
         assert_eq!(field("\tx"), "'\tx");
         assert_eq!(field("\rx"), "\"'\rx\"");
         // Quoting still applies after the apostrophe.
-        assert_eq!(field("=HYPERLINK(\"a\",\"b\")"), "\"'=HYPERLINK(\"\"a\"\",\"\"b\"\")\"");
+        assert_eq!(
+            field("=HYPERLINK(\"a\",\"b\")"),
+            "\"'=HYPERLINK(\"\"a\"\",\"\"b\"\")\""
+        );
         // Ordinary text is untouched, and a negative number stays a number.
         assert_eq!(field("U1-L2"), "U1-L2");
         assert_eq!(num(-2.5), "-2.5");
