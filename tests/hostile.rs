@@ -660,3 +660,74 @@ fn the_variant_cap_counts_listed_variants_and_the_axes_together() {
     );
     refused(&r, &["more than 1000000 variants"]);
 }
+
+#[test]
+fn a_report_larger_than_memory_is_refused_before_building_it() {
+    // A 250-panel Pratt (about 500 nodes, 1,000 members) with enough load
+    // cases that the page, at the 1.5 kB per effect × (members + nodes)
+    // measured on the repository's footbridge, needs twice the machine's
+    // memory: refused with a message instead of aborting.
+    let d = dir("report-mem");
+    let m = d.join("m.ron");
+    let r = run_os(&[
+        OsStr::new("new"),
+        OsStr::new("pratt"),
+        OsStr::new("--panels"),
+        OsStr::new("250"),
+        OsStr::new("--panel-width"),
+        OsStr::new("10"),
+        OsStr::new("--height"),
+        OsStr::new("8"),
+        OsStr::new("--panel-load"),
+        OsStr::new("5"),
+        OsStr::new("--out"),
+        m.as_os_str(),
+    ]);
+    assert_eq!(r.code, 0, "{}", r.stderr);
+    let text = std::fs::read_to_string(&m).unwrap();
+    let per_effect = 2.0 * 1500.0 * 1500.0;
+    let mem = panelpoint::analysis::results::physical_memory() as f64;
+    let cases = (2.0 * mem / per_effect) as usize + 1;
+    let mut extra = String::with_capacity(cases * 48);
+    for i in 0..cases {
+        extra.push_str(&format!("(id: \"c{i}\", loads: [(node: \"L1\", fy: -1.0)]),\n"));
+    }
+    let text = text.replace("load_cases: [", &format!("load_cases: [{extra}"));
+    std::fs::write(&m, text).unwrap();
+    let out = d.join("r.html");
+    let r = run_os(&[OsStr::new("report"), m.as_os_str(), OsStr::new("--out"), out.as_os_str()]);
+    refused(&r, &["HTML report", "GiB", "--format csv"]);
+    assert!(!out.exists());
+    std::fs::remove_dir_all(d).unwrap();
+}
+
+#[test]
+fn a_sweep_whose_expansion_exceeds_memory_is_refused_before_expanding() {
+    // 1,000 scale values × 1,000 steps = 10^6 variants (the cap, no base);
+    // one step carries k section changes, and every variant holding the
+    // largest step of each axis is how the estimate counts: k is chosen so
+    // that 10^6 × k × size_of::<Change>() exceeds half the machine's memory.
+    let change = std::mem::size_of::<panelpoint::sweep::Change>() as f64;
+    let mem = panelpoint::analysis::results::physical_memory() as f64;
+    let k = (mem / 2.0 / (1e6 * change)) as usize + 1;
+    let big = vec!["(\"U1-L2\", \"post\")"; k].join(", ");
+    let mut steps = vec![format!("(name: \"big\", sections: [{big}])")];
+    steps.extend((1..1000).map(|i| format!("(name: \"s{i}\")")));
+    let values = (1..=1000)
+        .map(|i| format!("{:?}", i as f64 / 100.0))
+        .collect::<Vec<_>>()
+        .join(", ");
+    let r = millrace_sweep(
+        "sweep-mem",
+        |m| m,
+        |_| {
+            format!(
+                "(include_base: false, axes: [\n\
+                 (name: \"a\", scale: \"crowd\", values: [{values}]),\n\
+                 (name: \"b\", steps: [{}]),\n])",
+                steps.join(",\n")
+            )
+        },
+    );
+    refused(&r, &["1000000 variants", "GiB"]);
+}

@@ -355,6 +355,22 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
         Command::Report { model, out, curve } => {
             let c = load(&model)?;
             let m = &c.model;
+            // The page holds table rows and a drawing per effect: about
+            // 1.5 kB per effect × (members + nodes) (measured: 323 kB for
+            // models/millrace-footbridge.ron, 7 effects × 33, rounded up);
+            // twice that is built in memory at most. Refused before
+            // building it when above the machine's memory (issue 22, item
+            // 9: 10^6 cases used to abort).
+            let effects = (m.cases.len() + m.combinations.len() + 2 * m.live.moving.len()).max(1);
+            analysis::results::check_memory(
+                2.0 * 1500.0 * effects as f64 * (m.members.len() + m.nodes.len()) as f64,
+                || format!("the HTML report of {effects} load effects × {} members", m.members.len()),
+                "rate the model with --format csv, or split its load cases",
+            )
+            .map_err(|source| Error::Analysis {
+                path: model.clone(),
+                source,
+            })?;
             let chosen = rate::choose_curve(m, curve.as_deref()).map_err(Error::Usage)?;
             let a = analysis::analyse(m).map_err(|source| Error::Analysis {
                 path: model.clone(),

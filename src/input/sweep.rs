@@ -510,7 +510,31 @@ pub fn load_sweep(text: &str, model: &Model) -> Result<Sweep, Diagnostics> {
             None => ctx.error(format!(
                 "the listed variants and the axes' product make more than {MAX_VARIANTS} variants; split the sweep"
             )),
-            Some(_) if ctx.errors.is_empty() => product(&axes, &mut sweep),
+            Some(t) if ctx.errors.is_empty() => {
+                // Each variant of the product holds a copy of one step's
+                // changes per axis: estimated before expanding, so a small
+                // file cannot demand more memory than the machine has
+                // (issue 22, item 9).
+                let per_variant: usize = axes
+                    .iter()
+                    .map(|(n, steps)| {
+                        let most = steps.iter().map(|(l, c)| l.len() + c.len() * std::mem::size_of::<Change>()).max();
+                        n.len() + most.unwrap_or(0) + 64
+                    })
+                    .sum::<usize>()
+                    + std::mem::size_of::<Variant>();
+                let needed = t as f64 * per_variant as f64;
+                let available = crate::analysis::results::physical_memory() as f64;
+                if needed > available / 2.0 {
+                    ctx.error(format!(
+                        "the axes expand to {t} variants needing about {:.1} GiB, more than half this machine's {:.1} GiB; split the sweep or use fewer changes per step",
+                        needed / (1u64 << 30) as f64,
+                        available / (1u64 << 30) as f64
+                    ));
+                } else {
+                    product(&axes, &mut sweep)
+                }
+            }
             Some(_) => {}
         }
     }
