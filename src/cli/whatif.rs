@@ -201,7 +201,7 @@ pub fn sweep(a: SweepArgs) -> Result<u8, Error> {
     if a.jobs == Some(0) {
         return Err(Error::Usage("--jobs must be at least 1".into()));
     }
-    let indices = sweep::shard_indices(sw.variants.len(), shard);
+    let indices = sweep::shard_indices(sw.len(), shard);
     let opts = RunOptions {
         curve,
         jobs: a.jobs,
@@ -236,7 +236,7 @@ pub fn sweep(a: SweepArgs) -> Result<u8, Error> {
     });
     let (mut rows, mut failed) = (0usize, 0usize);
     let result = writer
-        .header(&mut sink.w, model, sw.variants.len(), &shard_text)
+        .header(&mut sink.w, model, sw.len(), &shard_text)
         .and_then(|_| {
             sweep::run(model, &sw, &indices, &opts, |row| {
                 rows += 1;

@@ -7,7 +7,9 @@ use super::diagnostics::{Diagnostic, Diagnostics, Severity};
 use super::quantity::Quantity;
 use super::schema::{CaseKindFile, NodalLoadFile};
 use crate::model::{CaseKind, Model};
-use crate::sweep::{AddedCase, Change, DepthNodes, MaterialProps, SectionProps, Sweep, Variant};
+use crate::sweep::{
+    AddedCase, Axis, Change, DepthNodes, MaterialProps, SectionProps, Sweep, Variant,
+};
 use crate::units::Dimension;
 use serde::Deserialize;
 
@@ -510,31 +512,9 @@ pub fn load_sweep(text: &str, model: &Model) -> Result<Sweep, Diagnostics> {
             None => ctx.error(format!(
                 "the listed variants and the axes' product make more than {MAX_VARIANTS} variants; split the sweep"
             )),
-            Some(t) if ctx.errors.is_empty() => {
-                // Each variant of the product holds a copy of one step's
-                // changes per axis: estimated before expanding, so a small
-                // file cannot demand more memory than the machine has
-                // (issue 22, item 9).
-                let per_variant: usize = axes
-                    .iter()
-                    .map(|(n, steps)| {
-                        let most = steps.iter().map(|(l, c)| l.len() + c.len() * std::mem::size_of::<Change>()).max();
-                        n.len() + most.unwrap_or(0) + 64
-                    })
-                    .sum::<usize>()
-                    + std::mem::size_of::<Variant>();
-                let needed = t as f64 * per_variant as f64;
-                let available = crate::analysis::results::physical_memory() as f64;
-                if needed > available / 2.0 {
-                    ctx.error(format!(
-                        "the axes expand to {t} variants needing about {:.1} GiB, more than half this machine's {:.1} GiB; split the sweep or use fewer changes per step",
-                        needed / (1u64 << 30) as f64,
-                        available / (1u64 << 30) as f64
-                    ));
-                } else {
-                    product(&axes, &mut sweep)
-                }
-            }
+            // The product is not expanded: `Sweep::variant` builds each
+            // variant when it runs.
+            Some(_) if ctx.errors.is_empty() => sweep.axes = axes,
             Some(_) => {}
         }
     }
@@ -543,7 +523,7 @@ pub fn load_sweep(text: &str, model: &Model) -> Result<Sweep, Diagnostics> {
             "the sweep lists more than {MAX_VARIANTS} variants; split the sweep"
         ));
     }
-    if sweep.variants.is_empty() {
+    if sweep.is_empty() {
         ctx.error("the sweep has no variants (give variants or axes)".into());
     }
     if ctx.errors.is_empty() {
@@ -564,30 +544,3 @@ fn printable(ctx: &mut Ctx, name: &str, what: &str) {
     }
 }
 
-/// An axis: its name and its steps (label, changes).
-type Axis = (String, Vec<(String, Vec<Change>)>);
-
-/// Every combination of axis steps, the last axis varying fastest.
-fn product(axes: &[Axis], sweep: &mut Sweep) {
-    let total: usize = axes.iter().map(|(_, s)| s.len()).product();
-    for mut k in 0..total {
-        let mut pick = vec![0; axes.len()];
-        for (a, (_, steps)) in axes.iter().enumerate().rev() {
-            pick[a] = k % steps.len();
-            k /= steps.len();
-        }
-        let mut v = Variant::default();
-        for (a, (name, steps)) in axes.iter().enumerate() {
-            let (label, changes) = &steps[pick[a]];
-            v.parameters.push((name.clone(), label.clone()));
-            v.changes.extend(changes.iter().cloned());
-        }
-        v.name = v
-            .parameters
-            .iter()
-            .map(|(_, l)| l.as_str())
-            .collect::<Vec<_>>()
-            .join(" / ");
-        sweep.variants.push(v);
-    }
-}
