@@ -690,12 +690,19 @@ fn a_report_larger_than_memory_is_refused_before_building_it() {
     let cases = (2.0 * mem / per_effect) as usize + 1;
     let mut extra = String::with_capacity(cases * 48);
     for i in 0..cases {
-        extra.push_str(&format!("(id: \"c{i}\", loads: [(node: \"L1\", fy: -1.0)]),\n"));
+        extra.push_str(&format!(
+            "(id: \"c{i}\", loads: [(node: \"L1\", fy: -1.0)]),\n"
+        ));
     }
     let text = text.replace("load_cases: [", &format!("load_cases: [{extra}"));
     std::fs::write(&m, text).unwrap();
     let out = d.join("r.html");
-    let r = run_os(&[OsStr::new("report"), m.as_os_str(), OsStr::new("--out"), out.as_os_str()]);
+    let r = run_os(&[
+        OsStr::new("report"),
+        m.as_os_str(),
+        OsStr::new("--out"),
+        out.as_os_str(),
+    ]);
     refused(&r, &["HTML report", "GiB", "--format csv"]);
     assert!(!out.exists());
     std::fs::remove_dir_all(d).unwrap();
@@ -722,7 +729,9 @@ fn a_large_sweep_product_is_not_expanded_in_memory() {
     );
     let root = Path::new(env!("CARGO_MANIFEST_DIR")).join("models");
     let model_text = std::fs::read_to_string(root.join("millrace-footbridge.ron")).unwrap();
-    let model = panelpoint::input::load_str_in(&model_text, Some(&root)).unwrap().model;
+    let model = panelpoint::input::load_str_in(&model_text, Some(&root))
+        .unwrap()
+        .model;
     let sw = panelpoint::input::sweep::load_sweep(&text, &model).unwrap();
     assert!(sw.variants.is_empty(), "the product was expanded");
     assert_eq!(sw.len(), 1_000_000);

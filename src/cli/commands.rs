@@ -364,7 +364,12 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             let effects = (m.cases.len() + m.combinations.len() + 2 * m.live.moving.len()).max(1);
             analysis::results::check_memory(
                 2.0 * 1500.0 * effects as f64 * (m.members.len() + m.nodes.len()) as f64,
-                || format!("the HTML report of {effects} load effects × {} members", m.members.len()),
+                || {
+                    format!(
+                        "the HTML report of {effects} load effects × {} members",
+                        m.members.len()
+                    )
+                },
                 "rate the model with --format csv, or split its load cases",
             )
             .map_err(|source| Error::Analysis {

@@ -95,7 +95,7 @@ struct Sink {
 
 enum Dest {
     Stdout(io::Stdout),
-    File(fs::File, report::atomic::Streamed),
+    File(fs::File, Box<report::atomic::Streamed>),
 }
 
 /// The name an interrupted sweep's rows are kept under.
@@ -111,7 +111,7 @@ impl Sink {
             None => Dest::Stdout(io::stdout()),
             Some(p) => {
                 let s = report::atomic::Streamed::open(p, &partial_path(p))?;
-                Dest::File(s.writer()?, s)
+                Dest::File(s.writer()?, Box::new(s))
             }
         };
         Ok(Sink {

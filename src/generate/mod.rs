@@ -328,7 +328,7 @@ fn validate(opts: &GenerateOptions) -> Result<(), GenerateError> {
         .fold(opts.height, |a, &v| a.max(v));
     let extent = (n as f64 * opts.panel_width).max(top) * unit;
     let max = crate::input::convert::MAX_COORDINATE;
-    if !(extent <= max) {
+    if extent.is_nan() || extent > max {
         return Err(GenerateError::TooLarge { extent, max });
     }
     if let Some(p) = opts.panel_load {

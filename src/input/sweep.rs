@@ -543,4 +543,3 @@ fn printable(ctx: &mut Ctx, name: &str, what: &str) {
         ));
     }
 }
-

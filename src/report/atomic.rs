@@ -264,7 +264,7 @@ pub enum Streamed {
         file: File,
         partial: PathBuf,
         target: PathBuf,
-        old: Option<fs::Metadata>,
+        old: Option<Box<fs::Metadata>>,
     },
 }
 
@@ -278,7 +278,7 @@ impl Streamed {
                 file: open_partial(partial)?,
                 partial: partial.to_path_buf(),
                 target: path,
-                old,
+                old: old.map(Box::new),
             }),
         }
     }
@@ -308,7 +308,7 @@ impl Streamed {
                 target,
                 old,
             } => {
-                keep_nature(&file, old.as_ref())?;
+                keep_nature(&file, old.as_deref())?;
                 file.sync_all()?;
                 // Renamed while still locked; the lock goes with the handle.
                 fs::rename(&partial, &target)

@@ -238,7 +238,7 @@ fn check_geometry(m: &Model) -> Result<(), VariantError> {
     let max = crate::input::convert::MAX_COORDINATE;
     for n in &m.nodes {
         for (axis, v) in [("x", n.x), ("y", n.y)] {
-            if !(v.abs() <= max) {
+            if v.is_nan() || v.abs() > max {
                 return Err(VariantError::Invalid(format!(
                     "node \"{}\" coordinate {axis} = {v:.3e} m after the moves is beyond ±{max:.0e} m",
                     n.id
