@@ -50,7 +50,15 @@ impl Error {
                 AnalysisError::Internal => 1,
                 _ => 2,
             },
-            Error::Write { .. } => 1,
+            // A refused --out target (read-only, a dangling symlink, a
+            // folder, a .partial another run holds) is the user's choice.
+            Error::Write { source, .. } => {
+                if crate::report::atomic::is_refusal(source) {
+                    2
+                } else {
+                    1
+                }
+            }
             Error::Loads { source, .. } => {
                 if source.is_internal() {
                     1

@@ -23,5 +23,6 @@ pub mod report;
 pub mod section;
 pub mod sensitivity;
 pub mod sweep;
+pub mod textsafe;
 pub mod timing;
 pub mod units;

@@ -2,6 +2,7 @@
 //! error and exit 0 (success), 1 (internal failure) or 2 (bad input).
 
 use clap::Parser;
+use std::io::Write;
 use std::process::ExitCode;
 
 fn main() -> ExitCode {
@@ -9,8 +10,11 @@ fn main() -> ExitCode {
     match panelpoint::timing::stage("whole run", || panelpoint::cli::run(cli)) {
         Ok(code) => ExitCode::from(code),
         Err(e) => {
+            // A failing standard error (full, closed) must not turn an
+            // error into a panic: the exit status still tells.
+            let mut err = std::io::stderr().lock();
             for line in e.lines() {
-                eprintln!("panelpoint: error: {line}");
+                let _ = writeln!(err, "panelpoint: error: {line}");
             }
             ExitCode::from(e.exit_code())
         }

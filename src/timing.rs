@@ -4,6 +4,7 @@
 //! without a profiler. Off by default; when off a stage costs one load of a
 //! cached flag.
 
+use std::io::Write;
 use std::sync::OnceLock;
 use std::time::Instant;
 
@@ -37,7 +38,8 @@ pub fn stage<T>(name: &str, f: impl FnOnce() -> T) -> T {
     let v = f();
     let wall = t.elapsed().as_secs_f64() * 1e3;
     let (u1, s1, f1) = usage();
-    eprintln!(
+    let _ = writeln!(
+        std::io::stderr(),
         "panelpoint: time: {name} {wall:.3} ms (cpu user {:.0} ms, sys {:.0} ms; {} minor faults)",
         (u1 - u0) * 1e3,
         (s1 - s0) * 1e3,
@@ -63,7 +65,8 @@ impl Lap {
 
     pub fn mark(&mut self, name: &str) {
         if let Some(t) = self.last {
-            eprintln!(
+            let _ = writeln!(
+                std::io::stderr(),
                 "panelpoint: time: {}: {name} {:.3} ms",
                 self.prefix,
                 t.elapsed().as_secs_f64() * 1e3

@@ -193,7 +193,7 @@ fn opts(m: &Model) -> RunOptions {
 
 fn run_all(m: &Model, text: &str, shard: Option<(usize, usize)>) -> Vec<sweep::VariantResult> {
     let s = panelpoint::input::sweep::load_sweep(text, m).unwrap();
-    let idx = sweep::shard_indices(s.variants.len(), shard);
+    let idx = sweep::shard_indices(s.len(), shard);
     let mut out = Vec::new();
     sweep::run(m, &s, &idx, &opts(m), |r| {
         out.push(r);
@@ -257,8 +257,9 @@ fn stiffness_and_topology_variants_match_fresh_analyses() {
     let base = load(MILLRACE);
     let s = panelpoint::input::sweep::load_sweep(MILLRACE_SWEEP, &base).unwrap();
     let rows = run_all(&base, MILLRACE_SWEEP, None);
-    assert_eq!(rows.len(), s.variants.len());
-    for (r, v) in rows.iter().zip(&s.variants) {
+    assert_eq!(rows.len(), s.len());
+    let all: Vec<_> = (0..s.len()).map(|i| s.variant(i).into_owned()).collect();
+    for (r, v) in rows.iter().zip(&all) {
         let m = sweep::apply(&base, v).unwrap();
         match analysis::analyse(&m) {
             // A fresh factorization agrees with the reused symbolic analysis (dense-free cross-check).

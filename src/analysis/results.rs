@@ -27,8 +27,59 @@ pub enum AnalysisError {
         relative: f64,
         limit: f64,
     },
+    #[error("the stiffness matrix is too ill-conditioned to factor: it lost positive definiteness at node \"{node}\" ({direction}); look there for a nearly flat or nearly collinear layout or members of very different stiffness")]
+    IllConditioned { node: String, direction: String },
     #[error("the sparse factorization failed for want of memory or a malformed matrix")]
     Internal,
+    /// A force, displacement or reaction overflowed (issue 22, item 12): an
+    /// error rather than a number the checks would treat as zero.
+    #[error("load case \"{case}\": a {what} is not a finite number (overflow); the loads, properties or factors are out of range")]
+    NonFinite { case: String, what: &'static str },
+    /// A job whose memory, estimated before allocating, exceeds the
+    /// machine's (issue 22, item 9).
+    #[error("{what} needs about {needed_gib:.1} GiB, more than this machine's {available_gib:.1} GiB of memory; {advice}")]
+    TooLarge {
+        what: String,
+        needed_gib: f64,
+        available_gib: f64,
+        advice: &'static str,
+    },
+}
+
+/// The machine's physical memory, bytes (`u64::MAX` when unknown).
+pub fn physical_memory() -> u64 {
+    // SAFETY: sysconf has no preconditions.
+    let (pages, size) = unsafe {
+        (
+            libc::sysconf(libc::_SC_PHYS_PAGES),
+            libc::sysconf(libc::_SC_PAGESIZE),
+        )
+    };
+    if pages > 0 && size > 0 {
+        (pages as u64).saturating_mul(size as u64)
+    } else {
+        u64::MAX
+    }
+}
+
+/// Refuse a job of `needed` bytes (computed in f64, so no overflow) above
+/// the physical memory, before anything is allocated.
+pub fn check_memory(
+    needed: f64,
+    what: impl FnOnce() -> String,
+    advice: &'static str,
+) -> Result<(), AnalysisError> {
+    let available = physical_memory() as f64;
+    if needed > available {
+        const GIB: f64 = 1024.0 * 1024.0 * 1024.0;
+        return Err(AnalysisError::TooLarge {
+            what: what(),
+            needed_gib: needed / GIB,
+            available_gib: available / GIB,
+            advice,
+        });
+    }
+    Ok(())
 }
 
 /// The results of one load case, all in SI.
@@ -117,6 +168,10 @@ fn mechanism(model: &Model, dofs: &Dofs, e: FactorError) -> AnalysisError {
                 },
             }
         }
+        FactorError::NotPositive { dof } => AnalysisError::IllConditioned {
+            node: model.nodes[dofs.node[dof] as usize].id.clone(),
+            direction: dofs.direction_name(dof),
+        },
         FactorError::Internal => AnalysisError::Internal,
     }
 }
@@ -253,7 +308,31 @@ impl Prepared {
         let n = self.n();
         let extra = extra.filter(|e| e.len() == n);
         let columns = cases.len() + usize::from(extra.is_some());
-        let mut rhs = vec![0.0; n * columns];
+        // The block of right-hand sides and each case's results (nodes ×
+        // 2 displacements, member forces, support reactions), 8 bytes each.
+        let per_case = n + 2 * model.nodes.len() + model.members.len() + 2 * model.supports.len();
+        check_memory(
+            8.0 * columns as f64 * per_case as f64,
+            || {
+                format!(
+                    "solving {} load cases of {n} degrees of freedom at once",
+                    cases.len()
+                )
+            },
+            "split the load cases over several model files or sweep shards",
+        )?;
+        let mut rhs = Vec::new();
+        rhs.try_reserve_exact(n * columns)
+            .map_err(|_| AnalysisError::TooLarge {
+                what: format!(
+                    "solving {} load cases of {n} degrees of freedom",
+                    cases.len()
+                ),
+                needed_gib: 8.0 * (n * columns) as f64 / (1u64 << 30) as f64,
+                available_gib: physical_memory() as f64 / (1u64 << 30) as f64,
+                advice: "the memory could not be allocated; split the load cases",
+            })?;
+        rhs.resize(n * columns, 0.0);
         for (c, case) in cases.iter().enumerate() {
             self.load_vector(model, case, &mut rhs[c * n..(c + 1) * n]);
         }
@@ -360,6 +439,21 @@ impl Prepared {
         } else {
             0.0
         };
+        let overflow = if !forces.iter().all(|f| f.is_finite()) {
+            Some("member force")
+        } else if !displacements.iter().flatten().all(|v| v.is_finite()) {
+            Some("displacement")
+        } else if !reactions.iter().flatten().all(|v| v.is_finite()) {
+            Some("reaction")
+        } else {
+            None
+        };
+        if let Some(what) = overflow {
+            return Err(AnalysisError::NonFinite {
+                case: case.id.clone(),
+                what,
+            });
+        }
         if relative.is_nan() || relative > RESIDUAL_LIMIT {
             return Err(AnalysisError::Residual {
                 case: case.id.clone(),
@@ -387,6 +481,30 @@ impl Prepared {
 /// single-threaded ordering): the layout warnings and the power iteration
 /// for λmax of the condition estimate. The first inverse-iteration step of
 /// the estimate is solved in the same block as the load cases.
+/// The smallest-pivot warning of a factorization, if it is ill-conditioned.
+fn pivot_warning(model: &Model, prepared: &Prepared) -> Option<String> {
+    let ratio = prepared.factor.min_pivot_ratio;
+    (ratio < CONDITION_WARNING_RATIO).then(|| {
+        let dof = prepared.factor.min_pivot_dof;
+        format!(
+            "ill-conditioned stiffness: smallest pivot ratio {ratio:.1e} at node \"{}\" ({}); about {:.0} of 16 digits may be lost",
+            model.nodes[prepared.dofs.node[dof] as usize].id,
+            prepared.dofs.direction_name(dof),
+            (1.0 / ratio).log10()
+        )
+    })
+}
+
+/// The analysis warnings a command that only factors (influence lines,
+/// envelopes) can give without solving the load cases: the smallest pivot
+/// and the layout checks (near-mechanism, shallow layout). The condition
+/// estimate needs the cases' block solve and is left to `analyse`.
+pub fn prepared_warnings(model: &Model, prepared: &Prepared) -> Vec<String> {
+    let mut w: Vec<String> = pivot_warning(model, prepared).into_iter().collect();
+    w.extend(super::conditioning::layout_warnings(model, &prepared.dofs));
+    w
+}
+
 pub fn analyse(model: &Model) -> Result<Analysis, AnalysisError> {
     analyse_beside(model, || ()).0
 }
@@ -432,17 +550,7 @@ fn analyse_with(model: &Model, beside: impl FnOnce() + Send) -> Result<Analysis,
     let (cases, first) = stage("solve + member forces", || {
         prepared.solve_cases_with(model, &model.cases, probe)
     })?;
-    let mut warnings = Vec::new();
-    let ratio = prepared.factor.min_pivot_ratio;
-    if ratio < CONDITION_WARNING_RATIO {
-        let dof = prepared.factor.min_pivot_dof;
-        warnings.push(format!(
-            "ill-conditioned stiffness: smallest pivot ratio {ratio:.1e} at node \"{}\" ({}); about {:.0} of 16 digits may be lost",
-            model.nodes[prepared.dofs.node[dof] as usize].id,
-            prepared.dofs.direction_name(dof),
-            (1.0 / ratio).log10()
-        ));
-    }
+    let mut warnings: Vec<String> = pivot_warning(model, &prepared).into_iter().collect();
     warnings.extend(layout_warnings);
     let estimate = stage("condition estimate", || {
         lambda_max.and_then(|l| conditioning::estimate_with(&prepared, l, first))

@@ -37,6 +37,10 @@ pub enum FactorError {
         pivot_ratio: f64,
         mode: Option<Vec<f64>>,
     },
+    /// A pivot came out negative (or NaN) despite the regularization: K̃ is
+    /// no longer positive definite in floating point, the mark of severe
+    /// ill-conditioning, at this (original) DOF index (issue 22, item 11).
+    NotPositive { dof: usize },
     /// faer could not allocate or the pattern was malformed.
     Internal,
 }
@@ -182,13 +186,21 @@ impl Symbolic {
                     Default::default(),
                 )
                 .map(|_| ())
-                .map_err(|_| ())
         });
         drop(buf);
         drop(scaled);
-        if result.is_err() {
-            // Only a NaN can get past the regularization.
-            return Err(FactorError::Internal);
+        if let Err(e) = result {
+            use faer::linalg::cholesky::llt::factor::LltError;
+            let LltError::NonPositivePivot { index } = e;
+            // The simplicial path reports the column 1-based, the
+            // supernodal path 0-based (see docs/robustness.md).
+            let i = match self.inner.raw() {
+                SymbolicCholeskyRaw::Simplicial(_) => index.saturating_sub(1),
+                SymbolicCholeskyRaw::Supernodal(_) => index,
+            };
+            return Err(FactorError::NotPositive {
+                dof: self.original(i.min(n.saturating_sub(1))),
+            });
         }
         let pivots = self.pivots(&values);
         let mut min_ratio = 1.0f64;

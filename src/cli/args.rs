@@ -15,6 +15,9 @@ the owner's rating rules and licensed practice govern."
 pub struct Cli {
     #[command(subcommand)]
     pub command: Command,
+    /// Let a model's vehicles_file name a file outside the model's folder.
+    #[arg(long, global = true)]
+    pub allow_outside_files: bool,
 }
 
 #[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
@@ -131,7 +134,7 @@ pub enum Command {
         #[arg(long)]
         height: f64,
         /// Downward load at every interior bottom panel point, case "panel".
-        #[arg(long)]
+        #[arg(long, allow_negative_numbers = true)]
         panel_load: Option<f64>,
         /// us (ft, kip, in, ksi) or si (m, kN, mm, MPa).
         #[arg(long, default_value = "us")]

@@ -8,11 +8,32 @@ use crate::loads::{self, Deck, LoadError};
 use crate::report::{influence_csv, influence_json, influence_text, Format};
 use std::path::{Path, PathBuf};
 
-fn prepare(path: &Path, model: &crate::model::Model) -> Result<Prepared, Error> {
-    Prepared::new(model).map_err(|source| Error::Analysis {
+/// Factor the model, and add the analysis warnings (ill-conditioning,
+/// near-mechanism) to the model's: in the report for text and JSON, on
+/// standard error for CSV (issue 22, item 16).
+fn prepare(
+    path: &Path,
+    c: &mut crate::input::Converted,
+    format: Format,
+) -> Result<Prepared, Error> {
+    let p = Prepared::new(&c.model).map_err(|source| Error::Analysis {
         path: path.to_path_buf(),
         source,
-    })
+    })?;
+    let warnings = crate::analysis::results::prepared_warnings(&c.model, &p);
+    if format == Format::Csv {
+        super::commands::warnings_to_stderr(path, &c.warnings, &warnings);
+    }
+    c.warnings.extend(
+        warnings
+            .into_iter()
+            .map(|message| crate::input::Diagnostic {
+                severity: crate::input::Severity::Warning,
+                message,
+                location: None,
+            }),
+    );
+    Ok(p)
 }
 
 fn loads_error(path: &Path) -> impl Fn(LoadError) -> Error + '_ {
@@ -30,7 +51,8 @@ pub fn influence(
     format: Format,
     out: &Option<PathBuf>,
 ) -> Result<u8, Error> {
-    let c = load(path)?;
+    let mut c = load(path)?;
+    let prepared = prepare(path, &mut c, format)?;
     let m = &c.model;
     let deck = match deck {
         Some(ids) => Deck::from_ids(m, ids),
@@ -54,7 +76,6 @@ pub fn influence(
     } else {
         Vec::new()
     };
-    let prepared = prepare(path, m)?;
     let lines = loads::influence_lines(m, &prepared, &deck).map_err(loads_error(path))?;
     write(out, |w| match format {
         Format::Text => influence_text::influence(w, m, &lines, &chosen, &supports, &c.warnings),
@@ -73,7 +94,12 @@ pub fn influence_strips(
     ids: &[String],
 ) -> Result<Vec<crate::report::svg::InfluenceLine>, Error> {
     let deck = Deck::of_model(m).map_err(loads_error(path))?;
-    let prepared = prepare(path, m)?;
+    // The drawing's own warnings are printed by `draw`; only the factor is
+    // needed here.
+    let prepared = Prepared::new(m).map_err(|source| Error::Analysis {
+        path: path.to_path_buf(),
+        source,
+    })?;
     let lines = loads::influence_lines(m, &prepared, &deck).map_err(loads_error(path))?;
     let mut out = Vec::with_capacity(ids.len());
     for id in ids {
@@ -98,12 +124,12 @@ pub fn influence_strips(
 
 /// `panelpoint envelope`.
 pub fn envelope(path: &Path, format: Format, out: &Option<PathBuf>) -> Result<u8, Error> {
-    let c = load(path)?;
-    let m = &c.model;
-    if m.live.moving.is_empty() {
+    let mut c = load(path)?;
+    if c.model.live.moving.is_empty() {
         return Err(loads_error(path)(LoadError::NoMovingLoads));
     }
-    let prepared = prepare(path, m)?;
+    let prepared = prepare(path, &mut c, format)?;
+    let m = &c.model;
     let envs = loads::envelopes(m, &prepared).map_err(loads_error(path))?;
     write(out, |w| match format {
         Format::Text => influence_text::envelopes(w, m, &envs, &c.warnings),

@@ -5,6 +5,7 @@
 mod args;
 mod commands;
 mod fatigue;
+mod guard;
 mod loads;
 mod whatif;
 

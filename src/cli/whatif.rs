@@ -11,7 +11,7 @@ use crate::rate;
 use crate::report::{self, Format};
 use crate::sweep::{self, RunOptions};
 use std::fs;
-use std::io::{self, BufWriter, IsTerminal, Write};
+use std::io::{self, IsTerminal, Write};
 use std::path::{Path, PathBuf};
 use std::time::{Duration, Instant};
 
@@ -80,12 +80,22 @@ pub struct SweepArgs {
     pub detail: bool,
 }
 
-/// Where streamed rows go: standard output, or `<out>.partial`, renamed
-/// to `<out>` only once the sweep is complete.
+/// Where streamed rows go: standard output, a special file (written
+/// directly), or a locked `<out>.partial` renamed to `<out>` only once the
+/// sweep is complete (see `report::atomic`). Rows are gathered in memory and
+/// handed on in whole rows only, so an interrupted or failed run leaves
+/// whole rows; on a failed write the partial file is cut back to the last
+/// whole row.
 struct Sink {
-    w: BufWriter<Box<dyn Write>>,
-    partial: Option<(PathBuf, PathBuf)>,
+    w: Vec<u8>,
+    dest: Dest,
+    committed: u64,
     last_flush: Instant,
+}
+
+enum Dest {
+    Stdout(io::Stdout),
+    File(fs::File, Box<report::atomic::Streamed>),
 }
 
 /// The name an interrupted sweep's rows are kept under.
@@ -97,37 +107,65 @@ pub fn partial_path(out: &Path) -> PathBuf {
 
 impl Sink {
     fn open(out: &Option<PathBuf>) -> io::Result<Sink> {
-        let (inner, partial): (Box<dyn Write>, _) = match out {
-            None => (Box::new(io::stdout()), None),
+        let dest = match out {
+            None => Dest::Stdout(io::stdout()),
             Some(p) => {
-                let tmp = partial_path(p);
-                (Box::new(fs::File::create(&tmp)?), Some((tmp, p.clone())))
+                let s = report::atomic::Streamed::open(p, &partial_path(p))?;
+                Dest::File(s.writer()?, Box::new(s))
             }
         };
         Ok(Sink {
-            w: BufWriter::with_capacity(1 << 16, inner),
-            partial,
+            w: Vec::with_capacity(1 << 16),
+            dest,
+            committed: 0,
             last_flush: Instant::now(),
         })
     }
 
-    /// Flush at most twice a second, so an interrupted run keeps its rows.
+    fn partial(&self) -> Option<&Path> {
+        match &self.dest {
+            Dest::Stdout(_) => None,
+            Dest::File(_, s) => s.partial(),
+        }
+    }
+
+    /// Hand the gathered whole rows on.
+    fn commit(&mut self) -> io::Result<()> {
+        let r = match &mut self.dest {
+            Dest::Stdout(o) => o.write_all(&self.w).and_then(|_| o.flush()),
+            Dest::File(f, s) => {
+                let r = f.write_all(&self.w);
+                if r.is_err() && s.partial().is_some() {
+                    let _ = f.set_len(self.committed);
+                }
+                r
+            }
+        };
+        r?;
+        self.committed += self.w.len() as u64;
+        self.w.clear();
+        self.last_flush = Instant::now();
+        Ok(())
+    }
+
+    /// After each row: pass the rows on at most twice a second, or when
+    /// 64 kB have gathered, so an interrupted run keeps its rows.
     fn tick(&mut self) -> io::Result<()> {
-        if self.last_flush.elapsed() > Duration::from_millis(500) {
-            self.w.flush()?;
-            self.last_flush = Instant::now();
+        if self.w.len() >= 1 << 16 || self.last_flush.elapsed() > Duration::from_millis(500) {
+            self.commit()?;
         }
         Ok(())
     }
 
     fn finish(mut self) -> io::Result<()> {
-        self.w.flush()?;
-        if let Some((tmp, target)) = self.partial.take() {
-            drop(self.w);
-            fs::File::open(&tmp)?.sync_all()?;
-            fs::rename(&tmp, &target)?;
+        self.commit()?;
+        match self.dest {
+            Dest::Stdout(_) => Ok(()),
+            Dest::File(f, s) => {
+                drop(f);
+                s.finish()
+            }
         }
-        Ok(())
     }
 }
 
@@ -135,9 +173,20 @@ pub fn sweep(a: SweepArgs) -> Result<u8, Error> {
     let c = load(&a.model)?;
     let model = &c.model;
     let method = rate::choose_method(model, a.method.as_deref()).map_err(Error::Usage)?;
-    let text = fs::read_to_string(&a.sweep).map_err(|source| Error::Read {
+    super::guard::input(&a.sweep);
+    let bytes = input::file::read_bounded(&a.sweep).map_err(|source| Error::Read {
         path: a.sweep.clone(),
         source,
+    })?;
+    let text = String::from_utf8(bytes).map_err(|e| Error::Read {
+        path: a.sweep.clone(),
+        source: io::Error::new(
+            io::ErrorKind::InvalidData,
+            format!(
+                "the file is not UTF-8 text (bad byte at offset {})",
+                e.utf8_error().valid_up_to()
+            ),
+        ),
     })?;
     let sw = input::sweep::load_sweep(&text, model).map_err(|diagnostics| Error::Model {
         path: a.sweep.clone(),
@@ -152,7 +201,7 @@ pub fn sweep(a: SweepArgs) -> Result<u8, Error> {
     if a.jobs == Some(0) {
         return Err(Error::Usage("--jobs must be at least 1".into()));
     }
-    let indices = sweep::shard_indices(sw.variants.len(), shard);
+    let indices = sweep::shard_indices(sw.len(), shard);
     let opts = RunOptions {
         method,
         jobs: a.jobs,
@@ -166,6 +215,10 @@ pub fn sweep(a: SweepArgs) -> Result<u8, Error> {
         what: what.clone(),
         source,
     };
+    super::guard::check(&a.out)?;
+    if let Some(out) = &a.out {
+        super::guard::check_out(&partial_path(out))?;
+    }
     let mut sink = Sink::open(&a.out).map_err(werr)?;
     let mut writer = report::whatif::SweepWriter::new(a.format, a.detail, model);
     let shard_text = shard.map_or(String::new(), |(i, n)| {
@@ -181,10 +234,13 @@ pub fn sweep(a: SweepArgs) -> Result<u8, Error> {
         );
         bar
     });
+    let (mut rows, mut failed) = (0usize, 0usize);
     let result = writer
-        .header(&mut sink.w, model, sw.variants.len(), &shard_text)
+        .header(&mut sink.w, model, sw.len(), &shard_text)
         .and_then(|_| {
             sweep::run(model, &sw, &indices, &opts, |row| {
+                rows += 1;
+                failed += usize::from(row.outcome.is_err());
                 writer.row(&mut sink.w, &row)?;
                 if let Some(p) = &progress {
                     p.inc(1);
@@ -199,11 +255,21 @@ pub fn sweep(a: SweepArgs) -> Result<u8, Error> {
     match result {
         Ok(()) => {
             sink.finish().map_err(werr)?;
+            // Every row an error (a model without fy, say): the output is
+            // kept, but the run did not rate anything (issue 22, item 16).
+            if rows > 0 && failed == rows {
+                let _ = writeln!(
+                    io::stderr(),
+                    "panelpoint: error: {}: every one of the {rows} variants failed (see the error column); nothing was rated",
+                    a.sweep.display()
+                );
+                return Ok(2);
+            }
             Ok(0)
         }
         Err(e) => {
-            let _ = sink.w.flush();
-            let kept = sink.partial.as_ref().map_or(String::new(), |(p, _)| {
+            let _ = sink.commit();
+            let kept = sink.partial().map_or(String::new(), |p| {
                 format!("; rows so far kept in {}", p.display())
             });
             Err(Error::Write {

@@ -187,6 +187,12 @@ pub struct TrussLayout {
     pub loads: Vec<(String, f64)>,
 }
 
+/// Most panels `new` generates: a real truss has tens, at most a few
+/// hundred; 100,000 panels is already a 400,000-DOF model (the benchmark
+/// lattice has its own generator). Past it: an error, not an allocation
+/// that aborts (issue 22, item 9).
+pub const MAX_PANELS: usize = 100_000;
+
 /// Why a layout could not be generated.
 #[derive(thiserror::Error, Debug, Clone, PartialEq)]
 pub enum GenerateError {
@@ -196,6 +202,10 @@ pub enum GenerateError {
         min: usize,
         got: usize,
     },
+    #[error("at most {max} panels can be generated, got {got}")]
+    TooManyPanels { max: usize, got: usize },
+    #[error("the truss would reach {extent:.3e} m, beyond the loader's ±{max:.0e} m coordinate bound; check the panel width, span or height and the units")]
+    TooLarge { extent: f64, max: f64 },
     #[error("a K-braced truss needs an even number of panels, got {got}")]
     OddPanelCount { got: usize },
     #[error("panel width must be a positive finite number, got {0}")]
@@ -290,6 +300,12 @@ fn validate(opts: &GenerateOptions) -> Result<(), GenerateError> {
             got: n,
         });
     }
+    if n > MAX_PANELS {
+        return Err(GenerateError::TooManyPanels {
+            max: MAX_PANELS,
+            got: n,
+        });
+    }
     if family == Family::KBraced && !n.is_multiple_of(2) {
         return Err(GenerateError::OddPanelCount { got: n });
     }
@@ -298,6 +314,22 @@ fn validate(opts: &GenerateOptions) -> Result<(), GenerateError> {
     }
     if !(opts.height.is_finite() && opts.height > 0.0) {
         return Err(GenerateError::InvalidHeight(opts.height));
+    }
+    // The loader refuses coordinates beyond ±MAX_COORDINATE m: refuse here
+    // what it would refuse, so `new` never writes a model that cannot load.
+    let unit = match opts.units {
+        UnitSystem::Us => 0.3048,
+        UnitSystem::Si => 1.0,
+    };
+    let top = opts
+        .top_heights
+        .iter()
+        .flatten()
+        .fold(opts.height, |a, &v| a.max(v));
+    let extent = (n as f64 * opts.panel_width).max(top) * unit;
+    let max = crate::input::convert::MAX_COORDINATE;
+    if extent.is_nan() || extent > max {
+        return Err(GenerateError::TooLarge { extent, max });
     }
     if let Some(p) = opts.panel_load {
         if !p.is_finite() {

@@ -39,6 +39,21 @@ impl fmt::Display for Field<'_> {
 pub struct Converted {
     pub model: Model,
     pub warnings: Vec<Diagnostic>,
+    /// The `vehicles_file` read for this model, if any (the CLI refuses an
+    /// `--out` naming it).
+    pub vehicles_path: Option<std::path::PathBuf>,
+}
+
+/// A combination factor within ±[`super::MAX_FACTOR`].
+fn plausible_factor(f: f64) -> bool {
+    f.is_finite() && f.abs() <= super::MAX_FACTOR
+}
+
+fn bad_factor(combination: &str, case: &str, f: f64) -> String {
+    format!(
+        "combination \"{combination}\" factor on \"{case}\" must be a finite number from -{m} to {m}, not {f:?}",
+        m = super::MAX_FACTOR
+    )
 }
 
 /// Errors kept per model: a file with a million bad rows needs the first few.
@@ -203,10 +218,10 @@ pub(super) fn intern<'f, T>(
                 ),
                 None,
             );
-        } else if name.chars().any(char::is_control) {
+        } else if crate::textsafe::has_unsafe(name) {
             ctx.error(
                 format!(
-                    "{kind} number {} id \"{}\" contains a control character (newline, tab ...); ids must print on one line",
+                    "{kind} number {} id \"{}\" contains a control character or a bidirectional mark (newline, tab, ESC, U+202E ...); ids must print on one line as written",
                     i + 1,
                     name.escape_debug()
                 ),
@@ -255,7 +270,7 @@ impl<'f, T: Sync> LazyIds<'f, T> {
         let good = |name: &str| {
             !name.trim().is_empty()
                 && name.chars().count() <= MAX_ID_CHARS
-                && !name.chars().any(char::is_control)
+                && !crate::textsafe::has_unsafe(name)
         };
         let hasher = rustc_hash::FxBuildHasher;
         let mut hashes: Vec<(u64, u32)> = match items
@@ -728,7 +743,19 @@ pub fn convert_deferred(
             SupportKindFile::InclinedRoller { angle } => {
                 let what = format!("inclined roller at node \"{}\" angle", s.node);
                 match value(&mut ctx, angle, Dimension::Angle, u, &what, None) {
-                    Some(a) => Restraint::InclinedRoller { angle: a },
+                    // Beyond one turn either way the number is a mistake
+                    // (1e300° used to be accepted; issue 22, item 16).
+                    Some(a) if a.abs() <= 2.0 * std::f64::consts::PI => {
+                        Restraint::InclinedRoller { angle: a }
+                    }
+                    Some(a) => {
+                        let at = ctx.loc.field("node", &s.node, 0);
+                        ctx.error(
+                            format!("{what} {:.3e}° is beyond ±360°", a.to_degrees()),
+                            at,
+                        );
+                        continue;
+                    }
                     None => continue,
                 }
             }
@@ -770,12 +797,13 @@ pub fn convert_deferred(
             Some(CaseKindFile::Other) | None => CaseKind::Other,
         };
         let impact = c.impact.unwrap_or(0.0);
-        if !(impact.is_finite() && impact >= 0.0) {
+        if !(impact.is_finite() && (0.0..=super::MAX_IMPACT).contains(&impact)) {
             let at = ctx.loc.field("id", &c.id, 0);
             ctx.error(
                 format!(
-                    "case \"{}\" impact must be a fraction ≥ 0, not {impact}",
-                    c.id
+                    "case \"{}\" impact must be a fraction from 0 to {} (0.10 for 10 %), not {impact:?}",
+                    c.id,
+                    super::MAX_IMPACT
                 ),
                 at,
             );
@@ -888,16 +916,10 @@ pub fn convert_deferred(
         let mut moving = Vec::new();
         for (case, f) in &c.factors {
             if let Some(k) = live.moving.iter().position(|ml| &ml.id == case) {
-                if f.is_finite() {
+                if plausible_factor(*f) {
                     moving.push((k, *f));
                 } else {
-                    ctx.error(
-                        format!(
-                            "combination \"{}\" factor on \"{case}\" is not finite",
-                            c.id
-                        ),
-                        at,
-                    );
+                    ctx.error(bad_factor(&c.id, case, *f), at);
                 }
                 continue;
             }
@@ -907,14 +929,8 @@ pub fn convert_deferred(
                 continue;
             }
             match case_ids.get(case.as_str()) {
-                Some(&i) if f.is_finite() => factors.push((i, *f)),
-                Some(_) => ctx.error(
-                    format!(
-                        "combination \"{}\" factor on \"{case}\" is not finite",
-                        c.id
-                    ),
-                    at,
-                ),
+                Some(&i) if plausible_factor(*f) => factors.push((i, *f)),
+                Some(_) => ctx.error(bad_factor(&c.id, case, *f), at),
                 None => ctx.error(
                     format!(
                         "combination \"{}\" refers to load case \"{case}\", which is not defined (nor is a moving load of that id)",
@@ -969,8 +985,18 @@ pub fn convert_deferred(
             ctx.warn(format!("node \"{}\" has no member", n.id), at);
         }
     }
+    // Free text: control characters and bidirectional marks are removed
+    // (they would reach the terminal, HTML and SVG), with a warning.
+    let mut title = file.title.unwrap_or_default();
+    if crate::textsafe::has_unsafe(&title) {
+        title = crate::textsafe::strip(&title);
+        ctx.warn(
+            "title: control characters and bidirectional marks removed".into(),
+            None,
+        );
+    }
     let model = Model {
-        title: file.title.unwrap_or_default(),
+        title,
         units,
         materials,
         sections,
@@ -988,6 +1014,7 @@ pub fn convert_deferred(
         Converted {
             model,
             warnings: ctx.warnings,
+            vehicles_path: None,
         },
         CrossingCheck { tol },
     ))

@@ -244,6 +244,15 @@ pub(super) fn live_loads(
         let at = ctx.loc.field("id", &v.id, 0);
         if v.id.trim().is_empty() {
             ctx.error(format!("vehicle number {} has an empty id", i + 1), None);
+        } else if crate::textsafe::has_unsafe(&v.id) {
+            ctx.error(
+                format!(
+                    "vehicle number {} id \"{}\" contains a control character or a bidirectional mark; ids must print on one line as written",
+                    i + 1,
+                    v.id.escape_debug()
+                ),
+                None,
+            );
         } else if vehicle_ids.insert(&v.id, i).is_some() {
             ctx.error(format!("duplicate vehicle id \"{}\"", v.id), at);
         }
@@ -307,6 +316,15 @@ pub(super) fn live_loads(
     for ml in &file.moving_loads {
         let at = ctx.loc.field("id", &ml.id, 0);
         let who = format!("moving load \"{}\"", ml.id);
+        if crate::textsafe::has_unsafe(&ml.id) {
+            ctx.error(
+                format!(
+                    "moving load id \"{}\" contains a control character or a bidirectional mark; ids must print on one line as written",
+                    ml.id.escape_debug()
+                ),
+                None,
+            );
+        }
         if seen.insert(&ml.id, ()).is_some() {
             ctx.error(format!("duplicate moving load id \"{}\"", ml.id), at);
         }
@@ -343,10 +361,11 @@ pub(super) fn live_loads(
         let impact = ml
             .impact
             .unwrap_or_else(|| resolved.as_ref().map_or(0.0, |r| r.impact));
-        if !(impact.is_finite() && impact >= 0.0) {
+        if !(impact.is_finite() && (0.0..=super::MAX_IMPACT).contains(&impact)) {
             ctx.error(
                 format!(
-                    "{who} impact must be a fraction of at least 0 (0.10 for 10 %), not {impact}"
+                    "{who} impact must be a fraction from 0 to {} (0.10 for 10 %), not {impact:?}",
+                    super::MAX_IMPACT
                 ),
                 at,
             );
@@ -434,28 +453,90 @@ fn single(message: String) -> Diagnostics {
     }
 }
 
-/// Read `vehicles_file` (relative to `dir`, the model file's folder, or the
-/// current folder) and append its vehicles to the model's own.
+static ALLOW_OUTSIDE: std::sync::atomic::AtomicBool = std::sync::atomic::AtomicBool::new(false);
+
+/// Let a model's `vehicles_file` name a file outside the model's folder
+/// (the CLI's `--allow-outside-files`; off by default, issue 22 item 8).
+pub fn allow_outside_files(on: bool) {
+    ALLOW_OUTSIDE.store(on, std::sync::atomic::Ordering::Relaxed);
+}
+
+/// Where `vehicles_file` `name` is: relative to `dir` (the model file's
+/// folder, or the current folder), and inside it (symlinks resolved) unless
+/// [`allow_outside_files`] was set.
+fn vehicles_path(name: &str, dir: Option<&Path>) -> Result<std::path::PathBuf, Diagnostics> {
+    let dir = match dir {
+        Some(d) if !d.as_os_str().is_empty() => d.to_path_buf(),
+        _ => std::path::PathBuf::from("."),
+    };
+    let path = dir.join(name);
+    let cannot = |e: std::io::Error| {
+        single(format!(
+            "vehicles_file \"{name}\": cannot read {}: {e}",
+            path.display()
+        ))
+    };
+    if ALLOW_OUTSIDE.load(std::sync::atomic::Ordering::Relaxed) {
+        return Ok(path);
+    }
+    let real_dir = std::fs::canonicalize(&dir).map_err(cannot)?;
+    let real = std::fs::canonicalize(&path).map_err(cannot)?;
+    if !real.starts_with(&real_dir) {
+        return Err(single(format!(
+            "vehicles_file \"{name}\" is outside the model's folder ({}); a model reads files only \
+             from its own folder and below (pass --allow-outside-files to allow it)",
+            real_dir.display()
+        )));
+    }
+    Ok(path)
+}
+
+/// A RON error without any text of the file: a file that is not a vehicles
+/// file (say `/etc/shadow`) must not be quoted in the message. Everything
+/// between quotes or backticks in the parser's message is left out.
+fn redacted(code: &str) -> String {
+    let mut out = String::with_capacity(code.len());
+    let mut inside: Option<char> = None;
+    for c in code.chars() {
+        match inside {
+            Some(q) if c == q => {
+                inside = None;
+                out.push('…');
+                out.push(c);
+            }
+            Some(_) => {}
+            None if c == '`' || c == '"' || c == '\'' => {
+                inside = Some(c);
+                out.push(c);
+            }
+            None => out.push(c),
+        }
+    }
+    out
+}
+
+/// Read `vehicles_file` (see [`vehicles_path`]) with the bounds of
+/// [`super::file`] and append its vehicles to the model's own.
 pub(super) fn merge_vehicles_file(
     file: &mut ModelFile,
     dir: Option<&Path>,
-) -> Result<(), Diagnostics> {
+) -> Result<Option<std::path::PathBuf>, Diagnostics> {
     let Some(name) = file.vehicles_file.clone() else {
-        return Ok(());
+        return Ok(None);
     };
-    let path = match dir {
-        Some(d) => d.join(&name),
-        None => Path::new(&name).to_path_buf(),
-    };
-    let text = std::fs::read_to_string(&path).map_err(|e| {
+    let path = vehicles_path(&name, dir)?;
+    let bytes = super::file::read_bounded(&path).map_err(|e| {
         single(format!(
             "vehicles_file \"{name}\": cannot read {}: {e}",
             path.display()
         ))
     })?;
-    if text.len() > super::MAX_FILE_BYTES {
-        return Err(single(format!("vehicles_file \"{name}\" is too large")));
-    }
+    let text = String::from_utf8(bytes).map_err(|e| {
+        single(format!(
+            "vehicles_file \"{name}\": not UTF-8 text (bad byte at offset {})",
+            e.utf8_error().valid_up_to()
+        ))
+    })?;
     let options = ron::Options::default()
         .with_default_extension(ron::extensions::Extensions::IMPLICIT_SOME)
         .with_recursion_limit(64);
@@ -463,15 +544,15 @@ pub(super) fn merge_vehicles_file(
         for e in &mut d.errors {
             if let Some((line, col)) = e.location.take() {
                 e.message = format!(
-                    "vehicles_file \"{name}\": line {line}, column {col}: {}",
-                    e.message
+                    "vehicles_file \"{name}\": line {line}, column {col}: {} (not a vehicles file?)",
+                    redacted(&e.message)
                 );
             } else {
-                e.message = format!("vehicles_file \"{name}\": {}", e.message);
+                e.message = format!("vehicles_file \"{name}\": {}", redacted(&e.message));
             }
         }
         d
     })?;
     file.vehicles.extend(more.vehicles);
-    Ok(())
+    Ok(Some(path))
 }

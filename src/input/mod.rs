@@ -6,6 +6,7 @@ mod bulk;
 pub mod convert;
 pub mod diagnostics;
 mod fatigue;
+pub mod file;
 mod library;
 mod loads;
 pub mod parts;
@@ -21,10 +22,23 @@ pub mod syntax;
 
 pub use convert::Converted;
 pub use diagnostics::{Diagnostic, Diagnostics, Severity};
+pub use loads::allow_outside_files;
 
 /// Largest model file accepted, bytes; a guard against feeding the loader
 /// something that is not a model at all.
 pub const MAX_FILE_BYTES: usize = 1 << 31;
+
+/// Largest dynamic (impact) allowance accepted, a fraction: 2.0 = 200 %.
+/// Code allowances stay at or below about 1.0 (from memory: HL-93's 0.33,
+/// old railway impact formulas near 1.0 on the shortest spans); above 2 the
+/// number is a typo (a percentage written as a fraction), and huge values
+/// would overflow the forces (issue 22, item 12).
+pub const MAX_IMPACT: f64 = 2.0;
+
+/// Largest magnitude of a combination factor, rating load factor or sweep
+/// scale factor: 100 (load factors in practice are below about 3; common
+/// practice). Past it the input is refused, so no force can overflow.
+pub const MAX_FACTOR: f64 = 100.0;
 
 /// Parse and validate model text; a `vehicles_file` is read relative to
 /// the current folder.
@@ -51,10 +65,12 @@ pub fn load_str_deferred(
         return Err(single("the model file is larger than 2 GiB", None));
     }
     let mut file = crate::timing::stage("parse", || parse_str(text))?;
-    loads::merge_vehicles_file(&mut file, dir)?;
-    crate::timing::stage("validate + convert", || {
+    let vehicles_path = loads::merge_vehicles_file(&mut file, dir)?;
+    let (mut c, check) = crate::timing::stage("validate + convert", || {
         convert::convert_deferred(file, text)
-    })
+    })?;
+    c.vehicles_path = vehicles_path;
+    Ok((c, check))
 }
 
 /// The syntax step of [`load_str`] alone: RON text to the schema types,

@@ -7,7 +7,9 @@ use super::diagnostics::{Diagnostic, Diagnostics, Severity};
 use super::quantity::Quantity;
 use super::schema::{CaseKindFile, NodalLoadFile};
 use crate::model::{CaseKind, Model};
-use crate::sweep::{AddedCase, Change, DepthNodes, MaterialProps, SectionProps, Sweep, Variant};
+use crate::sweep::{
+    AddedCase, Axis, Change, DepthNodes, MaterialProps, SectionProps, Sweep, Variant,
+};
 use crate::units::Dimension;
 use serde::Deserialize;
 
@@ -258,8 +260,11 @@ fn changes(ctx: &mut Ctx, f: &ChangesFile, at: &str) -> (Vec<Change>, Vec<(Strin
     let mut out = Vec::new();
     let mut params = Vec::new();
     for (case, factor) in &f.scale {
-        if !factor.is_finite() {
-            ctx.error(format!("{at}: scale factor of \"{case}\" is not finite"));
+        if !(factor.is_finite() && factor.abs() <= super::MAX_FACTOR) {
+            ctx.error(format!(
+                "{at}: scale factor of \"{case}\" must be a finite number from -{m} to {m}, not {factor:?}",
+                m = super::MAX_FACTOR
+            ));
         }
         out.push(ctx.scale(case, *factor, at));
         params.push((format!("scale {case}"), format!("{factor}")));
@@ -278,8 +283,12 @@ fn changes(ctx: &mut Ctx, f: &ChangesFile, at: &str) -> (Vec<Change>, Vec<(Strin
             loads.push((l.node.clone(), fx, fy));
         }
         if let Some(i) = add.impact {
-            if !(i.is_finite() && i >= 0.0) {
-                ctx.error(format!("{at}: impact of \"{}\" must be ≥ 0", add.id));
+            if !(i.is_finite() && (0.0..=super::MAX_IMPACT).contains(&i)) {
+                ctx.error(format!(
+                    "{at}: impact of \"{}\" must be a fraction from 0 to {}, not {i:?}",
+                    add.id,
+                    super::MAX_IMPACT
+                ));
             }
         }
         out.push(Change::AddCase(AddedCase {
@@ -455,11 +464,12 @@ fn axis_steps(ctx: &mut Ctx, a: &AxisFile) -> Vec<(String, Vec<Change>)> {
         let mut steps = Vec::new();
         for v in &a.values {
             let f = match v {
-                Quantity::Number(f) if f.is_finite() => *f,
+                Quantity::Number(f) if f.is_finite() && f.abs() <= super::MAX_FACTOR => *f,
                 other => {
                     ctx.error(format!(
-                        "{at}: {what} {} must be a plain number",
-                        other.show()
+                        "{at}: {what} {} must be a plain number from -{m} to {m}",
+                        other.show(),
+                        m = super::MAX_FACTOR
                     ));
                     1.0
                 }
@@ -531,6 +541,7 @@ pub fn load_sweep(text: &str, model: &Model) -> Result<Sweep, Diagnostics> {
             .name
             .clone()
             .unwrap_or_else(|| format!("variant {}", i + 1));
+        printable(&mut ctx, &name, &format!("variant number {}", i + 1));
         let (changes, parameters) = changes(&mut ctx, v, &format!("variant \"{name}\""));
         sweep.variants.push(Variant {
             name,
@@ -542,21 +553,40 @@ pub fn load_sweep(text: &str, model: &Model) -> Result<Sweep, Diagnostics> {
         let axes: Vec<Axis> = file
             .axes
             .iter()
-            .map(|a| (a.name.clone(), axis_steps(&mut ctx, a)))
+            .map(|a| {
+                printable(&mut ctx, &a.name, "an axis");
+                for st in &a.steps {
+                    if let Some(n) = &st.name {
+                        printable(
+                            &mut ctx,
+                            n,
+                            &format!("axis \"{}\" step", a.name.escape_debug()),
+                        );
+                    }
+                }
+                (a.name.clone(), axis_steps(&mut ctx, a))
+            })
             .collect();
         let total = axes
             .iter()
             .try_fold(1usize, |acc, (_, s)| acc.checked_mul(s.len()))
-            .filter(|&t| t <= MAX_VARIANTS);
+            .filter(|&t| t + sweep.variants.len() <= MAX_VARIANTS);
         match total {
             None => ctx.error(format!(
-                "the axes expand to more than {MAX_VARIANTS} variants; split the sweep"
+                "the listed variants and the axes' product make more than {MAX_VARIANTS} variants; split the sweep"
             )),
-            Some(_) if ctx.errors.is_empty() => product(&axes, &mut sweep),
+            // The product is not expanded: `Sweep::variant` builds each
+            // variant when it runs.
+            Some(_) if ctx.errors.is_empty() => sweep.axes = axes,
             Some(_) => {}
         }
     }
-    if sweep.variants.is_empty() {
+    if sweep.variants.len() > MAX_VARIANTS {
+        ctx.error(format!(
+            "the sweep lists more than {MAX_VARIANTS} variants; split the sweep"
+        ));
+    }
+    if sweep.is_empty() {
         ctx.error("the sweep has no variants (give variants or axes)".into());
     }
     if ctx.errors.is_empty() {
@@ -566,30 +596,13 @@ pub fn load_sweep(text: &str, model: &Model) -> Result<Sweep, Diagnostics> {
     }
 }
 
-/// An axis: its name and its steps (label, changes).
-type Axis = (String, Vec<(String, Vec<Change>)>);
-
-/// Every combination of axis steps, the last axis varying fastest.
-fn product(axes: &[Axis], sweep: &mut Sweep) {
-    let total: usize = axes.iter().map(|(_, s)| s.len()).product();
-    for mut k in 0..total {
-        let mut pick = vec![0; axes.len()];
-        for (a, (_, steps)) in axes.iter().enumerate().rev() {
-            pick[a] = k % steps.len();
-            k /= steps.len();
-        }
-        let mut v = Variant::default();
-        for (a, (name, steps)) in axes.iter().enumerate() {
-            let (label, changes) = &steps[pick[a]];
-            v.parameters.push((name.clone(), label.clone()));
-            v.changes.extend(changes.iter().cloned());
-        }
-        v.name = v
-            .parameters
-            .iter()
-            .map(|(_, l)| l.as_str())
-            .collect::<Vec<_>>()
-            .join(" / ");
-        sweep.variants.push(v);
+/// Sweep names reach the terminal, CSV and JSON: control characters and
+/// bidirectional marks are refused (issue 22, item 14).
+fn printable(ctx: &mut Ctx, name: &str, what: &str) {
+    if crate::textsafe::has_unsafe(name) {
+        ctx.error(format!(
+            "{what} name \"{}\" contains a control character or a bidirectional mark; names must print on one line as written",
+            name.escape_debug()
+        ));
     }
 }

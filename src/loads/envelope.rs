@@ -175,7 +175,7 @@ pub fn envelopes_with(
             let vehicle = &model.live.vehicles[ml.vehicle];
             let (tension, compression) = extremes(lines, vehicle, ml)?;
             let nm = model.members.len();
-            let per_member = (0..nm)
+            let per_member: Vec<MemberEnvelope> = (0..nm)
                 .map(|m| MemberEnvelope {
                     member: m,
                     id: model.members[m].id.to_string(),
@@ -184,7 +184,7 @@ pub fn envelopes_with(
                     compression: compression[m].clone(),
                 })
                 .collect();
-            let per_support = (0..model.supports.len())
+            let per_support: Vec<ReactionEnvelope> = (0..model.supports.len())
                 .map(|s| ReactionEnvelope {
                     support: s,
                     node: model.nodes[model.supports[s].node].id.clone(),
@@ -193,6 +193,7 @@ pub fn envelopes_with(
                     down: compression[nm + s].clone(),
                 })
                 .collect();
+            check_finite(model, ml, &per_member, &per_support)?;
             Ok(MovingEnvelope {
                 moving_load: ml.id.clone(),
                 vehicle: vehicle.id.clone(),
@@ -438,6 +439,34 @@ fn roll(
                 }
                 last = Some(p);
             }
+        }
+    }
+    Ok(())
+}
+
+/// Refuse an envelope holding an overflowed value, naming where (issue 22,
+/// item 12: an overflow must not be zeroed by the round-off floor and pass).
+fn check_finite(
+    model: &Model,
+    ml: &MovingLoad,
+    members: &[MemberEnvelope],
+    supports: &[ReactionEnvelope],
+) -> Result<(), LoadError> {
+    let bad = |of: String| LoadError::NonFinite {
+        id: ml.id.clone(),
+        of,
+    };
+    for e in members {
+        let v = [e.dead, e.max_tension(), e.max_compression()];
+        if !v.iter().all(|x| x.is_finite()) {
+            return Err(bad(format!("member \"{}\"", e.id)));
+        }
+    }
+    for (s, e) in supports.iter().enumerate() {
+        let v = [e.dead, e.up.force, e.down.force];
+        if !v.iter().all(|x| x.is_finite()) {
+            let node = &model.nodes[model.supports[s].node].id;
+            return Err(bad(format!("the reaction at \"{node}\"")));
         }
     }
     Ok(())

@@ -74,6 +74,11 @@ pub fn influence_lines(
     let nd = deck.nodes.len();
     let (nm, ns) = (model.members.len(), model.supports.len());
     let n = prepared.n();
+    crate::analysis::results::check_memory(
+        8.0 * nd as f64 * (nm + 2 * ns) as f64,
+        || format!("influence lines of {nm} members at {nd} deck nodes"),
+        "choose fewer members (--member) or a shorter deck (--deck)",
+    )?;
     let mut members = vec![0.0; nm * nd];
     let mut reactions = vec![[0.0; 2]; ns * nd];
     let unit = |k: usize| LoadCase {

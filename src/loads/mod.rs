@@ -294,12 +294,19 @@ pub enum LoadError {
     UnknownMember(String),
     #[error("the model has no moving loads: add `vehicles: [...]` and `moving_loads: [...]`")]
     NoMovingLoads,
-    #[error("moving load \"{id}\": {positions} positions at this step; use a step of at least {min:.3e} m")]
+    #[error("moving load \"{id}\": {positions} positions × {axles} axles = {work:.3e} axle placements (limits: {max_positions:.0e} positions, {max_work:.0e} axle placements); {advice}")]
     TooManyPositions {
         id: String,
         positions: f64,
-        min: f64,
+        axles: usize,
+        work: f64,
+        max_positions: f64,
+        max_work: f64,
+        advice: String,
     },
+    /// An envelope value overflowed (issue 22, item 12).
+    #[error("moving load \"{id}\": the envelope of {of} is not a finite number (overflow); the axle loads or impact are out of range")]
+    NonFinite { id: String, of: String },
     #[error(transparent)]
     Analysis(#[from] AnalysisError),
 }

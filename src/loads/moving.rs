@@ -203,6 +203,11 @@ impl Deck {
 /// Most positions of one vehicle in one direction the scan will visit.
 pub const MAX_POSITIONS: f64 = 2e6;
 
+/// Most positions × axles of one vehicle in one direction (each placement
+/// adds one influence-line row per axle): 2e7, a few seconds of work. A
+/// 20,000-axle vehicle otherwise runs for minutes (issue 22, item 10).
+pub const MAX_AXLE_PLACEMENTS: f64 = 2e7;
+
 /// Front-axle chainages visited for the axle train `axles` travelling in
 /// `direction`: every `step` from the front axle at the entry end until the
 /// rear axle has left, plus every position that puts an axle, or a point
@@ -226,12 +231,31 @@ pub fn positions(
         .fold(0.0, f64::max);
     let travel = deck.length() + length;
     let count = (travel / step).ceil();
-    let critical = ((axles.len() + extra.len()) * deck.chainage.len()) as f64;
-    if count + critical > MAX_POSITIONS {
+    let n_axles = axles.len() + extra.len();
+    let critical = (n_axles * deck.chainage.len()) as f64;
+    let positions = count + critical;
+    let per_axle = n_axles.max(1) as f64;
+    let work = positions * per_axle;
+    if positions > MAX_POSITIONS || work > MAX_AXLE_PLACEMENTS {
+        // Positions the step may add: what both limits leave after the
+        // axle-on-node positions, which no step changes.
+        let room = (MAX_POSITIONS - critical).min(MAX_AXLE_PLACEMENTS / per_axle - critical);
+        let advice = if room >= 1.0 {
+            format!("use a step of at least {:.3e} m", travel / room)
+        } else {
+            format!(
+                "{n_axles} axles over {} deck nodes are too many whatever the step: group close axles into fewer, heavier ones or use a lane load",
+                deck.chainage.len()
+            )
+        };
         return Err(LoadError::TooManyPositions {
             id: id.to_string(),
-            positions: count + critical,
-            min: travel / MAX_POSITIONS,
+            positions,
+            axles: n_axles,
+            work,
+            max_positions: MAX_POSITIONS,
+            max_work: MAX_AXLE_PLACEMENTS,
+            advice,
         });
     }
     let n = count as usize;

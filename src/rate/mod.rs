@@ -28,6 +28,9 @@ pub enum RateError {
     NoTensile(String),
     #[error("moving loads: {0}")]
     Loads(#[from] crate::loads::LoadError),
+    /// A combined or enveloped force overflowed (issue 22, item 12).
+    #[error("load case or combination \"{effect}\": the force of member \"{member}\" is not a finite number (overflow); the loads or factors are out of range")]
+    NonFinite { effect: String, member: String },
     #[error("member \"{member}\": {source}")]
     Capacity {
         member: String,
@@ -210,6 +213,14 @@ pub fn rate_results(
     let (moving, more) = combine::moving_effects_relieved(model, results, envelopes, relief);
     effects.extend(moving);
     relieved.extend(more);
+    for e in &effects {
+        if let Some(m) = e.forces.iter().position(|f| !f.is_finite()) {
+            return Err(RateError::NonFinite {
+                effect: e.id.clone(),
+                member: model.members[m].id.to_string(),
+            });
+        }
+    }
     let ratings = if method.rates {
         levels::rate_live_loads(model, results, envelopes, &method, &members)
     } else {

@@ -6,12 +6,22 @@ use crate::analysis::Analysis;
 use crate::model::Model;
 use std::io::{self, Write};
 
-/// A CSV field, quoted when it needs to be.
+/// A CSV text field (an id, a name, a message), quoted when it needs to
+/// be. Text beginning with `=`, `+`, `-`, `@`, a tab or a carriage return
+/// gets a leading apostrophe, so a spreadsheet shows it as text instead of
+/// running it as a formula (CSV formula injection; common practice, as the
+/// OWASP guidance on CSV injection recommends, from memory). Numbers are
+/// written by [`num`] and never altered; JSON keeps every id exact.
 pub fn field(s: &str) -> String {
+    let s = if s.starts_with(['=', '+', '-', '@', '\t', '\r']) {
+        std::borrow::Cow::Owned(format!("'{s}"))
+    } else {
+        std::borrow::Cow::Borrowed(s)
+    };
     if s.contains([',', '"', '\n', '\r']) {
         format!("\"{}\"", s.replace('"', "\"\""))
     } else {
-        s.to_string()
+        s.into_owned()
     }
 }
 
@@ -66,4 +76,28 @@ pub fn solve(w: &mut dyn Write, model: &Model, analysis: &Analysis) -> io::Resul
         }
     }
     Ok(())
+}
+
+#[cfg(test)]
+mod injection {
+    use super::*;
+
+    #[test]
+    fn formula_like_text_is_neutralised_and_numbers_are_not() {
+        // Each leading character a spreadsheet treats as a formula.
+        assert_eq!(field("=1+2"), "'=1+2");
+        assert_eq!(field("+A1"), "'+A1");
+        assert_eq!(field("-AB"), "'-AB");
+        assert_eq!(field("@SUM(A1)"), "'@SUM(A1)");
+        assert_eq!(field("\tx"), "'\tx");
+        assert_eq!(field("\rx"), "\"'\rx\"");
+        // Quoting still applies after the apostrophe.
+        assert_eq!(
+            field("=HYPERLINK(\"a\",\"b\")"),
+            "\"'=HYPERLINK(\"\"a\"\",\"\"b\"\")\""
+        );
+        // Ordinary text is untouched, and a negative number stays a number.
+        assert_eq!(field("U1-L2"), "U1-L2");
+        assert_eq!(num(-2.5), "-2.5");
+    }
 }

@@ -3,6 +3,7 @@
 //! failed run never leaves a half-written or spoiled file.
 
 pub mod atomic;
+pub mod cleanup;
 pub mod csv;
 pub mod fatigue_csv;
 pub mod fatigue_json;

@@ -15,10 +15,65 @@ pub use variant::{apply, Kind, VariantError};
 
 use crate::model::CaseKind;
 
-/// A whole sweep: the variants in index order (index 0 first).
+/// A whole sweep: the listed variants (index 0 first), then the product
+/// of the axes, which is not expanded: [`Sweep::variant`] builds variant
+/// `i` when it is run, so a shard or a large product never holds every
+/// variant in memory (issue 22, items 9 and 16).
 #[derive(Clone, Debug, Default, PartialEq)]
 pub struct Sweep {
     pub variants: Vec<Variant>,
+    /// The axes: name and steps (label, changes); empty when none.
+    pub axes: Vec<Axis>,
+}
+
+/// An axis of a sweep: its name and its steps (label, changes).
+pub type Axis = (String, Vec<(String, Vec<Change>)>);
+
+impl Sweep {
+    /// Number of variants of the axes' product (0 without axes).
+    pub fn product_len(&self) -> usize {
+        if self.axes.is_empty() {
+            0
+        } else {
+            self.axes.iter().map(|(_, s)| s.len()).product()
+        }
+    }
+
+    /// Number of variants: listed, then the product.
+    pub fn len(&self) -> usize {
+        self.variants.len() + self.product_len()
+    }
+
+    pub fn is_empty(&self) -> bool {
+        self.len() == 0
+    }
+
+    /// Variant `i` (listed first, then the product with the last axis
+    /// varying fastest); built on demand for the product.
+    pub fn variant(&self, i: usize) -> std::borrow::Cow<'_, Variant> {
+        if let Some(v) = self.variants.get(i) {
+            return std::borrow::Cow::Borrowed(v);
+        }
+        let mut k = i - self.variants.len();
+        let mut pick = vec![0; self.axes.len()];
+        for (a, (_, steps)) in self.axes.iter().enumerate().rev() {
+            pick[a] = k % steps.len();
+            k /= steps.len();
+        }
+        let mut v = Variant::default();
+        for (a, (name, steps)) in self.axes.iter().enumerate() {
+            let (label, changes) = &steps[pick[a]];
+            v.parameters.push((name.clone(), label.clone()));
+            v.changes.extend(changes.iter().cloned());
+        }
+        v.name = v
+            .parameters
+            .iter()
+            .map(|(_, l)| l.as_str())
+            .collect::<Vec<_>>()
+            .join(" / ");
+        std::borrow::Cow::Owned(v)
+    }
 }
 
 /// One variant: a name, a description of its parameters and the changes

@@ -183,7 +183,8 @@ fn run_chunk(base: &Base, sweep: &Sweep, chunk: &[usize], opts: &RunOptions) -> 
     let mut out: Vec<VariantResult> = Vec::with_capacity(chunk.len());
     let mut block: Vec<(usize, Model)> = Vec::new();
     for &i in chunk {
-        let v = &sweep.variants[i];
+        let v = sweep.variant(i);
+        let v = &*v;
         let kind = v.kind();
         let model = match apply(base.model, v) {
             Ok(m) => m,
@@ -220,13 +221,15 @@ fn run_chunk(base: &Base, sweep: &Sweep, chunk: &[usize], opts: &RunOptions) -> 
         match &base.prepared {
             Err(e) => {
                 for (i, _) in &block {
-                    let v = &sweep.variants[*i];
+                    let v = sweep.variant(*i);
+                    let v = &*v;
                     out.push(row(*i, v, Kind::LoadsOnly, Err(e.to_string())));
                 }
             }
             Ok(p) => {
                 for (i, model, r) in solve_block(p, block) {
-                    let v = &sweep.variants[i];
+                    let v = sweep.variant(i);
+                    let v = &*v;
                     let r = r.and_then(|c| summarise(&model, &c, p, opts));
                     out.push(row(i, v, Kind::LoadsOnly, r));
                 }

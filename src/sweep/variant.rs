@@ -259,6 +259,19 @@ pub fn without_member(m: &Model, j: usize) -> Result<Model, VariantError> {
 
 /// Moves must not make a member of zero length.
 fn check_geometry(m: &Model) -> Result<(), VariantError> {
+    // The loader's coordinate bound holds for moved nodes too (issue 22,
+    // item 16): a move of 1e300 m is an error for that row, not a solve.
+    let max = crate::input::convert::MAX_COORDINATE;
+    for n in &m.nodes {
+        for (axis, v) in [("x", n.x), ("y", n.y)] {
+            if v.is_nan() || v.abs() > max {
+                return Err(VariantError::Invalid(format!(
+                    "node \"{}\" coordinate {axis} = {v:.3e} m after the moves is beyond ±{max:.0e} m",
+                    n.id
+                )));
+            }
+        }
+    }
     for (j, mem) in m.members.iter().enumerate() {
         let l = m.length(j);
         if !(l.is_finite() && l > 1e-9) {
