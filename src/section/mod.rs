@@ -29,6 +29,7 @@ pub mod holes;
 pub mod lacing;
 pub mod outline;
 pub mod part;
+pub mod torsion;
 
 pub use builtup::{
     principal_moments, properties, properties_original, properties_with_original,
@@ -44,6 +45,7 @@ pub use lacing::{
     K_I_BACK_TO_BACK_ANGLES, K_I_BACK_TO_BACK_CHANNELS, K_I_OTHER,
 };
 pub use outline::{outline, outline_original, try_outline};
+pub use torsion::{torsion, TorsionProperties};
 pub use part::{
     part_properties, part_properties_indexed, Direction, Orientation, PartProperties, PlacedPart,
     Quadrant, Shape,
