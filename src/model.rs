@@ -43,6 +43,9 @@ pub struct BuiltUp {
     /// Whether the section's x axis (rather than y) lies in the truss plane.
     pub x_in_plane: bool,
     pub lacing: Option<Lacing>,
+    /// Shear centre, J and Cw of the section as inspected (SI, section
+    /// coordinates); `None` when a part is known only by table properties.
+    pub torsion: Option<crate::section::TorsionProperties>,
 }
 
 /// Lacing or battens of a built-up member (AISC 360-16 §E6).

@@ -100,6 +100,13 @@ fn built_up(ctx: &mut Ctx, s: &SectionFile, parts: &[PartFile], u: &DisplayUnits
             return fallback;
         }
     };
+    let torsion = match section::torsion(&placed) {
+        Ok(t) => t,
+        Err(e) => {
+            ctx.error(format!("section \"{}\": {e}", s.id), at);
+            return fallback;
+        }
+    };
     let x_in_plane = s.truss_plane == Some(PlaneAxisFile::X);
     let r = &props.reduced;
     let (i_in, i_out) = if x_in_plane {
@@ -212,6 +219,7 @@ fn built_up(ctx: &mut Ctx, s: &SectionFile, parts: &[PartFile], u: &DisplayUnits
             reduced: props.reduced,
             x_in_plane,
             lacing,
+            torsion,
         }),
     }
 }

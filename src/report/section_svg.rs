@@ -46,8 +46,9 @@ fn num(v: f64) -> String {
 /// The viewBox is fitted to the parts with a margin; section y points up
 /// (drawn as −y). Parts are filled grey with a dark outline (voids by the
 /// even-odd rule), missing parts are drawn dashed and unfilled at their
-/// as-built outline, the centroid is marked with a cross and the centroidal
-/// x and y axes are drawn. The title line gives `id`, area, Ix and Iy in
+/// as-built outline, the centroid is marked with a cross, the shear centre
+/// (when the parts' walls are known, [`crate::section::torsion`]) with a
+/// circle labelled S, and the centroidal x and y axes are drawn. The title line gives `id`, area, Ix and Iy in
 /// `unit`. Parts that cannot be outlined are skipped.
 pub fn section_svg(
     id: &str,
@@ -76,7 +77,15 @@ pub fn section_svg(
     } else {
         (0.0, 0.0)
     };
+    // Shear centre by thin-walled theory (None for table-only parts).
+    let sc = crate::section::torsion(parts)
+        .ok()
+        .flatten()
+        .map(|t| (t.shear_centre_x, t.shear_centre_y));
     let (mut xmin, mut xmax, mut ymin, mut ymax) = (cx, cx, cy, cy);
+    if let Some((x, y)) = sc {
+        (xmin, xmax, ymin, ymax) = (xmin.min(x), xmax.max(x), ymin.min(y), ymax.max(y));
+    }
     for (_, o) in &polys {
         for &(x, y) in o.iter().flatten() {
             xmin = xmin.min(x);
@@ -193,6 +202,29 @@ pub fn section_svg(
         -cy + c,
         1.5 * stroke
     );
+    // Shear centre: a small open circle with a dot, labelled S.
+    if let Some((x, y)) = sc {
+        let _ = writeln!(
+            s,
+            r##"<circle cx="{x:.4}" cy="{:.4}" r="{:.4}" fill="none" stroke="#6a3d9a" stroke-width="{:.4}" class="shear-centre"/>"##,
+            -y,
+            0.02 * size,
+            1.2 * stroke
+        );
+        let _ = writeln!(
+            s,
+            r##"<circle cx="{x:.4}" cy="{:.4}" r="{:.4}" fill="#6a3d9a" class="shear-centre-dot"/>"##,
+            -y,
+            0.006 * size
+        );
+        let _ = writeln!(
+            s,
+            r##"<text x="{:.4}" y="{:.4}" font-family="sans-serif" font-size="{:.4}" fill="#6a3d9a">S</text>"##,
+            x + 0.025 * size,
+            -y + 0.035 * size,
+            0.04 * size
+        );
+    }
     let u = xml_escape(unit);
     let title = format!(
         "{}: A = {} {u}², Ix = {} {u}⁴, Iy = {} {u}⁴",
@@ -262,6 +294,48 @@ mod tests {
         assert!(svg.contains(&format!("A = {} in²", num(props.area))));
         assert!(svg.contains(&format!("Ix = {} in⁴", num(props.ix))));
         assert!(!svg.contains("NaN") && !svg.contains("inf"));
+    }
+
+    #[test]
+    fn shear_centre_is_marked_behind_a_channel_web() {
+        // A channel's shear centre lies behind its web, outside the steel
+        // (thin-walled closed form, e = 3b'²tf/(6b'tf + h'tw) from the web
+        // centre line): the mark must sit left of the web's back at x = −x̄.
+        let parts = vec![PlacedPart::new(
+            Shape::Channel {
+                depth: 12.0,
+                flange_width: 3.0,
+                web_thickness: 0.3,
+                flange_thickness: 0.5,
+                flange_slope: 0.0,
+            },
+            0.0,
+            0.0,
+        )];
+        let props = properties(&parts).unwrap();
+        let svg = section_svg("c", &parts, &props, "in");
+        let at = svg.find("class=\"shear-centre\"").expect("marked");
+        let tag = &svg[svg[..at].rfind("<circle").unwrap()..at];
+        let cx: f64 = tag
+            .split("cx=\"")
+            .nth(1)
+            .unwrap()
+            .split('"')
+            .next()
+            .unwrap()
+            .parse()
+            .unwrap();
+        // b' = 3 − 0.15, h' = 12 − 0.5; the web centre line lies at
+        // −x̄ + tw/2 with x̄ the channel's own centroid from its back.
+        let (b, tf, tw, h) = (2.85, 0.5, 0.3, 11.5);
+        let e = 3.0 * b * b * tf / (6.0 * b * tf + h * tw);
+        let xbar = parts[0].shape.local(0).unwrap().cx;
+        assert!((cx - (-xbar + tw / 2.0 - e)).abs() < 1e-3, "{cx}");
+        assert!(cx < 0.0);
+        // No shear centre for parts known only by table properties.
+        let given = vec![PlacedPart::new(Shape::given(8.2, 190.0, 6.3), 0.0, 0.0)];
+        let p2 = properties(&given).unwrap();
+        assert!(!section_svg("g", &given, &p2, "in").contains("shear-centre"));
     }
 
     #[test]

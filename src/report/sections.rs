@@ -107,6 +107,30 @@ pub fn text(w: &mut dyn Write, model: &Model, id: Option<&str>) -> io::Result<()
                     sig(s.i_in / f.powi(4), 5),
                     sig(s.i_out / f.powi(4), 5)
                 )?;
+                match &b.torsion {
+                    Some(t) => {
+                        writeln!(
+                            w,
+                            "torsion (after loss, thin-walled centre lines): shear centre x = {} {unit}, y = {} {unit} (x0 = {}, y0 = {} from the centroid); J = {} {unit}4; Cw = {} {unit}6",
+                            sig(t.shear_centre_x / f, 4),
+                            sig(t.shear_centre_y / f, 4),
+                            sig((t.shear_centre_x - b.reduced.centroid_x) / f, 4),
+                            sig((t.shear_centre_y - b.reduced.centroid_y) / f, 4),
+                            sig(t.j / f.powi(4), 4),
+                            sig(t.cw / f.powi(6), 4),
+                        )?;
+                        if t.links > 0 {
+                            writeln!(w, "note: {} joint(s) between parts that do not touch are taken through the lacing or tie plates (warping continuous); the lacing adds nothing to J (conservative)", t.links)?;
+                        }
+                        if t.closed_cells > 0 {
+                            writeln!(w, "note: {} closed cell(s) found; the section is taken as open (cut), which underestimates J (conservative)", t.closed_cells)?;
+                        }
+                    }
+                    None => writeln!(
+                        w,
+                        "torsion: not computed (a part is given only by table properties); flexural-torsional buckling cannot be checked for this section"
+                    )?,
+                }
                 if b.reduced.balance < 0.9 {
                     writeln!(
                         w,
@@ -200,6 +224,27 @@ pub fn json(w: &mut dyn Write, model: &Model, id: Option<&str>) -> io::Result<()
             num(s.i_out / f.powi(4)),
             num(s.net_area / f.powi(2)),
         )?;
+        // Torsion: J, Cw and the shear centre in the centroid's frame
+        // (null when a part is known only by its table properties).
+        let t = s.built_up.as_ref().and_then(|b| b.torsion.as_ref());
+        write!(
+            w,
+            ",\"j\":{},\"cw\":{},\"shear_centre\":{}",
+            t.map_or("null".into(), |t| num(t.j / f.powi(4))),
+            t.map_or("null".into(), |t| num(t.cw / f.powi(6))),
+            t.map_or("null".into(), |t| format!(
+                "{{\"x\":{},\"y\":{}}}",
+                num(t.shear_centre_x / f),
+                num(t.shear_centre_y / f)
+            )),
+        )?;
+        if let Some(t) = t {
+            write!(
+                w,
+                ",\"torsion_closed_cells\":{},\"torsion_links\":{}",
+                t.closed_cells, t.links
+            )?;
+        }
         if let Some(b) = &s.built_up {
             let r = &b.reduced;
             write!(

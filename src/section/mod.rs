@@ -45,11 +45,11 @@ pub use lacing::{
     K_I_BACK_TO_BACK_ANGLES, K_I_BACK_TO_BACK_CHANNELS, K_I_OTHER,
 };
 pub use outline::{outline, outline_original, try_outline};
-pub use torsion::{torsion, TorsionProperties};
 pub use part::{
     part_properties, part_properties_indexed, Direction, Orientation, PartProperties, PlacedPart,
     Quadrant, Shape,
 };
+pub use torsion::{torsion, TorsionProperties};
 
 /// Everything that can be wrong with a section description.
 ///

@@ -15,8 +15,8 @@
 //!   tabulated `J` includes the fillets (conservative).
 //! * `J = Σ ∫t³ds/3` over the open walls (Σ b·t³/3 for walls of constant
 //!   thickness; links have none).
-//! * Parts are joined where they touch (their centre lines closer than half
-//!   the sum of their thicknesses, as riveted plies do) by a wall of zero
+//! * Parts are joined where they touch as built (their centre lines closer
+//!   than half the sum of their thicknesses, as riveted plies do) by a wall of zero
 //!   thickness between the closest points of the centre lines; parts that do
 //!   not touch (channels tied only by lacing or tie plates) are joined the same
 //!   way at their closest points — the lacing plane is taken as keeping the
@@ -88,6 +88,7 @@ impl Wall {
 /// parts left out); `None` when a part's walls are unknown (see module docs).
 pub fn torsion(parts: &[PlacedPart]) -> Result<Option<TorsionProperties>, SectionError> {
     let mut walls: Vec<Vec<Wall>> = Vec::new();
+    let mut built: Vec<Vec<Wall>> = Vec::new();
     let mut compact = Vec::new();
     for (i, p) in parts.iter().enumerate() {
         let r = resolve(i, p, true)?;
@@ -100,28 +101,30 @@ pub fn torsion(parts: &[PlacedPart]) -> Result<Option<TorsionProperties>, Sectio
             } => (shape, *area_factor),
             super::condition::Condition::Missing => continue,
         };
-        match datum_walls(shape) {
-            Shape3::Walls(ws) => {
+        match (datum_walls(shape), datum_walls(&p.shape)) {
+            (Shape3::Walls(ws), Shape3::Walls(original)) if ws.len() == original.len() => {
                 let [[a, b], [c, d]] = r.matrix;
                 let (cx, cy) = r.datum_centroid;
-                let place = |(u, v): (f64, f64)| {
-                    let (u, v) = (u - cx, v - cy);
-                    (p.x + a * u + b * v, p.y + c * u + d * v)
-                };
-                walls.push(
+                let place = |ws: Vec<Wall>, k: f64| -> Vec<Wall> {
+                    let at = |(u, v): (f64, f64)| {
+                        let (u, v) = (u - cx, v - cy);
+                        (p.x + a * u + b * v, p.y + c * u + d * v)
+                    };
                     ws.into_iter()
                         .map(|w| Wall {
-                            a: place(w.a),
-                            b: place(w.b),
-                            // An area loss in percent is uniform thinning.
-                            ta: w.ta * factor,
-                            tb: w.tb * factor,
+                            a: at(w.a),
+                            b: at(w.b),
+                            ta: w.ta * k,
+                            tb: w.tb * k,
                         })
-                        .collect(),
-                );
+                        .collect()
+                };
+                // An area loss in percent is uniform thinning.
+                walls.push(place(ws, factor));
+                built.push(place(original, 1.0));
             }
-            Shape3::Compact(j) => compact.push((r.props.centroid_x, r.props.centroid_y, j)),
-            Shape3::Unknown => return Ok(None),
+            (Shape3::Compact(j), _) => compact.push((r.props.centroid_x, r.props.centroid_y, j)),
+            _ => return Ok(None),
         }
     }
     match (walls.len(), compact.len()) {
@@ -137,7 +140,7 @@ pub fn torsion(parts: &[PlacedPart]) -> Result<Option<TorsionProperties>, Sectio
             }))
         }
         (0, _) => Ok(None),
-        (_, 0) => Ok(open_section(&walls)),
+        (_, 0) => Ok(open_section(&walls, &built)),
         _ => Ok(None),
     }
 }
@@ -342,20 +345,19 @@ struct Element {
     tb: f64,
 }
 
-fn open_section(parts: &[Vec<Wall>]) -> Option<TorsionProperties> {
-    let scale = parts
-        .iter()
-        .flatten()
-        .map(|w| w.len())
-        .fold(0.0, f64::max);
+/// The joined open section of `parts` (as inspected); where parts touch is
+/// decided on the as-built walls `built` (a ply thinned by corrosion is
+/// still riveted to the next).
+fn open_section(parts: &[Vec<Wall>], built: &[Vec<Wall>]) -> Option<TorsionProperties> {
+    let scale = parts.iter().flatten().map(|w| w.len()).fold(0.0, f64::max);
     let touch = 1e-6 * scale;
     // Candidate joints: the closest walls of every pair of parts.
     let mut joints = Vec::new();
-    for p in 0..parts.len() {
-        for q in p + 1..parts.len() {
+    for p in 0..built.len() {
+        for q in p + 1..built.len() {
             let mut best: Option<Joint> = None;
-            for (wi, wp) in parts[p].iter().enumerate() {
-                for (wj, wq) in parts[q].iter().enumerate() {
+            for (wi, wp) in built[p].iter().enumerate() {
+                for (wj, wq) in built[q].iter().enumerate() {
                     let (d, s, u, overlap) = closest(wp, wq);
                     let jn = Joint {
                         parts: (p, q),
@@ -574,7 +576,8 @@ fn integrate(nodes: &[(f64, f64)], els: &[Element]) -> Option<TorsionProperties>
         .zip(&lens)
         .map(|(e, &l)| {
             // ∫t³ds for linear t: L·(ta³ + ta²tb + ta·tb² + tb³)/4.
-            l * (e.ta.powi(3) + e.ta.powi(2) * e.tb + e.ta * e.tb.powi(2) + e.tb.powi(3)) / 4.0
+            l * (e.ta.powi(3) + e.ta.powi(2) * e.tb + e.ta * e.tb.powi(2) + e.tb.powi(3))
+                / 4.0
                 / 3.0
         })
         .sum();
@@ -599,7 +602,9 @@ mod tests {
     use approx::assert_relative_eq;
 
     fn one(shape: Shape) -> TorsionProperties {
-        torsion(&[PlacedPart::new(shape, 0.0, 0.0)]).unwrap().unwrap()
+        torsion(&[PlacedPart::new(shape, 0.0, 0.0)])
+            .unwrap()
+            .unwrap()
     }
 
     fn plate(w: f64, t: f64, x: f64, y: f64) -> PlacedPart {
@@ -664,8 +669,8 @@ mod tests {
         let t = one(shape);
         let (h, b) = (d - tf, bf - tw / 2.0);
         let e = 3.0 * b * b * tf / (6.0 * b * tf + h * tw);
-        let cw = tf * b.powi(3) * h * h / 12.0 * (3.0 * b * tf + 2.0 * h * tw)
-            / (6.0 * b * tf + h * tw);
+        let cw =
+            tf * b.powi(3) * h * h / 12.0 * (3.0 * b * tf + 2.0 * h * tw) / (6.0 * b * tf + h * tw);
         assert_relative_eq!(t.cw, cw, max_relative = 1e-9);
         assert_relative_eq!(
             t.j,
@@ -692,8 +697,8 @@ mod tests {
         ];
         let t = torsion(&parts).unwrap().unwrap();
         let e = 3.0 * b * b * tf / (6.0 * b * tf + h * tw);
-        let cw = tf * b.powi(3) * h * h / 12.0 * (3.0 * b * tf + 2.0 * h * tw)
-            / (6.0 * b * tf + h * tw);
+        let cw =
+            tf * b.powi(3) * h * h / 12.0 * (3.0 * b * tf + 2.0 * h * tw) / (6.0 * b * tf + h * tw);
         assert_relative_eq!(t.cw, cw, max_relative = 1e-9);
         assert_relative_eq!(t.shear_centre_x, -e, max_relative = 1e-9);
         assert_eq!((t.closed_cells, t.links), (0, 0));
@@ -724,8 +729,9 @@ mod tests {
         ];
         let t = torsion(&parts).unwrap().unwrap();
         let (h, b, e) = (d - tf, bf - tw / 2.0, tw / 2.0);
-        let cw = 4.0 * (h * h / 4.0 * tf * ((b - e).powi(3) + e.powi(3)) / 3.0
-            + e * e * tw * h.powi(3) / 24.0);
+        let cw = 4.0
+            * (h * h / 4.0 * tf * ((b - e).powi(3) + e.powi(3)) / 3.0
+                + e * e * tw * h.powi(3) / 24.0);
         assert_relative_eq!(t.cw, cw, max_relative = 1e-9);
         assert_relative_eq!(
             t.j,
@@ -760,10 +766,7 @@ mod tests {
             flange_slope: 0.0,
         };
         let xbar = ch.local(0).unwrap().cx;
-        let parts = vec![
-            PlacedPart::new(ch, xbar, 0.0),
-            web(hp, tp, -tp / 2.0, 0.0),
-        ];
+        let parts = vec![PlacedPart::new(ch, xbar, 0.0), web(hp, tp, -tp / 2.0, 0.0)];
         let t = torsion(&parts).unwrap().unwrap();
         let (w, c, hh, b, hp2) = (tw / 2.0, tp / 2.0, (d - tf) / 2.0, bf - tw / 2.0, hp / 2.0);
         let iwy = -hh * hh * tf * b * b - (c + w) * tp * 2.0 * hp2.powi(3) / 3.0;
