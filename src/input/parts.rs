@@ -111,7 +111,7 @@ macro_rules! part_kinds {
 
 part_kinds! {
     /// A flat plate: width along x, thickness along y.
-    Plate { width: Quantity, thickness: Quantity },
+    Plate { width: Quantity, thickness: Quantity, #[serde(default)] gauge: Option<Quantity> },
     /// Any shape by its table properties about its own centroid.
     Part { area: Quantity, ix: Quantity, iy: Quantity, #[serde(default)] ixy: Option<Quantity>, #[serde(default)] depth: Option<Quantity>, #[serde(default)] width: Option<Quantity> },
     /// A channel by its dimensions (flange_slope: inner-face rise/run, 0 for parallel flanges).
@@ -127,7 +127,7 @@ part_kinds! {
     Pipe { outer_diameter: Quantity, wall: Quantity },
     RectTube { width: Quantity, height: Quantity, wall: Quantity },
     /// A rectangular eye-bar: width in the truss plane.
-    EyeBar { width: Quantity, thickness: Quantity },
+    EyeBar { width: Quantity, thickness: Quantity, #[serde(default)] gauge: Option<Quantity> },
 }
 
 /// Which section axis lies in the plane of the truss.
@@ -315,6 +315,23 @@ pub(super) fn convert_parts(
                 thickness: l(ctx, thickness, "thickness"),
             },
         };
+        // Plates: the distance between the two lines of fasteners (§E7 width).
+        let gauge = match p {
+            PartFile::Plate { gauge, width, .. } | PartFile::EyeBar { gauge, width, .. } => {
+                gauge.as_ref().map(|q| {
+                    let g = l(ctx, q, "gauge");
+                    let wd = l(ctx, width, "width");
+                    if !(g > 0.0 && g <= wd) {
+                        ctx.error(
+                            format!("{}: must be positive and not more than the width", w("gauge")),
+                            None,
+                        );
+                    }
+                    g
+                })
+            }
+            _ => None,
+        };
         let (x, y, holes, loss, label, rotated, toes, legs) = p.common();
         let x = l(ctx, x, "x");
         let y = l(ctx, y, "y");
@@ -372,6 +389,7 @@ pub(super) fn convert_parts(
             holes: hs,
             loss,
             label: label.clone(),
+            gauge,
         });
     }
     out

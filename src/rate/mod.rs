@@ -8,9 +8,11 @@
 
 mod checks;
 mod combine;
+pub mod modes;
 
 pub use checks::{member_capacity, Axis, LacingEffect, MemberCapacity};
 pub use combine::{load_effects, moving_effects, LoadEffect, Side};
+pub use modes::{compression_modes, BucklingMode, CompressionModes, ModeKind};
 
 use crate::analysis::{Analysis, CaseResult};
 use crate::capacity::{self, Curve, Regime};
@@ -315,12 +317,12 @@ pub fn rate_results(
         let compressed = effects.iter().any(|e| e.forces[m] < 0.0);
         let tensioned = effects.iter().any(|e| e.forces[m] > 0.0);
         if let (Some(le), true) = (&cap.lacing, compressed) {
-            let pmax = effects.iter().map(|e| -e.forces[m]).fold(0.0f64, f64::max);
+            // §E6.2: 2 % of the available compressive strength, not the demand.
+            let pmax = cap.compression.capacity;
             let s = crate::report::Scale::of(model);
             notes.push(format!(
-                "member \"{id}\": laced built-up member, (KL/r)o = {:.1} → (KL/r)m = {:.1} (AISC 360-16 §E6.1); lacing designed for V = 2% of {:.1} {} = {:.2} {} (§E6.2)",
+                "member \"{id}\": laced built-up member with tie plates, KL/r = {:.1} about the laced axis, not modified (AISC 360-16 §E6.1(b)); lacing designed for V = 2% of the available strength {:.1} {} = {:.2} {} (§E6.2)",
                 le.overall,
-                le.modified,
                 pmax / s.force,
                 s.force_name,
                 section::lacing_shear(pmax) / s.force,
@@ -334,6 +336,9 @@ pub fn rate_results(
             }
         }
         if compressed {
+            if model.sections[model.members[m].section].built_up.is_some() {
+                notes.extend(cap.modes.report_notes(id, cap.compression.critical_stress));
+            }
             if let Some(w) = capacity::slenderness_warning(cap.slenderness(), true) {
                 notes.push(format!("member \"{id}\": {w}"));
             }

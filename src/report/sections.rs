@@ -296,6 +296,7 @@ pub fn svg(w: &mut dyn Write, model: &Model, section: &Section) -> io::Result<()
                 other => other.clone(),
             }),
             label: p.label.clone(),
+            gauge: p.gauge.map(|g| g / f),
         })
         .collect();
     let props = crate::section::properties(&parts).map_err(io::Error::other)?;

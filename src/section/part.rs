@@ -703,6 +703,10 @@ pub struct PlacedPart {
     pub holes: Vec<Hole>,
     pub loss: Option<Loss>,
     pub label: Option<String>,
+    /// For a plate: the distance between its two lines of fasteners (the
+    /// width of the element between supports of AISC 360-16 Table B4.1a,
+    /// case 7); `None` takes the middle of each part touching it.
+    pub gauge: Option<f64>,
 }
 
 impl PlacedPart {
@@ -716,6 +720,7 @@ impl PlacedPart {
             holes: Vec::new(),
             loss: None,
             label: None,
+            gauge: None,
         }
     }
     /// The same part turned to `orientation`.
@@ -731,6 +736,11 @@ impl PlacedPart {
     /// The same part with an inspected loss.
     pub fn with_loss(mut self, loss: Loss) -> PlacedPart {
         self.loss = Some(loss);
+        self
+    }
+    /// The same plate with its lines of fasteners `gauge` apart.
+    pub fn with_gauge(mut self, gauge: f64) -> PlacedPart {
+        self.gauge = Some(gauge);
         self
     }
     /// The same part with a label for reports.

@@ -145,6 +145,67 @@ pub fn torsion(parts: &[PlacedPart]) -> Result<Option<TorsionProperties>, Sectio
     }
 }
 
+/// Where other parts touch part `i` (a plate or eye-bar), as built: for each
+/// contact the stretch `(from, to)` of the plate's width it covers (one point
+/// for a wall meeting it end on), as distances from its first edge (the −x
+/// edge of a plate in its reference orientation, the −y edge of an eye-bar),
+/// sorted. Missing parts and parts known only by table properties support
+/// nothing. Empty for other shapes.
+pub fn plate_contacts(
+    parts: &[PlacedPart],
+    i: usize,
+) -> Result<Vec<(f64, f64)>, SectionError> {
+    let walls_of = |k: usize| -> Result<Option<Vec<Wall>>, SectionError> {
+        let p = &parts[k];
+        let r = resolve(k, p, true)?;
+        if r.missing {
+            return Ok(None);
+        }
+        let Shape3::Walls(ws) = datum_walls(&p.shape) else {
+            return Ok(None);
+        };
+        let [[a, b], [c, d]] = r.matrix;
+        let (cx, cy) = r.datum_centroid;
+        let at = |(u, v): (f64, f64)| {
+            let (u, v) = (u - cx, v - cy);
+            (p.x + a * u + b * v, p.y + c * u + d * v)
+        };
+        Ok(Some(
+            ws.into_iter()
+                .map(|w| Wall {
+                    a: at(w.a),
+                    b: at(w.b),
+                    ..w
+                })
+                .collect(),
+        ))
+    };
+    if !matches!(parts[i].shape, Shape::Plate { .. } | Shape::EyeBar { .. }) {
+        return Ok(Vec::new());
+    }
+    let Some(mine) = walls_of(i)? else {
+        return Ok(Vec::new());
+    };
+    let plate = mine[0];
+    let touch = 1e-6 * plate.len();
+    let mut out = Vec::new();
+    for k in (0..parts.len()).filter(|&k| k != i) {
+        for w in walls_of(k)?.unwrap_or_default() {
+            let (d, s, u, overlap) = closest(&plate, &w);
+            if d - (plate.at(s).1 + w.at(u).1) / 2.0 <= touch {
+                let (lo, hi) = if overlap > touch {
+                    overlap_range(&plate, &w)
+                } else {
+                    (s, s)
+                };
+                out.push((lo * plate.len(), hi * plate.len()));
+            }
+        }
+    }
+    out.sort_by(|a, b| a.0.total_cmp(&b.0));
+    Ok(out)
+}
+
 enum Shape3 {
     Walls(Vec<Wall>),
     Compact(f64),
@@ -301,6 +362,56 @@ fn closest(p: &Wall, q: &Wall) -> (f64, f64, f64, f64) {
     best
 }
 
+/// Projection of `q`'s ends on `p` (parameters, clamped to `p`), low first.
+fn overlap_range(p: &Wall, q: &Wall) -> (f64, f64) {
+    let d = (p.b.0 - p.a.0, p.b.1 - p.a.1);
+    let l = d.0 * d.0 + d.1 * d.1;
+    let pr = |pt: (f64, f64)| (((pt.0 - p.a.0) * d.0 + (pt.1 - p.a.1) * d.1) / l).clamp(0.0, 1.0);
+    let (a, b) = (pr(q.a), pr(q.b));
+    (a.min(b), a.max(b))
+}
+
+/// Whether point `pt` is where wall `w` of a part meets another of its walls.
+fn junction(ws: &[Wall], w: usize, pt: (f64, f64), tol: f64) -> bool {
+    let near = |a: (f64, f64)| (a.0 - pt.0).abs() <= tol && (a.1 - pt.1).abs() <= tol;
+    let end = near(ws[w].a) || near(ws[w].b);
+    end && ws
+        .iter()
+        .enumerate()
+        .any(|(k, o)| k != w && (near(o.a) || near(o.b)))
+}
+
+/// Where two parallel plies lying against each other are joined: at the end
+/// of their overlap where one of them meets another wall of its part (the
+/// heels of two angles back to back: the plies then act as one wall through
+/// that junction, as the steel tables take it), when exactly one end is such
+/// a junction; otherwise at the middle of the overlap (`mid`).
+fn ply_joint(
+    pw: &[Wall],
+    wi: usize,
+    qw: &[Wall],
+    wj: usize,
+    mid: (f64, f64),
+    tol: f64,
+) -> (f64, f64) {
+    let (p, q) = (&pw[wi], &qw[wj]);
+    let (lo, hi) = overlap_range(p, q);
+    let d = (q.b.0 - q.a.0, q.b.1 - q.a.1);
+    let l = d.0 * d.0 + d.1 * d.1;
+    let on_q = |pt: (f64, f64)| (((pt.0 - q.a.0) * d.0 + (pt.1 - q.a.1) * d.1) / l).clamp(0.0, 1.0);
+    let is_junction = |s: f64| {
+        let pt = p.at(s).0;
+        let u = on_q(pt);
+        (junction(pw, wi, pt, tol) || junction(qw, wj, q.at(u).0, tol), u)
+    };
+    let ((j_lo, u_lo), (j_hi, u_hi)) = (is_junction(lo), is_junction(hi));
+    match (j_lo, j_hi) {
+        (true, false) => (lo, u_lo),
+        (false, true) => (hi, u_hi),
+        _ => mid,
+    }
+}
+
 /// A joint between two parts: wall indices and parameters, the gap
 /// between their faces (negative or zero when they touch) and the length over
 /// which parallel walls lie against each other.
@@ -358,7 +469,10 @@ fn open_section(parts: &[Vec<Wall>], built: &[Vec<Wall>]) -> Option<TorsionPrope
             let mut best: Option<Joint> = None;
             for (wi, wp) in built[p].iter().enumerate() {
                 for (wj, wq) in built[q].iter().enumerate() {
-                    let (d, s, u, overlap) = closest(wp, wq);
+                    let (d, mut s, mut u, overlap) = closest(wp, wq);
+                    if overlap > touch {
+                        (s, u) = ply_joint(&built[p], wi, &built[q], wj, (s, u), touch);
+                    }
                     let jn = Joint {
                         parts: (p, q),
                         walls: (wi, wj),
