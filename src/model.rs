@@ -59,6 +59,23 @@ pub struct Lacing {
     pub component_r: f64,
     /// True when the lacing modifies the out-of-plane slenderness.
     pub out_of_plane: bool,
+    /// The lacing bars, when described (for their own checks).
+    pub bars: Option<LacingBars>,
+    /// Tie plates at the ends (§E6.2); `None` when not said.
+    pub tie_plates: Option<bool>,
+}
+
+/// Flat lacing bars of a laced member (SI).
+#[derive(Clone, Debug, PartialEq)]
+pub struct LacingBars {
+    pub width: f64,
+    pub thickness: f64,
+    /// Angle to the member axis, radians, and whether it was given.
+    pub angle: f64,
+    pub angle_given: bool,
+    pub system: crate::section::LacingSystem,
+    /// Laced faces sharing the shear.
+    pub planes: u32,
 }
 
 impl Section {

@@ -170,6 +170,36 @@ pub struct LacingFile {
     /// The axis whose slenderness the lacing modifies (default Out: components side by side across the truss plane).
     #[serde(default)]
     pub axis: Option<LacedAxisFile>,
+    /// The lacing bars (flat bars), for their own checks (AISC 360-16 §E6.2).
+    #[serde(default)]
+    pub bar: Option<LacingBarFile>,
+    /// Angle of the bars to the member axis, degrees (default: the least
+    /// §E6.2 allows, 60 single, 45 double).
+    #[serde(default)]
+    pub angle: Option<f64>,
+    /// Single or Double (crossed, joined at the crossing) lacing (default Single).
+    #[serde(default)]
+    pub kind: Option<LacingKindFile>,
+    /// Number of laced faces sharing the shear (default 1).
+    #[serde(default)]
+    pub planes: Option<u32>,
+    /// Whether tie plates are fitted at the ends and at interruptions (§E6.2).
+    #[serde(default)]
+    pub tie_plates: Option<bool>,
+}
+
+/// A flat lacing bar.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct LacingBarFile {
+    pub width: Quantity,
+    pub thickness: Quantity,
+}
+
+#[derive(Debug, Deserialize, Clone, Copy)]
+pub enum LacingKindFile {
+    Single,
+    Double,
 }
 
 /// Read a length in the section unit.

@@ -199,12 +199,52 @@ fn built_up(ctx: &mut Ctx, s: &SectionFile, parts: &[PartFile], u: &DisplayUnits
                 at,
             );
         }
+        let system = match l.kind {
+            Some(parts::LacingKindFile::Double) => section::LacingSystem::Double,
+            _ => section::LacingSystem::Single,
+        };
+        let bars = l.bar.as_ref().map(|b| {
+            let w = |f: &str| format!("section \"{}\" lacing bar {f}", s.id);
+            let width = parts::section_length(ctx, &b.width, u, &w("width"));
+            let thickness = parts::section_length(ctx, &b.thickness, u, &w("thickness"));
+            if !is_positive(width) || !is_positive(thickness) {
+                ctx.error(format!("{} and thickness must be positive", w("width")), at);
+            }
+            let least = match system {
+                section::LacingSystem::Single => 60.0,
+                section::LacingSystem::Double => 45.0,
+            };
+            let deg = l.angle.unwrap_or(least);
+            if !(deg.is_finite() && deg > 0.0 && deg < 90.0) {
+                ctx.error(
+                    format!(
+                        "section \"{}\" lacing angle must be between 0 and 90 degrees, not {deg}",
+                        s.id
+                    ),
+                    at,
+                );
+            }
+            let planes = l.planes.unwrap_or(1);
+            if planes == 0 {
+                ctx.error(format!("section \"{}\" lacing planes must be at least 1", s.id), at);
+            }
+            crate::model::LacingBars {
+                width,
+                thickness,
+                angle: deg.to_radians(),
+                angle_given: l.angle.is_some(),
+                system,
+                planes: planes.max(1),
+            }
+        });
         Lacing {
             spacing,
             connector: parts::connector(l.connector),
             k_i,
             component_r,
             out_of_plane: l.axis != Some(LacedAxisFile::In),
+            bars,
+            tie_plates: l.tie_plates,
         }
     });
     Section {

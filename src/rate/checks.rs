@@ -50,6 +50,8 @@ pub struct MemberCapacity {
     pub modes: super::modes::CompressionModes,
     /// §E7 effective area at the column check's critical stress.
     pub effective_area: super::modes::EffectiveArea,
+    /// §E6.2 checks of the lacing bars, when the lacing describes them.
+    pub lacing_bars: Option<super::lacing::LacingBarCheck>,
 }
 
 /// AISC 360-16 §E6 for one laced member.
@@ -135,6 +137,17 @@ pub fn member_capacity(
     let check = capacity::column(curve, fy, mat.e, kl_r).map_err(err)?;
     // §E7, Eq. E7-1: Pn = Fcr·Ae (Ae = Ag when no element is slender).
     let effective_area = modes.effective_area(check.critical_stress);
+    let compression_capacity = check.design_stress * effective_area.area;
+    let lacing_bars = match sec.built_up.as_ref().and_then(|b| b.lacing.as_ref()) {
+        Some(lc) => match &lc.bars {
+            Some(bars) => Some(
+                super::lacing::lacing_bar_check(lc, bars, compression_capacity, curve, fy, mat.e)
+                    .map_err(err)?,
+            ),
+            None => None,
+        },
+        None => None,
+    };
     let tension = capacity::tension(curve, fy, fu, sec.area, sec.net_area).map_err(err)?;
     let nominal_tension = (fy * sec.area).min(fu * sec.net_area);
     Ok(MemberCapacity {
@@ -146,7 +159,7 @@ pub fn member_capacity(
             regime: check.regime,
             critical_stress: check.critical_stress,
             euler_stress: check.euler_stress,
-            capacity: check.design_stress * effective_area.area,
+            capacity: compression_capacity,
             yields_before_buckling: check.yields_before_buckling,
             check,
         },
@@ -158,5 +171,6 @@ pub fn member_capacity(
         lacing,
         modes,
         effective_area,
+        lacing_bars,
     })
 }

@@ -8,6 +8,7 @@
 
 mod checks;
 mod combine;
+pub mod lacing;
 pub mod modes;
 
 pub use checks::{member_capacity, Axis, LacingEffect, MemberCapacity};
@@ -328,6 +329,21 @@ pub fn rate_results(
                 section::lacing_shear(pmax) / s.force,
                 s.force_name
             ));
+            if let Some(b) = &cap.lacing_bars {
+                notes.push(format!(
+                    "member \"{id}\": lacing bar force {:.2} {} against strength {:.2} {} (utilization {:.2}); K·L/r = {:.0} {} {:.0} ({}; {})",
+                    b.force / s.force,
+                    s.force_name,
+                    b.capacity / s.force,
+                    s.force_name,
+                    b.utilization,
+                    b.slenderness,
+                    if b.slenderness_ok { "≤" } else { "EXCEEDS" },
+                    b.slenderness_limit,
+                    lacing::LacingBarCheck::CLAUSE,
+                    if b.angle_given { "angle as given" } else { "angle not given: the least §E6.2 allows taken" }
+                ));
+            }
             if !le.component_ok {
                 notes.push(format!(
                     "member \"{id}\": component slenderness a/ri = {:.1} exceeds 3/4 of the governing slenderness (AISC 360-16 §E6.2)",
