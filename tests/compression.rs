@@ -24,7 +24,10 @@ fn strut(section: &str, len_ft: f64) -> String {
         &[("A", "Pin"), ("B", "Roller")],
         &[("B", -10.0, 0.0)],
     );
-    t.replace("(id: \"s\", area: 10.0, i_in: 100.0, i_out: 100.0)", section)
+    t.replace(
+        "(id: \"s\", area: 10.0, i_in: 100.0, i_out: 100.0)",
+        section,
+    )
 }
 
 fn lrfd() -> Curve {
@@ -73,7 +76,11 @@ fn single_angle_strut_is_rated_on_its_minor_principal_axis() {
     let kl_r = 120.0 / rz;
     let g = cap.modes.governing();
     assert_eq!(g.kind, ModeKind::FlexuralMinor);
-    assert!((g.slenderness - kl_r).abs() < 1e-6 * kl_r, "{}", g.slenderness);
+    assert!(
+        (g.slenderness - kl_r).abs() < 1e-6 * kl_r,
+        "{}",
+        g.slenderness
+    );
     let fe = PI * PI * E / (kl_r * kl_r);
     let hand = 0.9 * fcr(fe) * 3.75;
     assert!((phi_pn - hand).abs() < 1e-6 * hand, "{phi_pn} vs {hand}");
@@ -119,7 +126,8 @@ fn tee_flexural_torsional_buckling_by_eq_e4_3() {
     let fey = PI * PI * E / (l / (iy / a).sqrt()).powi(2);
     let fex = PI * PI * E / (l / (ix / a).sqrt()).powi(2);
     let fez = G * j / (a * ro2);
-    let fe = (fey + fez) / (2.0 * h) * (1.0 - (1.0 - 4.0 * fey * fez * h / (fey + fez).powi(2)).sqrt());
+    let fe =
+        (fey + fez) / (2.0 * h) * (1.0 - (1.0 - 4.0 * fey * fez * h / (fey + fez).powi(2)).sqrt());
     let (cap, phi_pn) = capacity_kip(&strut(TEE, 3.0));
     let ft = cap
         .modes
@@ -127,13 +135,20 @@ fn tee_flexural_torsional_buckling_by_eq_e4_3() {
         .iter()
         .find(|m| m.kind == ModeKind::FlexuralTorsionalSingly)
         .expect("E4-3 mode");
-    assert!((ft.fe / KSI - fe).abs() < 1e-6 * fe, "{} vs {fe}", ft.fe / KSI);
+    assert!(
+        (ft.fe / KSI - fe).abs() < 1e-6 * fe,
+        "{} vs {fe}",
+        ft.fe / KSI
+    );
     let gov = fe.min(fex);
     let hand = 0.9 * fcr(gov) * a;
     assert!((phi_pn - hand).abs() < 1e-6 * hand, "{phi_pn} vs {hand}");
     // At 3 ft the hand numbers put FTB below flexure about x.
     assert!(fe < fex, "{fe} {fex}");
-    assert_eq!(cap.modes.governing().kind, ModeKind::FlexuralTorsionalSingly);
+    assert_eq!(
+        cap.modes.governing().kind,
+        ModeKind::FlexuralTorsionalSingly
+    );
 }
 
 #[test]
@@ -165,21 +180,30 @@ fn double_angle_flexural_torsional_buckling_by_hand() {
     assert!(t.shear_centre_x.abs() < 1e-12);
     // The shear centre lies near the heels' centre line, 0.25 in below the
     // top (y = −0.25 in these coordinates), as the steel tables take it.
-    assert!((t.shear_centre_y / inch + 0.25).abs() < 0.05, "{}", t.shear_centre_y / inch);
+    assert!(
+        (t.shear_centre_y / inch + 0.25).abs() < 0.05,
+        "{}",
+        t.shear_centre_y / inch
+    );
     let l = 144.0;
     let ro2 = y0 * y0 + (ix + iy) / a;
     let h = 1.0 - y0 * y0 / ro2;
     let fey = PI * PI * E / (l / (iy / a).sqrt()).powi(2);
     let fex = PI * PI * E / (l / (ix / a).sqrt()).powi(2);
     let fez = (PI * PI * E * cw / (l * l) + G * j_of(&t, inch)) / (a * ro2);
-    let fe = (fey + fez) / (2.0 * h) * (1.0 - (1.0 - 4.0 * fey * fez * h / (fey + fez).powi(2)).sqrt());
+    let fe =
+        (fey + fez) / (2.0 * h) * (1.0 - (1.0 - 4.0 * fey * fez * h / (fey + fez).powi(2)).sqrt());
     let modes = compression_modes(&m, 0).unwrap();
     let ft = modes
         .modes
         .iter()
         .find(|m| m.kind == ModeKind::FlexuralTorsionalSingly)
         .expect("E4-3 mode");
-    assert!((ft.fe / KSI - fe).abs() < 1e-6 * fe, "{} vs {fe}", ft.fe / KSI);
+    assert!(
+        (ft.fe / KSI - fe).abs() < 1e-6 * fe,
+        "{} vs {fe}",
+        ft.fe / KSI
+    );
     let cap = member_capacity(&m, 0, &lrfd()).unwrap();
     let hand = 0.9 * fcr(fe.min(fex)) * a;
     assert!((cap.compression.capacity / KIP - hand).abs() < 1e-6 * hand);
@@ -221,13 +245,18 @@ fn two_channel_and_cover_plate_chord_reports_ftb_beside_flexure() {
     let y0 = (t.shear_centre_y - p.centroid_y) / inch;
     // The shear centre lies above the cover plate (like a channel's, on
     // the far side of its "web"): a fact of thin-walled theory.
-    assert!(t.shear_centre_y / inch > 5.1875, "{}", t.shear_centre_y / inch);
+    assert!(
+        t.shear_centre_y / inch > 5.1875,
+        "{}",
+        t.shear_centre_y / inch
+    );
     let l = 192.0;
     let ro2 = y0 * y0 + (ix + iy) / a;
     let h = 1.0 - y0 * y0 / ro2;
     let fey = PI * PI * E / (l / (iy / a).sqrt()).powi(2);
     let fez = (PI * PI * E * cw / (l * l) + G * j) / (a * ro2);
-    let fe = (fey + fez) / (2.0 * h) * (1.0 - (1.0 - 4.0 * fey * fez * h / (fey + fez).powi(2)).sqrt());
+    let fe =
+        (fey + fez) / (2.0 * h) * (1.0 - (1.0 - 4.0 * fey * fez * h / (fey + fez).powi(2)).sqrt());
     let cap = member_capacity(&m, 0, &lrfd()).unwrap();
     let modes = &cap.modes;
     let names: Vec<_> = modes.modes.iter().map(|m| m.kind).collect();
@@ -237,16 +266,26 @@ fn two_channel_and_cover_plate_chord_reports_ftb_beside_flexure() {
         .iter()
         .find(|m| m.kind == ModeKind::FlexuralTorsionalSingly)
         .expect("E4-3 mode");
-    assert!((ft.fe / KSI - fe).abs() < 1e-6 * fe, "{} vs {fe}", ft.fe / KSI);
+    assert!(
+        (ft.fe / KSI - fe).abs() < 1e-6 * fe,
+        "{} vs {fe}",
+        ft.fe / KSI
+    );
     // The governing mode is the lowest Fe and is named in the rate notes.
     let gov = modes.governing();
     assert!(modes.modes.iter().all(|m| m.fe >= gov.fe));
     let notes = modes.report_notes("A-B", cap.compression.critical_stress);
-    assert!(notes[0].contains("governing: ") && notes[0].contains(gov.kind.clause()), "{notes:?}");
+    assert!(
+        notes[0].contains("governing: ") && notes[0].contains(gov.kind.clause()),
+        "{notes:?}"
+    );
     let path = temp_model("chord.ron", &text);
     let (code, out, err) = run(&["rate", path.to_str().unwrap()]);
     assert_eq!(code, 0, "{err}");
-    assert!(out.contains("flexural-torsional") && out.contains("governing"), "{out}");
+    assert!(
+        out.contains("flexural-torsional") && out.contains("governing"),
+        "{out}"
+    );
 }
 
 #[test]
@@ -280,9 +319,7 @@ fn thin_cover_plate_lowers_the_capacity_by_e7() {
     };
     let (lr7, lr3) = (1.40 * (E / FY).sqrt(), 0.45 * (E / FY).sqrt());
     assert!(9.0 / t > lr7 * (FY / f).sqrt());
-    let ae = a
-        - (9.0 - be(9.0, lr7, 0.18, 1.31)) * t
-        - 2.0 * (3.5 - be(3.5, lr3, 0.22, 1.49)) * t;
+    let ae = a - (9.0 - be(9.0, lr7, 0.18, 1.31)) * t - 2.0 * (3.5 - be(3.5, lr3, 0.22, 1.49)) * t;
     let hand = 0.9 * f * ae;
     assert!((phi_pn - hand).abs() < 1e-6 * hand, "{phi_pn} vs {hand}");
     assert!(ae < a);

@@ -353,7 +353,10 @@ pub(super) fn convert_parts(
                     let wd = l(ctx, width, "width");
                     if !(g > 0.0 && g <= wd) {
                         ctx.error(
-                            format!("{}: must be positive and not more than the width", w("gauge")),
+                            format!(
+                                "{}: must be positive and not more than the width",
+                                w("gauge")
+                            ),
                             None,
                         );
                     }

@@ -226,7 +226,10 @@ fn built_up(ctx: &mut Ctx, s: &SectionFile, parts: &[PartFile], u: &DisplayUnits
             }
             let planes = l.planes.unwrap_or(1);
             if planes == 0 {
-                ctx.error(format!("section \"{}\" lacing planes must be at least 1", s.id), at);
+                ctx.error(
+                    format!("section \"{}\" lacing planes must be at least 1", s.id),
+                    at,
+                );
             }
             crate::model::LacingBars {
                 width,

@@ -111,19 +111,23 @@ pub fn member_capacity(
     let kl_r = modes.slenderness();
     // AISC 360-16 §E6.1(b): lacing with tie plates, no modified slenderness;
     // §E6.2: each component between connectors within 3/4 of the governing.
-    let lacing = sec.built_up.as_ref().and_then(|b| b.lacing.as_ref()).map(|lc| {
-        let overall = if lc.out_of_plane {
-            slenderness_out
-        } else {
-            slenderness_in
-        };
-        LacingEffect {
-            overall,
-            modified: overall,
-            component: lc.spacing / lc.component_r,
-            component_ok: section::component_slenderness_ok(lc.spacing, lc.component_r, kl_r),
-        }
-    });
+    let lacing = sec
+        .built_up
+        .as_ref()
+        .and_then(|b| b.lacing.as_ref())
+        .map(|lc| {
+            let overall = if lc.out_of_plane {
+                slenderness_out
+            } else {
+                slenderness_in
+            };
+            LacingEffect {
+                overall,
+                modified: overall,
+                component: lc.spacing / lc.component_r,
+                component_ok: section::component_slenderness_ok(lc.spacing, lc.component_r, kl_r),
+            }
+        });
     let axis = match modes.governing().kind {
         super::modes::ModeKind::FlexuralIn => Axis::In,
         super::modes::ModeKind::FlexuralOut => Axis::Out,

@@ -68,9 +68,7 @@ impl ModeKind {
             ModeKind::FlexuralMajor => "flexural, major principal axis",
             ModeKind::FlexuralMinor => "flexural, minor principal axis",
             ModeKind::Torsional => "torsional",
-            ModeKind::FlexuralTorsionalSingly | ModeKind::FlexuralTorsional => {
-                "flexural-torsional"
-            }
+            ModeKind::FlexuralTorsionalSingly | ModeKind::FlexuralTorsional => "flexural-torsional",
         }
     }
     pub fn clause(self) -> &'static str {
@@ -303,7 +301,9 @@ pub fn compression_modes(model: &Model, m: usize) -> Result<CompressionModes, Ra
             }
             // The parts were validated on input; an error here is reported, not fatal.
             elements = plate_elements(&b.parts, e, fy).unwrap_or_else(|err| {
-                notes.push(format!("slender elements (AISC 360-16 §E7) not classified: {err}"));
+                notes.push(format!(
+                    "slender elements (AISC 360-16 §E7) not classified: {err}"
+                ));
                 Vec::new()
             });
         }
@@ -348,9 +348,15 @@ fn torsional_mode(
         (ModeKind::Torsional, fez)
     } else if x0.abs() <= tol {
         // Symmetric about axis 2 (x0 = 0): couples with flexure about it.
-        (ModeKind::FlexuralTorsionalSingly, e4_3(f2.fe, fez, y0 * y0 / ro2))
+        (
+            ModeKind::FlexuralTorsionalSingly,
+            e4_3(f2.fe, fez, y0 * y0 / ro2),
+        )
     } else if y0.abs() <= tol {
-        (ModeKind::FlexuralTorsionalSingly, e4_3(f1.fe, fez, x0 * x0 / ro2))
+        (
+            ModeKind::FlexuralTorsionalSingly,
+            e4_3(f1.fe, fez, x0 * x0 / ro2),
+        )
     } else {
         (
             ModeKind::FlexuralTorsional,
@@ -459,8 +465,16 @@ pub fn plate_elements(
                 // the element between them, the inner ends the overhangs.
                 let lo = c.iter().map(|x| x.0).fold(f64::INFINITY, f64::min);
                 let hi = c.iter().map(|x| x.1).fold(f64::NEG_INFINITY, f64::max);
-                let first_in = c.iter().filter(|x| x.0 == lo).map(|x| x.1).fold(lo, f64::max);
-                let last_in = c.iter().filter(|x| x.1 == hi).map(|x| x.0).fold(hi, f64::min);
+                let first_in = c
+                    .iter()
+                    .filter(|x| x.0 == lo)
+                    .map(|x| x.1)
+                    .fold(lo, f64::max);
+                let last_in = c
+                    .iter()
+                    .filter(|x| x.1 == hi)
+                    .map(|x| x.0)
+                    .fold(hi, f64::min);
                 let tiny = 1e-9 * width;
                 if c.is_empty() {
                     push("(unsupported)", width, thickness, "case 3", 0.45, false);
@@ -483,7 +497,14 @@ pub fn plate_elements(
                 flange_thickness,
                 ..
             } => {
-                push("flange", flange_width, flange_thickness, "case 1", 0.56, false);
+                push(
+                    "flange",
+                    flange_width,
+                    flange_thickness,
+                    "case 1",
+                    0.56,
+                    false,
+                );
                 push(
                     "web",
                     depth - 2.0 * flange_thickness,
@@ -500,7 +521,14 @@ pub fn plate_elements(
                 flange_thickness,
                 ..
             } => {
-                push("flange", flange_width / 2.0, flange_thickness, "case 1", 0.56, false);
+                push(
+                    "flange",
+                    flange_width / 2.0,
+                    flange_thickness,
+                    "case 1",
+                    0.56,
+                    false,
+                );
                 push(
                     "web",
                     depth - 2.0 * flange_thickness,
@@ -516,7 +544,14 @@ pub fn plate_elements(
                 stem_thickness,
                 flange_thickness,
             } => {
-                push("flange", flange_width / 2.0, flange_thickness, "case 1", 0.56, false);
+                push(
+                    "flange",
+                    flange_width / 2.0,
+                    flange_thickness,
+                    "case 1",
+                    0.56,
+                    false,
+                );
                 push("stem", depth, stem_thickness, "case 4", 0.75, false);
             }
             Shape::Angle {
@@ -531,9 +566,19 @@ pub fn plate_elements(
                 height,
                 wall,
             } => {
-                push("wall", width.max(height) - 3.0 * wall, wall, "case 6", 1.40, true);
+                push(
+                    "wall",
+                    width.max(height) - 3.0 * wall,
+                    wall,
+                    "case 6",
+                    1.40,
+                    true,
+                );
             }
-            Shape::Given { .. } | Shape::RoundBar { .. } | Shape::SquareBar { .. } | Shape::Pipe { .. } => {}
+            Shape::Given { .. }
+            | Shape::RoundBar { .. }
+            | Shape::SquareBar { .. }
+            | Shape::Pipe { .. } => {}
         }
     }
     Ok(out)

@@ -335,7 +335,11 @@ mod tests {
         };
         let at_i = |avg: f64, web: f64, x: f64| avg + s * ((web / 2.0 + bf) / 2.0 - x);
         for x in [tw / 2.0, bf] {
-            assert_relative_eq!(at_i(tf, tw, x) - at_i(f2, w2, x), drop, max_relative = 1e-12);
+            assert_relative_eq!(
+                at_i(tf, tw, x) - at_i(f2, w2, x),
+                drop,
+                max_relative = 1e-12
+            );
         }
     }
 

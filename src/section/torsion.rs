@@ -151,10 +151,7 @@ pub fn torsion(parts: &[PlacedPart]) -> Result<Option<TorsionProperties>, Sectio
 /// edge of a plate in its reference orientation, the −y edge of an eye-bar),
 /// sorted. Missing parts and parts known only by table properties support
 /// nothing. Empty for other shapes.
-pub fn plate_contacts(
-    parts: &[PlacedPart],
-    i: usize,
-) -> Result<Vec<(f64, f64)>, SectionError> {
+pub fn plate_contacts(parts: &[PlacedPart], i: usize) -> Result<Vec<(f64, f64)>, SectionError> {
     let walls_of = |k: usize| -> Result<Option<Vec<Wall>>, SectionError> {
         let p = &parts[k];
         let r = resolve(k, p, true)?;
@@ -402,7 +399,10 @@ fn ply_joint(
     let is_junction = |s: f64| {
         let pt = p.at(s).0;
         let u = on_q(pt);
-        (junction(pw, wi, pt, tol) || junction(qw, wj, q.at(u).0, tol), u)
+        (
+            junction(pw, wi, pt, tol) || junction(qw, wj, q.at(u).0, tol),
+            u,
+        )
     };
     let ((j_lo, u_lo), (j_hi, u_hi)) = (is_junction(lo), is_junction(hi));
     match (j_lo, j_hi) {
