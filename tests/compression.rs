@@ -331,3 +331,59 @@ fn thin_cover_plate_lowers_the_capacity_by_e7() {
     let (_, no_gauge) = capacity_kip(&text.replace(", gauge: 9.0", ""));
     assert!(no_gauge <= phi_pn * (1.0 + 1e-12));
 }
+
+#[test]
+fn section_json_gives_j_cw_and_shear_centre() {
+    // The keys are fixed (outside checks read them): `j` (in⁴), `cw` (in⁶)
+    // and `shear_centre: {x, y}` in the frame of `centroid_x`/`centroid_y`.
+    // A parallel-flange channel alone, web back at x = −x̄: its shear centre
+    // lies e = 3b'²tf/(6b'tf + h'tw) behind the web centre line, on the
+    // x axis (closed form); J = (2b'tf³ + h'tw³)/3.
+    let text = strut(
+        "(id: \"s\", parts: [Channel(depth: 12.0, flange_width: 3.0, web_thickness: 0.3, flange_thickness: 0.5, x: 0.0, y: 0.0)])",
+        10.0,
+    )
+    .replace(
+        "sections: [",
+        "sections: [(id: \"given\", area: 5.0, i_in: 50.0, i_out: 20.0), ",
+    );
+    let path = temp_model("channel.ron", &text);
+    let (code, out, err) = run(&["section", path.to_str().unwrap(), "--format", "json"]);
+    assert_eq!(code, 0, "{err}");
+    let v: serde_json::Value = serde_json::from_str(&out).unwrap();
+    let s = v["sections"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|s| s["id"] == "s")
+        .unwrap();
+    let (b, h, tw, tf) = (2.85f64, 11.5f64, 0.3f64, 0.5f64);
+    let e = 3.0 * b * b * tf / (6.0 * b * tf + h * tw);
+    let xbar = s["centroid_x"].as_f64().unwrap();
+    assert!(xbar.abs() < 1e-9);
+    let sc = &s["shear_centre"];
+    let j = (2.0 * b * tf.powi(3) + h * tw.powi(3)) / 3.0;
+    assert!((s["j"].as_f64().unwrap() - j).abs() < 1e-9 * j);
+    assert!(s["cw"].as_f64().unwrap() > 0.0);
+    assert!(sc["y"].as_f64().unwrap().abs() < 1e-9);
+    // The channel's centroid from its back, by hand: web 12 × 0.3 at 0.15,
+    // flanges 2 × 2.7 × 0.5 at 1.65: x̄ = (3.6·0.15 + 2.7·1.65)/6.3 = 0.792857;
+    // the web centre line at −x̄ + tw/2, the shear centre e behind it.
+    let xbar_back = (3.6 * 0.15 + 2.7 * 1.65) / 6.3;
+    let x_sc = -xbar_back + tw / 2.0 - e;
+    assert!(
+        (sc["x"].as_f64().unwrap() - x_sc).abs() < 1e-9,
+        "{sc} vs {x_sc}"
+    );
+    // A section given by its properties has none.
+    let g = v["sections"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|s| s["id"] == "given")
+        .unwrap();
+    assert!(g["j"].is_null() && g["cw"].is_null() && g["shear_centre"].is_null());
+    // The text output marks them too.
+    let (_, text_out, _) = run(&["section", path.to_str().unwrap()]);
+    assert!(text_out.contains("shear centre") && text_out.contains("Cw"));
+}
