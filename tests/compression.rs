@@ -387,3 +387,50 @@ fn section_json_gives_j_cw_and_shear_centre() {
     let (_, text_out, _) = run(&["section", path.to_str().unwrap()]);
     assert!(text_out.contains("shear centre") && text_out.contains("Cw"));
 }
+
+#[test]
+fn loss_on_one_face_of_a_cover_plate() {
+    // The chord's 14 × 3/8 in cover plate loses 1/16 in. With the loss on
+    // the outer (top) face the plate's centre drops t/2, on the inner face
+    // it rises t/2, with `Both` (= Thickness) it stays. The reduced plate
+    // area is 14·0.3125 = 4.375 in² in every case, so (statics of areas)
+    // ȳ_inner − ȳ_outer = 4.375·0.0625/A and ȳ_both is midway; the old
+    // `Thickness(t)` form still loads and equals `Both`.
+    let centroid = |loss: &str| {
+        let text = strut(
+            &chord(&format!(
+                "Plate(width: 14.0, thickness: 0.375, x: 0.0, y: 5.1875, loss: {loss})"
+            )),
+            10.0,
+        );
+        let path = temp_model("face.ron", &text);
+        let (code, out, err) = run(&["section", path.to_str().unwrap(), "--format", "json"]);
+        assert_eq!(code, 0, "{err}");
+        let v: serde_json::Value = serde_json::from_str(&out).unwrap();
+        let s = &v["sections"][0];
+        (
+            s["centroid_y"].as_f64().unwrap(),
+            s["area"].as_f64().unwrap(),
+        )
+    };
+    let (outer, a) = centroid("Face(thickness: 0.0625, face: Outer)");
+    let (inner, _) = centroid("Face(thickness: 0.0625, face: Inner)");
+    let (both, _) = centroid("Face(thickness: 0.0625, face: Both)");
+    let (old, _) = centroid("Thickness(0.0625)");
+    let d = 4.375 * 0.0625 / a;
+    assert!((inner - outer - d).abs() < 1e-9, "{inner} {outer} {d}");
+    assert!((both - (inner + outer) / 2.0).abs() < 1e-9);
+    assert!((old - both).abs() < 1e-12);
+    // On a channel a one-face loss is refused with the part named.
+    let text = strut(
+        &chord("Plate(width: 14.0, thickness: 0.375, x: 0.0, y: 5.1875)").replace(
+            "x: 3.95, y: 0.0, toes: PosX)",
+            "x: 3.95, y: 0.0, toes: PosX, loss: Face(thickness: 0.05, face: Outer))",
+        ),
+        10.0,
+    );
+    let path = temp_model("face-bad.ron", &text);
+    let (code, _, err) = run(&["section", path.to_str().unwrap()]);
+    assert_eq!(code, 2, "{err}");
+    assert!(err.contains("part 2") && err.contains("one face"), "{err}");
+}

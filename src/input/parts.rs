@@ -49,6 +49,17 @@ pub enum LossFile {
     AreaPercent(f64),
     /// The part is gone.
     Missing,
+    /// Thickness lost from one face of a plate or eye-bar (`Outer`: the face
+    /// farther from the section's centroid as built; `Inner`: the nearer),
+    /// or from both (`Both`: the same as `Thickness`).
+    Face { thickness: Quantity, face: FaceFile },
+}
+
+#[derive(Debug, Deserialize, Clone, Copy, PartialEq, Eq)]
+pub enum FaceFile {
+    Outer,
+    Inner,
+    Both,
 }
 
 #[derive(Debug, Deserialize, Clone, Copy)]
@@ -411,6 +422,14 @@ pub(super) fn convert_parts(
         }
         let loss = loss.as_ref().map(|lf| match lf {
             LossFile::Thickness(q) => Loss::Thickness(l(ctx, q, "loss")),
+            // The side is settled below, once the section's centroid is known.
+            LossFile::Face { thickness, face } => {
+                let t = l(ctx, thickness, "loss");
+                match face {
+                    FaceFile::Both => Loss::Thickness(t),
+                    _ => Loss::OneFace { t, positive: true },
+                }
+            }
             LossFile::AreaPercent(p) => Loss::AreaPercent(*p),
             LossFile::Missing => Loss::Missing,
         });
@@ -425,7 +444,41 @@ pub(super) fn convert_parts(
             gauge,
         });
     }
+    one_face_sides(parts, &mut out);
     out
+}
+
+/// Turns `Outer`/`Inner` losses into the side of each plate's thickness:
+/// the outer face is the one farther from the as-built centroid (measured
+/// along the plate's thickness direction; a plate through the centroid
+/// takes its positive side as outer).
+fn one_face_sides(parts: &[PartFile], out: &mut [PlacedPart]) {
+    let Ok(props) = crate::section::properties_original(out) else {
+        return;
+    };
+    for (p, placed) in parts.iter().zip(out.iter_mut()) {
+        let Some(LossFile::Face { face, .. }) = p.common().3 else {
+            continue;
+        };
+        let Some(Loss::OneFace { t, .. }) = placed.loss else {
+            continue;
+        };
+        let Ok(m) = placed.orientation.matrix_of(&placed.shape) else {
+            continue;
+        };
+        // Thickness direction in section axes: datum +y of a plate, +x of an eye-bar.
+        let dir = match placed.shape {
+            Shape::EyeBar { .. } => (m[0][0], m[1][0]),
+            _ => (m[0][1], m[1][1]),
+        };
+        let away = (placed.x - props.centroid_x) * dir.0 + (placed.y - props.centroid_y) * dir.1;
+        let outer_positive = away >= 0.0;
+        let positive = match face {
+            FaceFile::Outer => outer_positive,
+            _ => !outer_positive,
+        };
+        placed.loss = Some(Loss::OneFace { t, positive });
+    }
 }
 
 pub(super) fn connector(c: Option<ConnectorFile>) -> Connector {

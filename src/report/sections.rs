@@ -174,6 +174,11 @@ pub fn text(w: &mut dyn Write, model: &Model, id: Option<&str>) -> io::Result<()
                             Some(crate::section::Loss::Thickness(t)) => {
                                 format!("{} {unit} thickness", sig(t / f, 3))
                             }
+                            Some(crate::section::Loss::OneFace { t, positive }) => format!(
+                                "{} {unit} thickness from the {} face",
+                                sig(t / f, 3),
+                                if *positive { "+" } else { "−" }
+                            ),
                             Some(crate::section::Loss::AreaPercent(pc)) => format!("{pc}% area"),
                             Some(crate::section::Loss::Missing) => "missing".into(),
                         },
@@ -293,6 +298,10 @@ pub fn svg(w: &mut dyn Write, model: &Model, section: &Section) -> io::Result<()
                 .collect(),
             loss: p.loss.as_ref().map(|l| match l {
                 crate::section::Loss::Thickness(t) => crate::section::Loss::Thickness(t / f),
+                crate::section::Loss::OneFace { t, positive } => crate::section::Loss::OneFace {
+                    t: t / f,
+                    positive: *positive,
+                },
                 other => other.clone(),
             }),
             label: p.label.clone(),

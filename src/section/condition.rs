@@ -23,6 +23,12 @@ pub enum Loss {
     AreaPercent(f64),
     /// The part is gone; it contributes nothing to the reduced section.
     Missing,
+    /// Thickness `t` lost from ONE face of a plate or eye-bar: the face on
+    /// the positive side of its thickness direction in its reference
+    /// orientation (+y of a plate, +x of an eye-bar) when `positive`. The
+    /// other face stays where it was, so the plate's centre moves by `t/2`.
+    /// (The input layer turns `Outer`/`Inner` into a side.)
+    OneFace { t: f64, positive: bool },
 }
 
 /// A part after its loss is applied.
@@ -35,6 +41,8 @@ pub enum Condition {
         shape: Shape,
         area_factor: f64,
         thickness_loss: f64,
+        /// Translation of the reduced shape in its datum frame (one-face loss).
+        shift: (f64, f64),
     },
     /// The part is gone.
     Missing,
@@ -51,6 +59,7 @@ pub fn apply_loss(
             shape: shape.clone(),
             area_factor: 1.0,
             thickness_loss: 0.0,
+            shift: (0.0, 0.0),
         }),
         Some(Loss::Missing) => Ok(Condition::Missing),
         Some(Loss::AreaPercent(p)) => {
@@ -67,6 +76,7 @@ pub fn apply_loss(
                 shape: shape.clone(),
                 area_factor: 1.0 - p / 100.0,
                 thickness_loss: 0.0,
+                shift: (0.0, 0.0),
             })
         }
         Some(Loss::Thickness(t)) => {
@@ -83,6 +93,38 @@ pub fn apply_loss(
                 shape: reduced,
                 area_factor: 1.0,
                 thickness_loss: t,
+                shift: (0.0, 0.0),
+            })
+        }
+        Some(Loss::OneFace { t, positive }) => {
+            let t = *t;
+            if !(t.is_finite() && t >= 0.0) {
+                return Err(SectionError::InvalidLoss {
+                    part,
+                    reason: format!("thickness loss {t} must be a finite non-negative number"),
+                });
+            }
+            let sign = if *positive { -0.5 } else { 0.5 };
+            let shift = match shape {
+                Shape::Plate { .. } => (0.0, sign * t),
+                Shape::EyeBar { .. } => (sign * t, 0.0),
+                _ => {
+                    return Err(SectionError::InvalidLoss {
+                        part,
+                        reason: format!(
+                            "a loss on one face applies to plates and eye-bars; give a {} its loss as Thickness (inner faces)",
+                            shape.kind()
+                        ),
+                    })
+                }
+            };
+            let reduced = reduce_thickness(part, shape, t)?;
+            reduced.validate(part)?;
+            Ok(Condition::Present {
+                shape: reduced,
+                area_factor: 1.0,
+                thickness_loss: t,
+                shift,
             })
         }
     }

@@ -641,6 +641,10 @@ pub enum Orientation {
 }
 
 impl Orientation {
+    /// The map of [`Orientation::matrix`] for a shape (errors name part 0).
+    pub fn matrix_of(&self, shape: &Shape) -> Result<[[f64; 2]; 2], SectionError> {
+        self.matrix(shape, 0)
+    }
     /// The linear map `[[a, b], [c, d]]` taking reference coordinates to
     /// section coordinates (`x' = a·x + b·y`, `y' = c·x + d·y`).
     pub(crate) fn matrix(&self, shape: &Shape, part: usize) -> Result<[[f64; 2]; 2], SectionError> {
@@ -797,8 +801,25 @@ pub(crate) fn resolve(
     let (geometry, local, factor, missing) = match &condition {
         Condition::Missing => (p.shape.geometry(), original, 0.0, true),
         Condition::Present {
-            shape, area_factor, ..
-        } => (shape.geometry(), shape.local(part)?, *area_factor, false),
+            shape,
+            area_factor,
+            shift: (sx, sy),
+            ..
+        } => {
+            let mut local = shape.local(part)?;
+            local.cx += sx;
+            local.cy += sy;
+            let geometry = match shape.geometry() {
+                Geometry::Polygons(polys) => Geometry::Polygons(
+                    polys
+                        .into_iter()
+                        .map(|poly| poly.into_iter().map(|(x, y)| (x + sx, y + sy)).collect())
+                        .collect(),
+                ),
+                other => other,
+            };
+            (geometry, local, *area_factor, false)
+        }
     };
     let (ix, iy, ixy) = transform_moments(matrix, local.ix, local.iy, local.ixy);
     let [[a, b], [c, d]] = matrix;

@@ -95,19 +95,22 @@ pub fn torsion(parts: &[PlacedPart]) -> Result<Option<TorsionProperties>, Sectio
         if r.missing {
             continue;
         }
-        let (shape, factor) = match &r.condition {
+        let (shape, factor, (sx, sy)) = match &r.condition {
             super::condition::Condition::Present {
-                shape, area_factor, ..
-            } => (shape, *area_factor),
+                shape,
+                area_factor,
+                shift,
+                ..
+            } => (shape, *area_factor, *shift),
             super::condition::Condition::Missing => continue,
         };
         match (datum_walls(shape), datum_walls(&p.shape)) {
             (Shape3::Walls(ws), Shape3::Walls(original)) if ws.len() == original.len() => {
                 let [[a, b], [c, d]] = r.matrix;
                 let (cx, cy) = r.datum_centroid;
-                let place = |ws: Vec<Wall>, k: f64| -> Vec<Wall> {
+                let place = |ws: Vec<Wall>, k: f64, (ox, oy): (f64, f64)| -> Vec<Wall> {
                     let at = |(u, v): (f64, f64)| {
-                        let (u, v) = (u - cx, v - cy);
+                        let (u, v) = (u + ox - cx, v + oy - cy);
                         (p.x + a * u + b * v, p.y + c * u + d * v)
                     };
                     ws.into_iter()
@@ -120,8 +123,8 @@ pub fn torsion(parts: &[PlacedPart]) -> Result<Option<TorsionProperties>, Sectio
                         .collect()
                 };
                 // An area loss in percent is uniform thinning.
-                walls.push(place(ws, factor));
-                built.push(place(original, 1.0));
+                walls.push(place(ws, factor, (sx, sy)));
+                built.push(place(original, 1.0, (0.0, 0.0)));
             }
             (Shape3::Compact(j), _) => compact.push((r.props.centroid_x, r.props.centroid_y, j)),
             _ => return Ok(None),
