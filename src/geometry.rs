@@ -303,6 +303,7 @@ mod tests {
                 i_out: 1.0,
                 net_area: 1.0,
                 built_up: None,
+                torsion: None,
             }],
             nodes,
             members: members

@@ -31,6 +31,10 @@ pub struct Section {
     pub net_area: f64,
     /// The parts and their properties, for a built-up section.
     pub built_up: Option<BuiltUp>,
+    /// J, Cw and the shear centre given with a section by its properties
+    /// (SI; shear centre from the centroid, x across the truss plane, y in
+    /// it, so that i_in = Ix); `None` when not given or built up.
+    pub torsion: Option<crate::section::TorsionProperties>,
 }
 
 /// A section computed from its parts (all in SI).

@@ -434,3 +434,44 @@ fn loss_on_one_face_of_a_cover_plate() {
     assert_eq!(code, 2, "{err}");
     assert!(err.contains("part 2") && err.contains("one face"), "{err}");
 }
+
+#[test]
+fn given_section_with_j_cw_x0_y0_gets_the_same_e4_check() {
+    // The tee of `tee_flexural_torsional_buckling_by_eq_e4_3` typed by its
+    // properties (computed by hand there; here read back from the built-up
+    // form): A, i_in = Ix, i_out = Iy, J, Cw = 0, x0 = 0 and y0 (the
+    // shear centre above the centroid). §E4 on the same numbers must give
+    // the same capacity, 3 ft, K = 1.
+    let built = load(&strut(TEE, 3.0));
+    let b = built.sections[0].built_up.as_ref().unwrap();
+    let t = b.torsion.unwrap();
+    let inch = 0.0254f64;
+    let p = &b.reduced;
+    let given = format!(
+        "(id: \"s\", area: {}, i_in: {}, i_out: {}, j: {}, cw: 0.0, x0: 0.0, y0: {})",
+        p.area / inch.powi(2),
+        p.ix / inch.powi(4),
+        p.iy / inch.powi(4),
+        t.j / inch.powi(4),
+        (t.shear_centre_y - p.centroid_y) / inch
+    );
+    let (_, from_parts) = capacity_kip(&strut(TEE, 3.0));
+    let (cap, from_props) = capacity_kip(&strut(&given, 3.0));
+    assert!(
+        (from_parts - from_props).abs() < 1e-6 * from_parts,
+        "{from_parts} {from_props}"
+    );
+    assert_eq!(
+        cap.modes.governing().kind,
+        ModeKind::FlexuralTorsionalSingly
+    );
+    // Partly given is an error naming the section.
+    let bad = strut(
+        "(id: \"s\", area: 4.0, i_in: 3.0, i_out: 18.0, j: 0.2)",
+        3.0,
+    );
+    let path = temp_model("bad-torsion.ron", &bad);
+    let (code, _, err) = run(&["rate", path.to_str().unwrap()]);
+    assert_eq!(code, 2);
+    assert!(err.contains("give all of j, cw, x0 and y0"), "{err}");
+}

@@ -1,6 +1,6 @@
 //! Section definitions of the model file turned into section properties.
 
-use super::convert::{positive, Ctx};
+use super::convert::{positive, value, Ctx};
 use super::parts::{self, convert_parts, LacedAxisFile, PartFile, PlaneAxisFile};
 use super::schema::SectionFile;
 use crate::model::{BuiltUp, Lacing, Section};
@@ -63,6 +63,7 @@ pub(super) fn convert_section(ctx: &mut Ctx, s: &SectionFile, u: &DisplayUnits) 
         }
     }
     let area = area.unwrap_or(1.0);
+    let torsion = given_torsion(ctx, s, u, at);
     Section {
         id: s.id.clone(),
         area,
@@ -70,6 +71,74 @@ pub(super) fn convert_section(ctx: &mut Ctx, s: &SectionFile, u: &DisplayUnits) 
         i_out: i_out.unwrap_or(1.0),
         net_area: net.unwrap_or(area),
         built_up: None,
+        torsion,
+    }
+}
+
+/// `j`, `cw`, `x0`, `y0` of a section given by its properties: all four or
+/// none (J and Cw positive or zero, J > 0 or Cw > 0).
+fn given_torsion(
+    ctx: &mut Ctx,
+    s: &SectionFile,
+    u: &DisplayUnits,
+    at: Option<(usize, usize)>,
+) -> Option<section::TorsionProperties> {
+    let given = [
+        s.j.is_some(),
+        s.cw.is_some(),
+        s.x0.is_some(),
+        s.y0.is_some(),
+    ];
+    if given.iter().all(|g| !g) {
+        return None;
+    }
+    if !given.iter().all(|g| *g) {
+        ctx.error(
+            format!(
+                "section \"{}\": give all of j, cw, x0 and y0, or none",
+                s.id
+            ),
+            at,
+        );
+        return None;
+    }
+    let what = |f: &str| format!("section \"{}\" {f}", s.id);
+    let j = value(
+        ctx,
+        s.j.as_ref()?,
+        Dimension::SecondMoment,
+        u,
+        &what("j"),
+        at,
+    );
+    let cw = s.cw.map(|c| c * u.section.to_si.powi(6));
+    // Offsets in the section unit, as the parts' x and y.
+    let x0 = Some(parts::section_length(ctx, s.x0.as_ref()?, u, &what("x0")));
+    let y0 = Some(parts::section_length(ctx, s.y0.as_ref()?, u, &what("y0")));
+    let (Some(j), Some(cw), Some(x0), Some(y0)) = (j, cw, x0, y0) else {
+        return None;
+    };
+    match (j, cw) {
+        (j, cw) if cw.is_finite() && j >= 0.0 && cw >= 0.0 && j + cw > 0.0 => {
+            Some(section::TorsionProperties {
+                j,
+                cw,
+                shear_centre_x: x0,
+                shear_centre_y: y0,
+                closed_cells: 0,
+                links: 0,
+            })
+        }
+        _ => {
+            ctx.error(
+                format!(
+                    "section \"{}\": j and cw must be zero or positive and not both zero",
+                    s.id
+                ),
+                at,
+            );
+            None
+        }
     }
 }
 
@@ -92,6 +161,7 @@ fn built_up(ctx: &mut Ctx, s: &SectionFile, parts: &[PartFile], u: &DisplayUnits
         i_out: 1.0,
         net_area: 1.0,
         built_up: None,
+        torsion: None,
     };
     let props = match section::properties_with_original(&placed) {
         Ok(p) => p,
@@ -264,6 +334,7 @@ fn built_up(ctx: &mut Ctx, s: &SectionFile, parts: &[PartFile], u: &DisplayUnits
             lacing,
             torsion,
         }),
+        torsion: None,
     }
 }
 

@@ -86,6 +86,7 @@ mod tests {
             i_out: 1e-6,
             net_area: 0.01,
             built_up: None,
+            torsion: None,
         }];
         let materials = vec![Material {
             id: "steel".into(),

@@ -235,11 +235,36 @@ pub fn compression_modes(model: &Model, m: usize) -> Result<CompressionModes, Ra
     let mut elements = Vec::new();
     match &sec.built_up {
         None => {
-            modes.push(flexural(ModeKind::FlexuralIn, e, kl_in, sec.r_in()));
-            modes.push(flexural(ModeKind::FlexuralOut, e, kl_out, sec.r_out()));
-            notes.push(
-                "torsional and flexural-torsional buckling (AISC 360-16 §E4) not checked: the section is given by its properties only (no J, Cw or shear centre)".into(),
-            );
+            let f1 = flexural(ModeKind::FlexuralIn, e, kl_in, sec.r_in());
+            let f2 = flexural(ModeKind::FlexuralOut, e, kl_out, sec.r_out());
+            match &sec.torsion {
+                // Given J, Cw, x0 (across the plane), y0 (in it): axis 1 is x
+                // (i_in = Ix, x0 along it), axis 2 is y (i_out = Iy).
+                Some(t) => {
+                    let lcz = kl_in.max(kl_out);
+                    let tm = torsional_mode(
+                        e,
+                        sec.area,
+                        sec.i_in,
+                        sec.i_out,
+                        t.j,
+                        t.cw,
+                        t.shear_centre_x,
+                        t.shear_centre_y,
+                        lcz,
+                        &f1,
+                        &f2,
+                    );
+                    if tm.fe.is_finite() && tm.fe > 0.0 {
+                        modes.push(tm);
+                    }
+                }
+                None => notes.push(
+                    "torsional and flexural-torsional buckling (AISC 360-16 §E4) not checked: the section is given by its properties only (no j, cw, x0, y0)".into(),
+                ),
+            }
+            modes.insert(0, f2);
+            modes.insert(0, f1);
         }
         Some(b) => {
             let p = &b.reduced;

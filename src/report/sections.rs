@@ -60,6 +60,16 @@ pub fn text(w: &mut dyn Write, model: &Model, id: Option<&str>) -> io::Result<()
                     sig(s.r_in() / f, 4),
                     sig(s.r_out() / f, 4),
                 )?;
+                if let Some(t) = &s.torsion {
+                    writeln!(
+                        w,
+                        "given torsion: J {} {unit}4, Cw {} {unit}6, shear centre x0 = {} {unit}, y0 = {} {unit} from the centroid",
+                        sig(t.j / f.powi(4), 4),
+                        sig(t.cw / f.powi(6), 4),
+                        sig(t.shear_centre_x / f, 4),
+                        sig(t.shear_centre_y / f, 4),
+                    )?;
+                }
             }
             Some(b) => {
                 let mut t = Table::new(&["property", "unit", "as built", "after loss", "change"]);
@@ -231,7 +241,11 @@ pub fn json(w: &mut dyn Write, model: &Model, id: Option<&str>) -> io::Result<()
         )?;
         // Torsion: J, Cw and the shear centre in the centroid's frame
         // (null when a part is known only by its table properties).
-        let t = s.built_up.as_ref().and_then(|b| b.torsion.as_ref());
+        let t = s
+            .built_up
+            .as_ref()
+            .and_then(|b| b.torsion.as_ref())
+            .or(s.torsion.as_ref());
         write!(
             w,
             ",\"j\":{},\"cw\":{},\"shear_centre\":{}",
