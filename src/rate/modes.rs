@@ -138,7 +138,7 @@ impl PlateElement {
     /// `Fel = (c2·λr/λ)²·Fy` (Eq. E7-5).
     pub fn effective_width(&self, fy: f64, fcr: f64) -> f64 {
         let l = self.ratio();
-        if !(fcr > 0.0) || l <= self.lambda_r * (fy / fcr).sqrt() {
+        if fcr.is_nan() || fcr <= 0.0 || l <= self.lambda_r * (fy / fcr).sqrt() {
             return self.b;
         }
         let fel = (self.c2 * self.lambda_r / l).powi(2) * fy;

@@ -601,7 +601,7 @@ fn integrate(nodes: &[(f64, f64)], els: &[Element]) -> Option<TorsionProperties>
         .zip(&lens)
         .map(|(e, &l)| l * (e.ta + e.tb) / 2.0)
         .sum();
-    if !(area > 0.0) {
+    if area.is_nan() || area <= 0.0 {
         return None;
     }
     let first = |k: usize| -> f64 {
@@ -680,7 +680,7 @@ fn integrate(nodes: &[(f64, f64)], els: &[Element]) -> Option<TorsionProperties>
     let iwx = sum(&|x, _, w| w * x);
     let iwy = sum(&|_, y, w| w * y);
     let det = ix * iy - ixy * ixy;
-    if !(det > 0.0) {
+    if det.is_nan() || det <= 0.0 {
         return None;
     }
     let xs = (iy * iwy - ixy * iwx) / det;
