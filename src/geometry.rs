@@ -307,6 +307,7 @@ mod tests {
                 shear_lag: 1.0,
                 shear_lag_given: false,
                 holes_punched: None,
+                torsion: None,
             }],
             nodes,
             members: members

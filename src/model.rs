@@ -43,6 +43,10 @@ pub struct Section {
     /// or reamed (Rp = 1.0); None when the model does not say, taken as
     /// punched (the conservative value) and noted in the report.
     pub holes_punched: Option<bool>,
+    /// J, Cw and the shear centre given with a section by its properties
+    /// (SI; shear centre from the centroid, x across the truss plane, y in
+    /// it, so that i_in = Ix); `None` when not given or built up.
+    pub torsion: Option<crate::section::TorsionProperties>,
 }
 
 /// A section computed from its parts (all in SI).
@@ -55,6 +59,9 @@ pub struct BuiltUp {
     /// Whether the section's x axis (rather than y) lies in the truss plane.
     pub x_in_plane: bool,
     pub lacing: Option<Lacing>,
+    /// Shear centre, J and Cw of the section as inspected (SI, section
+    /// coordinates); `None` when a part is known only by table properties.
+    pub torsion: Option<crate::section::TorsionProperties>,
 }
 
 /// Lacing or battens of a built-up member (AISC 360-16 §E6).
@@ -68,6 +75,23 @@ pub struct Lacing {
     pub component_r: f64,
     /// True when the lacing modifies the out-of-plane slenderness.
     pub out_of_plane: bool,
+    /// The lacing bars, when described (for their own checks).
+    pub bars: Option<LacingBars>,
+    /// Tie plates at the ends (§E6.2); `None` when not said.
+    pub tie_plates: Option<bool>,
+}
+
+/// Flat lacing bars of a laced member (SI).
+#[derive(Clone, Debug, PartialEq)]
+pub struct LacingBars {
+    pub width: f64,
+    pub thickness: f64,
+    /// Angle to the member axis, radians, and whether it was given.
+    pub angle: f64,
+    pub angle_given: bool,
+    pub system: crate::section::LacingSystem,
+    /// Laced faces sharing the shear.
+    pub planes: u32,
 }
 
 impl Section {

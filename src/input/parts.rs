@@ -51,6 +51,17 @@ pub enum LossFile {
     AreaPercent(f64),
     /// The part is gone.
     Missing,
+    /// Thickness lost from one face of a plate or eye-bar (`Outer`: the face
+    /// farther from the section's centroid as built; `Inner`: the nearer),
+    /// or from both (`Both`: the same as `Thickness`).
+    Face { thickness: Quantity, face: FaceFile },
+}
+
+#[derive(Debug, Deserialize, Clone, Copy, PartialEq, Eq)]
+pub enum FaceFile {
+    Outer,
+    Inner,
+    Both,
 }
 
 #[derive(Debug, Deserialize, Clone, Copy)]
@@ -118,7 +129,7 @@ macro_rules! part_kinds {
 
 part_kinds! {
     /// A flat plate: width along x, thickness along y.
-    Plate { width: Quantity, thickness: Quantity },
+    Plate { width: Quantity, thickness: Quantity, #[serde(default)] gauge: Option<Quantity> },
     /// Any shape by its table properties about its own centroid.
     Part { area: Quantity, ix: Quantity, iy: Quantity, #[serde(default)] ixy: Option<Quantity>, #[serde(default)] depth: Option<Quantity>, #[serde(default)] width: Option<Quantity>, #[serde(default)] kind: Option<GivenKindFile> },
     /// A channel by its dimensions (flange_slope: inner-face rise/run, 0 for parallel flanges).
@@ -134,7 +145,7 @@ part_kinds! {
     Pipe { outer_diameter: Quantity, wall: Quantity },
     RectTube { width: Quantity, height: Quantity, wall: Quantity },
     /// A rectangular eye-bar: width in the truss plane.
-    EyeBar { width: Quantity, thickness: Quantity },
+    EyeBar { width: Quantity, thickness: Quantity, #[serde(default)] gauge: Option<Quantity> },
 }
 
 /// Which section axis lies in the plane of the truss.
@@ -186,6 +197,36 @@ pub struct LacingFile {
     /// The axis whose slenderness the lacing modifies (default Out: components side by side across the truss plane).
     #[serde(default)]
     pub axis: Option<LacedAxisFile>,
+    /// The lacing bars (flat bars), for their own checks (AISC 360-16 §E6.2).
+    #[serde(default)]
+    pub bar: Option<LacingBarFile>,
+    /// Angle of the bars to the member axis, degrees (default: the least
+    /// §E6.2 allows, 60 single, 45 double).
+    #[serde(default)]
+    pub angle: Option<f64>,
+    /// Single or Double (crossed, joined at the crossing) lacing (default Single).
+    #[serde(default)]
+    pub kind: Option<LacingKindFile>,
+    /// Number of laced faces sharing the shear (default 1).
+    #[serde(default)]
+    pub planes: Option<u32>,
+    /// Whether tie plates are fitted at the ends and at interruptions (§E6.2).
+    #[serde(default)]
+    pub tie_plates: Option<bool>,
+}
+
+/// A flat lacing bar.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct LacingBarFile {
+    pub width: Quantity,
+    pub thickness: Quantity,
+}
+
+#[derive(Debug, Deserialize, Clone, Copy)]
+pub enum LacingKindFile {
+    Single,
+    Double,
 }
 
 /// Read a length in the section unit.
@@ -332,6 +373,26 @@ pub(super) fn convert_parts(
                 thickness: l(ctx, thickness, "thickness"),
             },
         };
+        // Plates: the distance between the two lines of fasteners (§E7 width).
+        let gauge = match p {
+            PartFile::Plate { gauge, width, .. } | PartFile::EyeBar { gauge, width, .. } => {
+                gauge.as_ref().map(|q| {
+                    let g = l(ctx, q, "gauge");
+                    let wd = l(ctx, width, "width");
+                    if !(g > 0.0 && g <= wd) {
+                        ctx.error(
+                            format!(
+                                "{}: must be positive and not more than the width",
+                                w("gauge")
+                            ),
+                            None,
+                        );
+                    }
+                    g
+                })
+            }
+            _ => None,
+        };
         let (x, y, holes, loss, label, rotated, toes, legs) = p.common();
         let x = l(ctx, x, "x");
         let y = l(ctx, y, "y");
@@ -378,6 +439,14 @@ pub(super) fn convert_parts(
         }
         let loss = loss.as_ref().map(|lf| match lf {
             LossFile::Thickness(q) => Loss::Thickness(l(ctx, q, "loss")),
+            // The side is settled below, once the section's centroid is known.
+            LossFile::Face { thickness, face } => {
+                let t = l(ctx, thickness, "loss");
+                match face {
+                    FaceFile::Both => Loss::Thickness(t),
+                    _ => Loss::OneFace { t, positive: true },
+                }
+            }
             LossFile::AreaPercent(p) => Loss::AreaPercent(*p),
             LossFile::Missing => Loss::Missing,
         });
@@ -398,9 +467,44 @@ pub(super) fn convert_parts(
                 }),
                 _ => None,
             },
+            gauge,
         });
     }
+    one_face_sides(parts, &mut out);
     out
+}
+
+/// Turns `Outer`/`Inner` losses into the side of each plate's thickness:
+/// the outer face is the one farther from the as-built centroid (measured
+/// along the plate's thickness direction; a plate through the centroid
+/// takes its positive side as outer).
+fn one_face_sides(parts: &[PartFile], out: &mut [PlacedPart]) {
+    let Ok(props) = crate::section::properties_original(out) else {
+        return;
+    };
+    for (p, placed) in parts.iter().zip(out.iter_mut()) {
+        let Some(LossFile::Face { face, .. }) = p.common().3 else {
+            continue;
+        };
+        let Some(Loss::OneFace { t, .. }) = placed.loss else {
+            continue;
+        };
+        let Ok(m) = placed.orientation.matrix_of(&placed.shape) else {
+            continue;
+        };
+        // Thickness direction in section axes: datum +y of a plate, +x of an eye-bar.
+        let dir = match placed.shape {
+            Shape::EyeBar { .. } => (m[0][0], m[1][0]),
+            _ => (m[0][1], m[1][1]),
+        };
+        let away = (placed.x - props.centroid_x) * dir.0 + (placed.y - props.centroid_y) * dir.1;
+        let outer_positive = away >= 0.0;
+        let positive = match face {
+            FaceFile::Outer => outer_positive,
+            _ => !outer_positive,
+        };
+        placed.loss = Some(Loss::OneFace { t, positive });
+    }
 }
 
 pub(super) fn connector(c: Option<ConnectorFile>) -> Connector {

@@ -229,6 +229,18 @@ pub struct SectionFile {
     /// Lacing or battens of a built-up member.
     #[serde(default)]
     pub lacing: Option<super::parts::LacingFile>,
+    /// For a section given by its properties: St-Venant torsion constant J
+    /// (second-moment unit), warping constant Cw (a plain number in the section
+    /// unit to the sixth power) and the shear centre's offsets x0 (across the
+    /// truss plane) and y0 (in it) from the centroid, for AISC 360-16 §E4.
+    #[serde(default)]
+    pub j: Option<Quantity>,
+    #[serde(default)]
+    pub cw: Option<f64>,
+    #[serde(default)]
+    pub x0: Option<Quantity>,
+    #[serde(default)]
+    pub y0: Option<Quantity>,
     /// Shear-lag factor of the end connections: `0.85`, or
     /// `(length: .., eccentricity: ..)` for U = 1 − x̄/L.
     #[serde(default)]

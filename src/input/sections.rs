@@ -1,6 +1,6 @@
 //! Section definitions of the model file turned into section properties.
 
-use super::convert::{positive, Ctx};
+use super::convert::{positive, value, Ctx};
 use super::parts::{self, convert_parts, LacedAxisFile, PartFile, PlaneAxisFile};
 use super::schema::{SectionFile, ShearLagFile};
 use crate::model::{BuiltUp, Lacing, Section};
@@ -99,6 +99,7 @@ fn properties(ctx: &mut Ctx, s: &SectionFile, u: &DisplayUnits) -> Section {
         }
     }
     let area = area.unwrap_or(1.0);
+    let torsion = given_torsion(ctx, s, u, at);
     Section {
         id: s.id.clone(),
         area,
@@ -109,6 +110,74 @@ fn properties(ctx: &mut Ctx, s: &SectionFile, u: &DisplayUnits) -> Section {
         shear_lag: 1.0,
         shear_lag_given: false,
         holes_punched: None,
+        torsion,
+    }
+}
+
+/// `j`, `cw`, `x0`, `y0` of a section given by its properties: all four or
+/// none (J and Cw positive or zero, J > 0 or Cw > 0).
+fn given_torsion(
+    ctx: &mut Ctx,
+    s: &SectionFile,
+    u: &DisplayUnits,
+    at: Option<(usize, usize)>,
+) -> Option<section::TorsionProperties> {
+    let given = [
+        s.j.is_some(),
+        s.cw.is_some(),
+        s.x0.is_some(),
+        s.y0.is_some(),
+    ];
+    if given.iter().all(|g| !g) {
+        return None;
+    }
+    if !given.iter().all(|g| *g) {
+        ctx.error(
+            format!(
+                "section \"{}\": give all of j, cw, x0 and y0, or none",
+                s.id
+            ),
+            at,
+        );
+        return None;
+    }
+    let what = |f: &str| format!("section \"{}\" {f}", s.id);
+    let j = value(
+        ctx,
+        s.j.as_ref()?,
+        Dimension::SecondMoment,
+        u,
+        &what("j"),
+        at,
+    );
+    let cw = s.cw.map(|c| c * u.section.to_si.powi(6));
+    // Offsets in the section unit, as the parts' x and y.
+    let x0 = Some(parts::section_length(ctx, s.x0.as_ref()?, u, &what("x0")));
+    let y0 = Some(parts::section_length(ctx, s.y0.as_ref()?, u, &what("y0")));
+    let (Some(j), Some(cw), Some(x0), Some(y0)) = (j, cw, x0, y0) else {
+        return None;
+    };
+    match (j, cw) {
+        (j, cw) if cw.is_finite() && j >= 0.0 && cw >= 0.0 && j + cw > 0.0 => {
+            Some(section::TorsionProperties {
+                j,
+                cw,
+                shear_centre_x: x0,
+                shear_centre_y: y0,
+                closed_cells: 0,
+                links: 0,
+            })
+        }
+        _ => {
+            ctx.error(
+                format!(
+                    "section \"{}\": j and cw must be zero or positive and not both zero",
+                    s.id
+                ),
+                at,
+            );
+            None
+        }
     }
 }
 
@@ -134,12 +203,20 @@ fn built_up(ctx: &mut Ctx, s: &SectionFile, parts: &[PartFile], u: &DisplayUnits
         shear_lag: 1.0,
         shear_lag_given: false,
         holes_punched: None,
+        torsion: None,
     };
     let props = match section::properties_with_original(&placed) {
         Ok(p) => p,
         Err(e) => {
             let labels: Vec<Option<&str>> = parts.iter().map(|p| p.label()).collect();
             ctx.error(super::section_errors::describe(&e, &s.id, &labels, u), at);
+            return fallback;
+        }
+    };
+    let torsion = match section::torsion(&placed) {
+        Ok(t) => t,
+        Err(e) => {
+            ctx.error(format!("section \"{}\": {e}", s.id), at);
             return fallback;
         }
     };
@@ -235,12 +312,55 @@ fn built_up(ctx: &mut Ctx, s: &SectionFile, parts: &[PartFile], u: &DisplayUnits
                 at,
             );
         }
+        let system = match l.kind {
+            Some(parts::LacingKindFile::Double) => section::LacingSystem::Double,
+            _ => section::LacingSystem::Single,
+        };
+        let bars = l.bar.as_ref().map(|b| {
+            let w = |f: &str| format!("section \"{}\" lacing bar {f}", s.id);
+            let width = parts::section_length(ctx, &b.width, u, &w("width"));
+            let thickness = parts::section_length(ctx, &b.thickness, u, &w("thickness"));
+            if !is_positive(width) || !is_positive(thickness) {
+                ctx.error(format!("{} and thickness must be positive", w("width")), at);
+            }
+            let least = match system {
+                section::LacingSystem::Single => 60.0,
+                section::LacingSystem::Double => 45.0,
+            };
+            let deg = l.angle.unwrap_or(least);
+            if !(deg.is_finite() && deg > 0.0 && deg < 90.0) {
+                ctx.error(
+                    format!(
+                        "section \"{}\" lacing angle must be between 0 and 90 degrees, not {deg}",
+                        s.id
+                    ),
+                    at,
+                );
+            }
+            let planes = l.planes.unwrap_or(1);
+            if planes == 0 {
+                ctx.error(
+                    format!("section \"{}\" lacing planes must be at least 1", s.id),
+                    at,
+                );
+            }
+            crate::model::LacingBars {
+                width,
+                thickness,
+                angle: deg.to_radians(),
+                angle_given: l.angle.is_some(),
+                system,
+                planes: planes.max(1),
+            }
+        });
         Lacing {
             spacing,
             connector: parts::connector(l.connector),
             k_i,
             component_r,
             out_of_plane: l.axis != Some(LacedAxisFile::In),
+            bars,
+            tie_plates: l.tie_plates,
         }
     });
     Section {
@@ -255,10 +375,12 @@ fn built_up(ctx: &mut Ctx, s: &SectionFile, parts: &[PartFile], u: &DisplayUnits
             reduced: props.reduced,
             x_in_plane,
             lacing,
+            torsion,
         }),
         shear_lag: 1.0,
         shear_lag_given: false,
         holes_punched: None,
+        torsion: None,
     }
 }
 

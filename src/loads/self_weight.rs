@@ -89,6 +89,7 @@ mod tests {
             shear_lag: 1.0,
             shear_lag_given: false,
             holes_punched: None,
+            torsion: None,
         }];
         let materials = vec![Material {
             id: "steel".into(),

@@ -1,7 +1,10 @@
 //! The capacity of one member, independent of load: slenderness about both
-//! section axes, the nominal column strength of the method's curve on the
-//! governing axis, the nominal tension strengths on gross and net area, and
-//! the resistances a rating method's level makes of them.
+//! section axes (for the reports), the nominal column strength of the
+//! method's curve at the slenderness of the governing buckling mode
+//! (`modes`: principal axes, torsional and flexural-torsional buckling,
+//! AISC 360-16 §E3/§E4) on the §E7 effective area, the nominal tension
+//! strengths on gross and net area, and the resistances a rating method's
+//! level makes of them.
 
 use super::RateError;
 use crate::capacity::{self, ColumnCheck};
@@ -59,6 +62,13 @@ pub struct MemberCapacity {
     pub e: f64,
     /// The effect of lacing on slenderness, for built-up laced members.
     pub lacing: Option<LacingEffect>,
+    /// Every buckling mode checked, the governing one, and the plate
+    /// elements (`rate::modes`); the column check uses the governing mode.
+    pub modes: super::modes::CompressionModes,
+    /// §E7 effective area at the column check's critical stress.
+    pub effective_area: super::modes::EffectiveArea,
+    /// §E6.2 checks of the lacing bars, when the lacing describes them.
+    pub lacing_bars: Option<super::lacing::LacingBarCheck>,
 }
 
 /// AISC 360-16 §E6 for one laced member.
@@ -66,7 +76,10 @@ pub struct MemberCapacity {
 pub struct LacingEffect {
     /// (KL/r)o, the slenderness of the whole section about the laced axis.
     pub overall: f64,
-    /// (KL/r)m of Eq. E6-2a or E6-2b.
+    /// The slenderness used: a member with lacing and tie plates is designed
+    /// by §E3/§E4/§E7 with the §E6.2 detailing (§E6.1(b)), so this equals
+    /// `overall`; the modified slenderness of Eq. E6-2 (§E6.1(a)) is for
+    /// shapes joined by bolts or welds only.
     pub modified: f64,
     /// a/ri of one component between connectors.
     pub component: f64,
@@ -90,8 +103,10 @@ pub struct ColumnCapacity {
 }
 
 impl MemberCapacity {
+    /// The slenderness the column curve is entered with: the governing
+    /// buckling mode's (equivalent) slenderness, `π·√(E/Fe)`.
     pub fn slenderness(&self) -> f64 {
-        self.slenderness_in.max(self.slenderness_out)
+        self.modes.slenderness()
     }
     pub fn slenderness_unit_k(&self) -> f64 {
         self.slenderness_tension
@@ -128,42 +143,43 @@ pub fn member_capacity(
     let fu = mat.fu.ok_or_else(|| RateError::NoTensile(mat.id.clone()))?;
     let l = model.length(m);
     let (r_in, r_out) = (sec.r_in(), sec.r_out());
-    let mut slenderness_in = mem.k_in * mem.unbraced_in.unwrap_or(l) / r_in;
-    let mut slenderness_out = mem.k_out * mem.unbraced_out.unwrap_or(l) / r_out;
-    // AISC 360-16 §E6.1: a laced or battened member buckles at the modified
-    // slenderness (KL/r)m of Eq. E6-2a/E6-2b about the axis the lacing ties.
-    let mut lacing = None;
-    if let Some(lc) = sec.built_up.as_ref().and_then(|b| b.lacing.as_ref()) {
-        let before = if lc.out_of_plane {
-            slenderness_out
-        } else {
-            slenderness_in
-        };
-        let modified =
-            section::modified_slenderness(before, lc.spacing, lc.component_r, lc.connector, lc.k_i);
-        if lc.out_of_plane {
-            slenderness_out = modified;
-        } else {
-            slenderness_in = modified;
-        }
-        let governing = slenderness_in.max(slenderness_out);
-        lacing = Some(LacingEffect {
-            overall: before,
-            modified,
-            component: lc.spacing / lc.component_r,
-            component_ok: section::component_slenderness_ok(lc.spacing, lc.component_r, governing),
+    let slenderness_in = mem.k_in * mem.unbraced_in.unwrap_or(l) / r_in;
+    let slenderness_out = mem.k_out * mem.unbraced_out.unwrap_or(l) / r_out;
+    // Every buckling mode (principal axes, §E4) and the §E7 plate elements.
+    let modes = super::modes::compression_modes(model, m)?;
+    let kl_r = modes.slenderness();
+    // AISC 360-16 §E6.1(b): lacing with tie plates, no modified slenderness;
+    // §E6.2: each component between connectors within 3/4 of the governing.
+    let lacing = sec
+        .built_up
+        .as_ref()
+        .and_then(|b| b.lacing.as_ref())
+        .map(|lc| {
+            let overall = if lc.out_of_plane {
+                slenderness_out
+            } else {
+                slenderness_in
+            };
+            LacingEffect {
+                overall,
+                modified: overall,
+                component: lc.spacing / lc.component_r,
+                component_ok: section::component_slenderness_ok(lc.spacing, lc.component_r, kl_r),
+            }
         });
-    }
-    let (axis, kl_r) = if slenderness_out > slenderness_in {
-        (Axis::Out, slenderness_out)
-    } else {
-        (Axis::In, slenderness_in)
+    let axis = match modes.governing().kind {
+        super::modes::ModeKind::FlexuralIn => Axis::In,
+        super::modes::ModeKind::FlexuralOut => Axis::Out,
+        _ if slenderness_out > slenderness_in => Axis::Out,
+        _ => Axis::In,
     };
     let err = |source| RateError::Capacity {
         member: mem.id.to_string(),
         source,
     };
     let check = capacity::column(&method.curve, fy, mat.e, kl_r).map_err(err)?;
+    // §E7, Eq. E7-1: Pn = Fcr·Ae (Ae = Ag when no element is slender).
+    let effective_area = modes.effective_area(check.critical_stress);
     // The nominal tension strengths; checked for sign and overflow by the
     // shared tension check (its factors are not used).
     capacity::tension(&method.curve, fy, fu, sec.area, sec.net_area).map_err(err)?;
@@ -188,7 +204,7 @@ pub fn member_capacity(
             regime: check.regime,
             critical_stress: check.critical_stress,
             euler_stress: check.euler_stress,
-            nominal: check.critical_stress * sec.area,
+            nominal: check.critical_stress * effective_area.area,
             capacity: 0.0,
             clause: method.check.compression_clause,
             yields_before_buckling: check.yields_before_buckling,
@@ -205,11 +221,30 @@ pub fn member_capacity(
         fy,
         e: mat.e,
         lacing,
+        modes,
+        effective_area,
+        lacing_bars: None,
     };
     let (t, governs) = cap.tension_at(&method.check);
     cap.tension_capacity = cs * t;
     cap.tension_governs = governs;
     cap.compression.capacity = cs * cap.compression_at(&method.check);
+    // §E6.2: the lacing carries 2 % of the member's available strength.
+    if let Some(lc) = sec.built_up.as_ref().and_then(|b| b.lacing.as_ref()) {
+        if let Some(bars) = &lc.bars {
+            cap.lacing_bars = Some(
+                super::lacing::lacing_bar_check(
+                    lc,
+                    bars,
+                    cap.compression.capacity,
+                    &method.curve,
+                    fy,
+                    mat.e,
+                )
+                .map_err(err)?,
+            );
+        }
+    }
     Ok(cap)
 }
 

@@ -9,11 +9,14 @@
 
 mod checks;
 mod combine;
+pub mod lacing;
 mod levels;
+pub mod modes;
 mod notes;
 
 pub use checks::{member_capacity, Axis, LacingEffect, MemberCapacity, RP_PUNCHED};
 pub use combine::{load_effects, moving_effects, LoadEffect, Relief, Side};
+pub use modes::{compression_modes, BucklingMode, CompressionModes, ModeKind};
 
 use crate::analysis::{Analysis, CaseResult};
 use crate::capacity::{self, Regime};

@@ -35,17 +35,32 @@ pub(super) fn member_notes(
         let compressed = effects.iter().any(|e| e.forces[m] < 0.0);
         let tensioned = effects.iter().any(|e| e.forces[m] > 0.0);
         if let (Some(le), true) = (&cap.lacing, compressed) {
-            let pmax = effects.iter().map(|e| -e.forces[m]).fold(0.0f64, f64::max);
+            // §E6.2: 2 % of the available compressive strength, not the demand.
+            let pmax = cap.compression.capacity;
             let s = crate::report::Scale::of(model);
             notes.push(format!(
-                "member \"{id}\": laced built-up member, (KL/r)o = {:.1} → (KL/r)m = {:.1} (AISC 360-16 §E6.1); lacing designed for V = 2% of {:.1} {} = {:.2} {} (§E6.2)",
+                "member \"{id}\": laced built-up member with tie plates, KL/r = {:.1} about the laced axis, not modified (AISC 360-16 §E6.1(b)); lacing designed for V = 2% of the available strength {:.1} {} = {:.2} {} (§E6.2)",
                 le.overall,
-                le.modified,
                 pmax / s.force,
                 s.force_name,
                 section::lacing_shear(pmax) / s.force,
                 s.force_name
             ));
+            if let Some(b) = &cap.lacing_bars {
+                notes.push(format!(
+                    "member \"{id}\": lacing bar force {:.2} {} against strength {:.2} {} (utilization {:.2}); K·L/r = {:.0} {} {:.0} ({}; {})",
+                    b.force / s.force,
+                    s.force_name,
+                    b.capacity / s.force,
+                    s.force_name,
+                    b.utilization,
+                    b.slenderness,
+                    if b.slenderness_ok { "≤" } else { "EXCEEDS" },
+                    b.slenderness_limit,
+                    super::lacing::LacingBarCheck::CLAUSE,
+                    if b.angle_given { "angle as given" } else { "angle not given: the least §E6.2 allows taken" }
+                ));
+            }
             if !le.component_ok {
                 notes.push(format!(
                     "member \"{id}\": component slenderness a/ri = {:.1} exceeds 3/4 of the governing slenderness (AISC 360-16 §E6.2)",
@@ -54,6 +69,9 @@ pub(super) fn member_notes(
             }
         }
         if compressed {
+            if sec.built_up.is_some() {
+                notes.extend(cap.modes.report_notes(id, cap.compression.critical_stress));
+            }
             if bridge_code(method) && cap.slenderness() > AASHTO_COMPRESSION_LIMIT {
                 notes.push(format!(
                     "member \"{id}\": KL/r = {:.1} exceeds the limit of {AASHTO_COMPRESSION_LIMIT:.0} for main compression members (AASHTO LRFD 6.9.3)",

@@ -823,8 +823,8 @@ fn checks(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: &S
     let eu = format!("E {}", s.stress_name);
     let feu = format!("Fe {}", s.stress_name);
     let fcu = format!("Fcr {}", s.stress_name);
-    let pcu = format!("compression capacity {}", s.force_name);
-    let ptu = format!("tension capacity {}", s.force_name);
+    let pcu = format!("compression C {}", s.force_name);
+    let ptu = format!("tension C {}", s.force_name);
     let mut tb = HTable::new(&[
         "member",
         &au,
@@ -833,7 +833,8 @@ fn checks(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: &S
         &eu,
         "KL/r in",
         "KL/r out",
-        "axis",
+        "governing mode",
+        "KL/r of the mode",
         &feu,
         &fcu,
         "regime",
@@ -856,7 +857,11 @@ fn checks(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: &S
                 n(cap.e / s.stress, 5),
                 n(cap.slenderness_in, 4),
                 n(cap.slenderness_out, 4),
-                t(cap.axis.as_str()),
+                t(&{
+                    let g = cap.modes.governing().kind;
+                    format!("{} (Fe by {})", g.name(), g.clause())
+                }),
+                n(cap.slenderness(), 4),
                 n(cap.compression.euler_stress / s.stress, 4),
                 n(cap.compression.critical_stress / s.stress, 4),
                 t(cap.compression.regime.as_str()),

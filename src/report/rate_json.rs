@@ -71,7 +71,7 @@ pub fn rate(
         let r = check_row(model, rating, c);
         write!(
             w,
-            "{{\"member\":{},\"case\":{},\"force\":{},\"stress\":{},\"axis\":{},\"slenderness\":{},\"slenderness_in\":{},\"slenderness_out\":{},\"euler_stress\":{},\"critical_stress\":{},\"capacity\":{},\"utilization\":{},\"margin\":{},\"regime\":{},\"rating_factor\":{},\"service\":{},\"clause\":{},\"formula\":{}}}",
+            "{{\"member\":{},\"case\":{},\"force\":{},\"stress\":{},\"axis\":{},\"slenderness\":{},\"slenderness_in\":{},\"slenderness_out\":{},\"euler_stress\":{},\"critical_stress\":{},\"capacity\":{},\"utilization\":{},\"margin\":{},\"regime\":{},\"rating_factor\":{},\"service\":{},\"clause\":{},\"formula\":{},\"mode\":{}}}",
             string(r.member),
             string(r.case),
             num(r.force),
@@ -90,6 +90,7 @@ pub fn rate(
             r.service,
             string(r.clause),
             string(r.formula),
+            string(&r.mode),
         )?;
     }
     w.write_all(b"],\"controlling\":")?;

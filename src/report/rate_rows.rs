@@ -30,6 +30,9 @@ pub struct CheckRow<'a> {
     pub rating_factor: Option<f64>,
     pub clause: &'static str,
     pub formula: &'static str,
+    /// The governing buckling mode and its clause (compression rows), e.g.
+    /// "flexural-torsional (AISC 360-16 §E4, Eq. E4-3)"; "" in tension.
+    pub mode: String,
 }
 
 pub fn check_row<'a>(model: &'a Model, r: &'a Rating, c: &Check) -> CheckRow<'a> {
@@ -72,6 +75,12 @@ pub fn check_row<'a>(model: &'a Model, r: &'a Rating, c: &Check) -> CheckRow<'a>
             "min(yield on gross area, fracture on net area)"
         } else {
             cap.compression.check.formula
+        },
+        mode: if tension {
+            String::new()
+        } else {
+            let g = cap.modes.governing().kind;
+            format!("{} (Fe by {})", g.name(), g.clause())
         },
     }
 }

@@ -76,6 +76,9 @@ fn part_note(i: usize, p: &PlacedPart, unit: &str) -> String {
         Some(Loss::Thickness(tl)) => extra.push(format!("loss {} {unit} thickness", plain(*tl))),
         Some(Loss::AreaPercent(pc)) => extra.push(format!("loss {} % of area", plain(*pc))),
         Some(Loss::Missing) => extra.push("missing".into()),
+        Some(Loss::OneFace { t, .. }) => {
+            extra.push(format!("loss {} {unit} thickness on one face", plain(*t)))
+        }
         None => {}
     }
     if !extra.is_empty() {
@@ -206,6 +209,15 @@ pub fn section_svg(
     }
     if xmin > xmax {
         (xmin, xmax, ymin, ymax) = (cx, cx, cy, cy);
+    }
+    // Shear centre by thin-walled theory (None for table-only parts).
+    let sc = crate::section::torsion(parts)
+        .ok()
+        .flatten()
+        .map(|t| (t.shear_centre_x, t.shear_centre_y))
+        .filter(|(x, y)| x.is_finite() && y.is_finite());
+    if let Some((x, y)) = sc {
+        (xmin, xmax, ymin, ymax) = (xmin.min(x), xmax.max(x), ymin.min(y), ymax.max(y));
     }
     let mut size = (xmax - xmin).max(ymax - ymin);
     if !(size.is_finite() && size > 0.0) {
@@ -399,6 +411,29 @@ pub fn section_svg(
             -o.centroid_y,
             0.4 * c,
             stroke
+        );
+    }
+    // Shear centre: a small open circle with a dot, labelled S.
+    if let Some((x, y)) = sc {
+        let _ = writeln!(
+            s,
+            r##"<circle cx="{x:.4}" cy="{:.4}" r="{:.4}" fill="none" stroke="#6a3d9a" stroke-width="{:.4}" class="shear-centre"/>"##,
+            -y,
+            0.02 * size,
+            1.2 * stroke
+        );
+        let _ = writeln!(
+            s,
+            r##"<circle cx="{x:.4}" cy="{:.4}" r="{:.4}" fill="#6a3d9a" class="shear-centre-dot"/>"##,
+            -y,
+            0.006 * size
+        );
+        let _ = writeln!(
+            s,
+            r##"<text x="{:.4}" y="{:.4}" font-family="sans-serif" font-size="{:.4}" fill="#6a3d9a">S</text>"##,
+            x + 0.025 * size,
+            -y + 0.035 * size,
+            font
         );
     }
     // Overall dimensions: width under the section, depth to its left.

@@ -60,6 +60,16 @@ pub fn text(w: &mut dyn Write, model: &Model, id: Option<&str>) -> io::Result<()
                     sig(s.r_in() / f, 4),
                     sig(s.r_out() / f, 4),
                 )?;
+                if let Some(t) = &s.torsion {
+                    writeln!(
+                        w,
+                        "given torsion: J {} {unit}4, Cw {} {unit}6, shear centre x0 = {} {unit}, y0 = {} {unit} from the centroid",
+                        sig(t.j / f.powi(4), 4),
+                        sig(t.cw / f.powi(6), 4),
+                        sig(t.shear_centre_x / f, 4),
+                        sig(t.shear_centre_y / f, 4),
+                    )?;
+                }
             }
             Some(b) => {
                 let mut t = Table::new(&["property", "unit", "as built", "after loss", "change"]);
@@ -107,6 +117,30 @@ pub fn text(w: &mut dyn Write, model: &Model, id: Option<&str>) -> io::Result<()
                     sig(s.i_in / f.powi(4), 5),
                     sig(s.i_out / f.powi(4), 5)
                 )?;
+                match &b.torsion {
+                    Some(t) => {
+                        writeln!(
+                            w,
+                            "torsion (after loss, thin-walled centre lines): shear centre x = {} {unit}, y = {} {unit} (x0 = {}, y0 = {} from the centroid); J = {} {unit}4; Cw = {} {unit}6",
+                            sig(t.shear_centre_x / f, 4),
+                            sig(t.shear_centre_y / f, 4),
+                            sig((t.shear_centre_x - b.reduced.centroid_x) / f, 4),
+                            sig((t.shear_centre_y - b.reduced.centroid_y) / f, 4),
+                            sig(t.j / f.powi(4), 4),
+                            sig(t.cw / f.powi(6), 4),
+                        )?;
+                        if t.links > 0 {
+                            writeln!(w, "note: {} joint(s) between parts that do not touch are taken through the lacing or tie plates (warping continuous); the lacing adds nothing to J (conservative)", t.links)?;
+                        }
+                        if t.closed_cells > 0 {
+                            writeln!(w, "note: {} closed cell(s) found; the section is taken as open (cut), which underestimates J (conservative)", t.closed_cells)?;
+                        }
+                    }
+                    None => writeln!(
+                        w,
+                        "torsion: not computed (a part is given only by table properties); flexural-torsional buckling cannot be checked for this section"
+                    )?,
+                }
                 if b.reduced.balance < 0.9 {
                     writeln!(
                         w,
@@ -150,6 +184,11 @@ pub fn text(w: &mut dyn Write, model: &Model, id: Option<&str>) -> io::Result<()
                             Some(crate::section::Loss::Thickness(t)) => {
                                 format!("{} {unit} thickness", sig(t / f, 3))
                             }
+                            Some(crate::section::Loss::OneFace { t, positive }) => format!(
+                                "{} {unit} thickness from the {} face",
+                                sig(t / f, 3),
+                                if *positive { "+" } else { "−" }
+                            ),
                             Some(crate::section::Loss::AreaPercent(pc)) => format!("{pc}% area"),
                             Some(crate::section::Loss::Missing) => "missing".into(),
                         },
@@ -200,6 +239,31 @@ pub fn json(w: &mut dyn Write, model: &Model, id: Option<&str>) -> io::Result<()
             num(s.i_out / f.powi(4)),
             num(s.net_area / f.powi(2)),
         )?;
+        // Torsion: J, Cw and the shear centre in the centroid's frame
+        // (null when a part is known only by its table properties).
+        let t = s
+            .built_up
+            .as_ref()
+            .and_then(|b| b.torsion.as_ref())
+            .or(s.torsion.as_ref());
+        write!(
+            w,
+            ",\"j\":{},\"cw\":{},\"shear_centre\":{}",
+            t.map_or("null".into(), |t| num(t.j / f.powi(4))),
+            t.map_or("null".into(), |t| num(t.cw / f.powi(6))),
+            t.map_or("null".into(), |t| format!(
+                "{{\"x\":{},\"y\":{}}}",
+                num(t.shear_centre_x / f),
+                num(t.shear_centre_y / f)
+            )),
+        )?;
+        if let Some(t) = t {
+            write!(
+                w,
+                ",\"torsion_closed_cells\":{},\"torsion_links\":{}",
+                t.closed_cells, t.links
+            )?;
+        }
         if let Some(b) = &s.built_up {
             let r = &b.reduced;
             write!(
@@ -248,10 +312,15 @@ pub fn svg(w: &mut dyn Write, model: &Model, section: &Section) -> io::Result<()
                 .collect(),
             loss: p.loss.as_ref().map(|l| match l {
                 crate::section::Loss::Thickness(t) => crate::section::Loss::Thickness(t / f),
+                crate::section::Loss::OneFace { t, positive } => crate::section::Loss::OneFace {
+                    t: t / f,
+                    positive: *positive,
+                },
                 other => other.clone(),
             }),
             label: p.label.clone(),
             drawn_as: p.drawn_as,
+            gauge: p.gauge.map(|g| g / f),
         })
         .collect();
     let props = crate::section::properties(&parts).map_err(io::Error::other)?;

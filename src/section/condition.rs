@@ -11,7 +11,7 @@ pub enum Loss {
     /// Total thickness lost from every element of the part (the caller adds
     /// the loss on both faces). Overall dimensions (depth, flange width, leg
     /// lengths, outer diameter) are kept and each element is thinned from its
-    /// inner face — plates, eye-bars and webs of I-shapes and tees thin
+    /// inner face (a sloped flange face by a true offset normal to itself) — plates, eye-bars and webs of I-shapes and tees thin
     /// symmetrically; solid bars lose `t` from their diameter or side. This
     /// idealisation keeps the outer fibres in place. A thickness loss cannot be
     /// applied to a [`Shape::Given`].
@@ -23,6 +23,12 @@ pub enum Loss {
     AreaPercent(f64),
     /// The part is gone; it contributes nothing to the reduced section.
     Missing,
+    /// Thickness `t` lost from ONE face of a plate or eye-bar: the face on
+    /// the positive side of its thickness direction in its reference
+    /// orientation (+y of a plate, +x of an eye-bar) when `positive`. The
+    /// other face stays where it was, so the plate's centre moves by `t/2`.
+    /// (The input layer turns `Outer`/`Inner` into a side.)
+    OneFace { t: f64, positive: bool },
 }
 
 /// A part after its loss is applied.
@@ -35,6 +41,8 @@ pub enum Condition {
         shape: Shape,
         area_factor: f64,
         thickness_loss: f64,
+        /// Translation of the reduced shape in its datum frame (one-face loss).
+        shift: (f64, f64),
     },
     /// The part is gone.
     Missing,
@@ -51,6 +59,7 @@ pub fn apply_loss(
             shape: shape.clone(),
             area_factor: 1.0,
             thickness_loss: 0.0,
+            shift: (0.0, 0.0),
         }),
         Some(Loss::Missing) => Ok(Condition::Missing),
         Some(Loss::AreaPercent(p)) => {
@@ -67,6 +76,7 @@ pub fn apply_loss(
                 shape: shape.clone(),
                 area_factor: 1.0 - p / 100.0,
                 thickness_loss: 0.0,
+                shift: (0.0, 0.0),
             })
         }
         Some(Loss::Thickness(t)) => {
@@ -83,6 +93,38 @@ pub fn apply_loss(
                 shape: reduced,
                 area_factor: 1.0,
                 thickness_loss: t,
+                shift: (0.0, 0.0),
+            })
+        }
+        Some(Loss::OneFace { t, positive }) => {
+            let t = *t;
+            if !(t.is_finite() && t >= 0.0) {
+                return Err(SectionError::InvalidLoss {
+                    part,
+                    reason: format!("thickness loss {t} must be a finite non-negative number"),
+                });
+            }
+            let sign = if *positive { -0.5 } else { 0.5 };
+            let shift = match shape {
+                Shape::Plate { .. } => (0.0, sign * t),
+                Shape::EyeBar { .. } => (sign * t, 0.0),
+                _ => {
+                    return Err(SectionError::InvalidLoss {
+                        part,
+                        reason: format!(
+                            "a loss on one face applies to plates and eye-bars; give a {} its loss as Thickness (inner faces)",
+                            shape.kind()
+                        ),
+                    })
+                }
+            };
+            let reduced = reduce_thickness(part, shape, t)?;
+            reduced.validate(part)?;
+            Ok(Condition::Present {
+                shape: reduced,
+                area_factor: 1.0,
+                thickness_loss: t,
+                shift,
             })
         }
     }
@@ -102,6 +144,19 @@ pub fn reduce_thickness(part: usize, shape: &Shape, t: f64) -> Result<Shape, Sec
             })
         }
     };
+    let sloped = |avg: f64, slope: f64, shift: f64| -> Result<f64, SectionError> {
+        let lost = t * (1.0 + slope * slope).sqrt() - slope * shift;
+        if lost < avg {
+            Ok(avg - lost)
+        } else {
+            Err(SectionError::LossExceedsThickness {
+                part,
+                field: "flange_thickness",
+                loss: t,
+                thickness: avg,
+            })
+        }
+    };
     Ok(match *shape {
         Shape::Plate { width, thickness } => Shape::Plate {
             width,
@@ -112,6 +167,11 @@ pub fn reduce_thickness(part: usize, shape: &Shape, t: f64) -> Result<Shape, Sec
             thickness: thin("thickness", thickness)?,
         },
         Shape::Given { .. } => return Err(SectionError::LossNotApplicable { part }),
+        // A sloped inner flange face offset by the true (normal) distance t
+        // loses t·√(1 + s²) of thickness at every x; the average thickness is
+        // taken at mid-projection, which moves toward the web by half the web's
+        // inner-face loss (t/2 for a channel, t/4 for an I-shape whose web
+        // thins on both faces), where the flange was s·t/2 (s·t/4) thicker.
         Shape::Channel {
             depth,
             flange_width,
@@ -122,7 +182,7 @@ pub fn reduce_thickness(part: usize, shape: &Shape, t: f64) -> Result<Shape, Sec
             depth,
             flange_width,
             web_thickness: thin("web_thickness", web_thickness)?,
-            flange_thickness: thin("flange_thickness", flange_thickness)?,
+            flange_thickness: sloped(flange_thickness, flange_slope, t / 2.0)?,
             flange_slope,
         },
         Shape::IShape {
@@ -135,7 +195,7 @@ pub fn reduce_thickness(part: usize, shape: &Shape, t: f64) -> Result<Shape, Sec
             depth,
             flange_width,
             web_thickness: thin("web_thickness", web_thickness)?,
-            flange_thickness: thin("flange_thickness", flange_thickness)?,
+            flange_thickness: sloped(flange_thickness, flange_slope, t / 4.0)?,
             flange_slope,
         },
         Shape::Angle {
@@ -265,6 +325,64 @@ mod tests {
         assert_relative_eq!(p.centroid_y, 0.0, epsilon = 1e-12);
         // Reduced area by hand: web 12 × 0.3 + flanges 2 × 2.7 × 0.4 = 5.76.
         assert_relative_eq!(p.area, 3.6 + 2.16, max_relative = 1e-12);
+    }
+
+    #[test]
+    fn sloped_flange_face_is_offset_by_the_true_distance() {
+        // Channel d 15, bf 3.4, tw 0.4, tf 0.65 (average), slope 1:6, loss
+        // t = 0.1 from the inner faces. Geometry of an offset line: the
+        // sloped inner face moved a normal distance t sits t·√(1 + s²) lower
+        // at every x, so the thickness at the old web face (x = tw) and at
+        // the toe (x = bf) each drop by exactly t·√(1 + s²) = 0.101379.
+        // Thickness at x of a flange of average tf at mid-projection x_m =
+        // (tw + bf)/2: tf + s·(x_m − x) (the shape's own definition).
+        let s = 1.0 / 6.0;
+        let (bf, tw, tf, t) = (3.4, 0.4, 0.65, 0.1);
+        let at = |avg: f64, web: f64, x: f64| avg + s * ((web + bf) / 2.0 - x);
+        let ch = Shape::Channel {
+            depth: 15.0,
+            flange_width: bf,
+            web_thickness: tw,
+            flange_thickness: tf,
+            flange_slope: s,
+        };
+        let Shape::Channel {
+            web_thickness: tw2,
+            flange_thickness: tf2,
+            ..
+        } = reduce_thickness(0, &ch, t).unwrap()
+        else {
+            panic!()
+        };
+        assert_relative_eq!(tw2, tw - t, max_relative = 1e-12);
+        let drop = t * (1.0 + s * s).sqrt();
+        for x in [tw, bf] {
+            assert_relative_eq!(at(tf, tw, x) - at(tf2, tw2, x), drop, max_relative = 1e-12);
+        }
+        // I-shape: web thinned t/2 per face, flange halves from x = tw/2.
+        let ish = Shape::IShape {
+            depth: 15.0,
+            flange_width: 2.0 * bf,
+            web_thickness: tw,
+            flange_thickness: tf,
+            flange_slope: s,
+        };
+        let Shape::IShape {
+            web_thickness: w2,
+            flange_thickness: f2,
+            ..
+        } = reduce_thickness(0, &ish, t).unwrap()
+        else {
+            panic!()
+        };
+        let at_i = |avg: f64, web: f64, x: f64| avg + s * ((web / 2.0 + bf) / 2.0 - x);
+        for x in [tw / 2.0, bf] {
+            assert_relative_eq!(
+                at_i(tf, tw, x) - at_i(f2, w2, x),
+                drop,
+                max_relative = 1e-12
+            );
+        }
     }
 
     #[test]

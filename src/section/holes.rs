@@ -174,6 +174,7 @@ pub(crate) fn hole_deduction(
                 shape,
                 area_factor,
                 thickness_loss,
+                ..
             } => {
                 let t = match h.thickness {
                     Some(t) if *thickness_loss >= t => {

@@ -29,6 +29,7 @@ pub mod holes;
 pub mod lacing;
 pub mod outline;
 pub mod part;
+pub mod torsion;
 
 pub use builtup::{
     principal_moments, properties, properties_original, properties_with_original,
@@ -48,6 +49,7 @@ pub use part::{
     part_properties, part_properties_indexed, Direction, GivenKind, Orientation, PartProperties,
     PlacedPart, Quadrant, Shape,
 };
+pub use torsion::{torsion, TorsionProperties};
 
 /// Everything that can be wrong with a section description.
 ///

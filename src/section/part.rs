@@ -653,6 +653,10 @@ pub enum Orientation {
 }
 
 impl Orientation {
+    /// The map of [`Orientation::matrix`] for a shape (errors name part 0).
+    pub fn matrix_of(&self, shape: &Shape) -> Result<[[f64; 2]; 2], SectionError> {
+        self.matrix(shape, 0)
+    }
     /// The linear map `[[a, b], [c, d]]` taking reference coordinates to
     /// section coordinates (`x' = a·x + b·y`, `y' = c·x + d·y`).
     pub(crate) fn matrix(&self, shape: &Shape, part: usize) -> Result<[[f64; 2]; 2], SectionError> {
@@ -715,6 +719,10 @@ pub struct PlacedPart {
     pub holes: Vec<Hole>,
     pub loss: Option<Loss>,
     pub label: Option<String>,
+    /// For a plate: the distance between its two lines of fasteners (the
+    /// width of the element between supports of AISC 360-16 Table B4.1a,
+    /// case 7); `None` takes the middle of each part touching it.
+    pub gauge: Option<f64>,
     /// For a [`Shape::Given`] with its width and depth: the kind of rolled
     /// shape it is, so that it can be drawn as that shape (idealised with
     /// one thickness, see [`super::outline::idealised`]). Drawing only.
@@ -746,6 +754,7 @@ impl PlacedPart {
             loss: None,
             label: None,
             drawn_as: None,
+            gauge: None,
         }
     }
     /// The same part, drawn as a `kind` (for table properties with extents).
@@ -766,6 +775,11 @@ impl PlacedPart {
     /// The same part with an inspected loss.
     pub fn with_loss(mut self, loss: Loss) -> PlacedPart {
         self.loss = Some(loss);
+        self
+    }
+    /// The same plate with its lines of fasteners `gauge` apart.
+    pub fn with_gauge(mut self, gauge: f64) -> PlacedPart {
+        self.gauge = Some(gauge);
         self
     }
     /// The same part with a label for reports.
@@ -822,8 +836,25 @@ pub(crate) fn resolve(
     let (geometry, local, factor, missing) = match &condition {
         Condition::Missing => (p.shape.geometry(), original, 0.0, true),
         Condition::Present {
-            shape, area_factor, ..
-        } => (shape.geometry(), shape.local(part)?, *area_factor, false),
+            shape,
+            area_factor,
+            shift: (sx, sy),
+            ..
+        } => {
+            let mut local = shape.local(part)?;
+            local.cx += sx;
+            local.cy += sy;
+            let geometry = match shape.geometry() {
+                Geometry::Polygons(polys) => Geometry::Polygons(
+                    polys
+                        .into_iter()
+                        .map(|poly| poly.into_iter().map(|(x, y)| (x + sx, y + sy)).collect())
+                        .collect(),
+                ),
+                other => other,
+            };
+            (geometry, local, *area_factor, false)
+        }
     };
     let (ix, iy, ixy) = transform_moments(matrix, local.ix, local.iy, local.ixy);
     let [[a, b], [c, d]] = matrix;
