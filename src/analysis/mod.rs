@@ -5,6 +5,7 @@
 pub mod assemble;
 pub mod conditioning;
 pub mod dofs;
+pub mod eigen;
 pub mod results;
 pub mod solve;
 
