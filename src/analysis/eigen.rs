@@ -57,44 +57,68 @@ pub fn smallest_positive(
     b: &DMatrix<f64>,
     count: usize,
 ) -> Result<Vec<EigenPair>, EigenError> {
-    let n = a.nrows();
-    let chol = nalgebra::Cholesky::new(a.clone()).ok_or(EigenError::NotPositiveDefinite)?;
-    let l = chol.l();
-    // X = L⁻¹·B, then C = L⁻¹·Xᵀ = L⁻¹·B·L⁻ᵀ (B symmetric).
-    let x = l
-        .solve_lower_triangular(b)
-        .ok_or(EigenError::NotPositiveDefinite)?;
-    let mut c = l
-        .solve_lower_triangular(&x.transpose())
-        .ok_or(EigenError::NotPositiveDefinite)?;
-    // Symmetrize the round-off.
-    for i in 0..n {
-        for j in 0..i {
-            let m = 0.5 * (c[(i, j)] + c[(j, i)]);
-            c[(i, j)] = m;
-            c[(j, i)] = m;
-        }
+    Reduced::new(a)?.smallest_positive(b, count)
+}
+
+/// A factored A, reused for several B (one stiffness, many load effects).
+pub struct Reduced {
+    a: DMatrix<f64>,
+    l: DMatrix<f64>,
+}
+
+impl Reduced {
+    pub fn new(a: &DMatrix<f64>) -> Result<Reduced, EigenError> {
+        let chol = nalgebra::Cholesky::new(a.clone()).ok_or(EigenError::NotPositiveDefinite)?;
+        Ok(Reduced {
+            a: a.clone(),
+            l: chol.l(),
+        })
     }
-    let eig = nalgebra::SymmetricEigen::new(c);
-    let scale = eig.eigenvalues.iter().fold(0.0f64, |m, v| m.max(v.abs()));
-    let mut order: Vec<usize> = (0..n)
-        .filter(|&i| eig.eigenvalues[i] > 1e-12 * scale)
-        .collect();
-    if order.is_empty() {
-        return Err(EigenError::NoPositive);
-    }
-    order.sort_by(|&i, &j| eig.eigenvalues[j].total_cmp(&eig.eigenvalues[i]));
-    let lt = l.transpose();
-    let mut out = Vec::with_capacity(count.min(order.len()));
-    for &i in order.iter().take(count) {
-        let y = eig.eigenvectors.column(i).into_owned();
-        let phi = lt
-            .solve_upper_triangular(&y)
+
+    /// As [`smallest_positive`], on this A.
+    pub fn smallest_positive(
+        &self,
+        b: &DMatrix<f64>,
+        count: usize,
+    ) -> Result<Vec<EigenPair>, EigenError> {
+        let (a, l) = (&self.a, &self.l);
+        let n = a.nrows();
+        // X = L⁻¹·B, then C = L⁻¹·Xᵀ = L⁻¹·B·L⁻ᵀ (B symmetric).
+        let x = l
+            .solve_lower_triangular(b)
             .ok_or(EigenError::NotPositiveDefinite)?;
-        out.push(pair(a, b, 1.0 / eig.eigenvalues[i], phi));
+        let mut c = l
+            .solve_lower_triangular(&x.transpose())
+            .ok_or(EigenError::NotPositiveDefinite)?;
+        // Symmetrize the round-off.
+        for i in 0..n {
+            for j in 0..i {
+                let m = 0.5 * (c[(i, j)] + c[(j, i)]);
+                c[(i, j)] = m;
+                c[(j, i)] = m;
+            }
+        }
+        let eig = nalgebra::SymmetricEigen::new(c);
+        let scale = eig.eigenvalues.iter().fold(0.0f64, |m, v| m.max(v.abs()));
+        let mut order: Vec<usize> = (0..n)
+            .filter(|&i| eig.eigenvalues[i] > 1e-12 * scale)
+            .collect();
+        if order.is_empty() {
+            return Err(EigenError::NoPositive);
+        }
+        order.sort_by(|&i, &j| eig.eigenvalues[j].total_cmp(&eig.eigenvalues[i]));
+        let lt = l.transpose();
+        let mut out = Vec::with_capacity(count.min(order.len()));
+        for &i in order.iter().take(count) {
+            let y = eig.eigenvectors.column(i).into_owned();
+            let phi = lt
+                .solve_upper_triangular(&y)
+                .ok_or(EigenError::NotPositiveDefinite)?;
+            out.push(pair(a, b, 1.0 / eig.eigenvalues[i], phi));
+        }
+        check(&out)?;
+        Ok(out)
     }
-    check(&out)?;
-    Ok(out)
 }
 
 /// Builds a checked, normalized pair.
