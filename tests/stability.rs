@@ -166,3 +166,93 @@ fn simply_supported_beam_frequencies() {
         assert!((got - expected).abs() / expected < 1e-3, "mode {n}: {got} vs {expected}");
     }
 }
+
+/// A long uniformly compressed chord on closely spaced springs k at
+/// spacing a (a continuous foundation c = k/a): Engesser's
+/// Pcr = 2·√(c·EI) (closed form, Timoshenko & Gere, *Theory of Elastic
+/// Stability*, §2.10, from memory), valid when the half-wave
+/// π·(EI/c)^¼ = 9.9 m is long against a = 1.0 m and short against the
+/// 60 m chord. Within 1 %.
+#[test]
+fn chord_on_elastic_foundation_engesser() {
+    use panelpoint::stability::u_frame::{chord_buckling, Chord};
+    let (ei, c, a, span) = (1.0e7, 1.0e5, 1.0, 60.0);
+    let n = (span / a) as usize;
+    let chord = Chord {
+        lengths: vec![a; n],
+        ei: vec![ei; n],
+        forces: vec![-1.0; n],
+        springs: (0..=n)
+            .map(|i| if i == 0 || i == n { 0.0 } else { c * a })
+            .collect(),
+        masses: vec![0.0; n + 1],
+        parts: 1,
+    };
+    let b = chord_buckling(&chord).unwrap();
+    let expected = 2.0 * (c * ei).sqrt();
+    let got = b.critical_factor.unwrap();
+    assert!((got - expected).abs() / expected < 0.01, "{got} vs {expected}");
+    assert!(b.residual < 1e-6);
+    // Every segment carries the same force, so K = π/a·√(EI/Pcr) for all:
+    // by hand π/1.0·√(1e7/2e6) = 7.025.
+    let (_, k) = b.segments[n / 2].unwrap();
+    assert!((k - PI / a * (ei / got).sqrt()).abs() < 1e-9 && (k - 7.025).abs() < 0.07);
+}
+
+/// The U-frame spring by hand (EN 1993-2 D.2.4 with the connection term):
+/// E = 200 GPa, I_v = 2.0e-5 m⁴, h_v = 0.9 m, h = 1.0 m, I_q = 3.0e-4 m⁴,
+/// b_q = 3.0 m, f_c = 1.0e-7 rad/(N·m):
+/// h_v³/(3EI_v) = 0.729/(3·2e11·2e-5) = 0.729/1.2e7 = 6.075e-8 m/N,
+/// h²·b_q/(2EI_q) = 3.0/(2·2e11·3e-4) = 3.0/1.2e8 = 2.5e-8 m/N,
+/// h²·f_c = 1.0e-7 m/N; δ = 1.8575e-7 m/N, C_d = 1/δ = 5.3836e6 N/m.
+#[test]
+fn u_frame_spring_by_hand() {
+    use panelpoint::stability::u_frame::{spring, UFrameInput};
+    let mut u = UFrameInput {
+        chord: vec![],
+        frames_at: vec![],
+        e: 2.0e11,
+        vertical_i: 2.0e-5,
+        vertical_height: 0.9,
+        height: 1.0,
+        floor_beam_i: 3.0e-4,
+        floor_beam_span: 3.0,
+        connection_flexibility: 1.0e-7,
+        spring: None,
+        use_in_rate: false,
+    };
+    let s = spring(&u);
+    assert!((s.delta_vertical - 6.075e-8).abs() < 1e-12);
+    assert!((s.delta_floor_beam - 2.5e-8).abs() < 1e-12);
+    assert!((s.delta_connection - 1.0e-7).abs() < 1e-15);
+    assert!((s.stiffness - 5.3836e6).abs() < 5e2, "{}", s.stiffness);
+    u.spring = Some(1.0e6);
+    assert_eq!(spring(&u).stiffness, 1.0e6);
+}
+
+/// One intermediate lateral spring at mid-length of a pinned column of
+/// length L: the column buckles between supports, Pcr = π²EI/(L/2)², once
+/// k ≥ 16π²EI/L³ (the ideal brace stiffness, Timoshenko & Gere ch. 2, from memory, and
+/// Winter's 2P/a with a = L/2, from memory); with no spring Pcr = π²EI/L²;
+/// in between it lies between the two.
+#[test]
+fn chord_with_one_spring_ideal_brace() {
+    use panelpoint::stability::u_frame::{chord_buckling, Chord};
+    let (ei, l) = (4.0e6, 8.0f64);
+    let ideal = 16.0 * PI * PI * ei / l.powi(3);
+    let make = |k: f64| Chord {
+        lengths: vec![l / 2.0; 2],
+        ei: vec![ei; 2],
+        forces: vec![-1.0; 2],
+        springs: vec![0.0, k, 0.0],
+        masses: vec![0.0; 3],
+        parts: 4,
+    };
+    let lam = |k: f64| chord_buckling(&make(k)).unwrap().critical_factor.unwrap();
+    let (p1, p2) = (PI * PI * ei / (l * l), 4.0 * PI * PI * ei / (l * l));
+    assert!((lam(0.0) - p1).abs() / p1 < 1e-3);
+    assert!((lam(1.01 * ideal) - p2).abs() / p2 < 1e-3);
+    assert!((lam(10.0 * ideal) - p2).abs() / p2 < 1e-3);
+    let mid = lam(0.5 * ideal);
+    assert!(mid > 1.1 * p1 && mid < 0.99 * p2, "{mid}");
+}

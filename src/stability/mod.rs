@@ -3,8 +3,11 @@
 //! a half-through truss on its U-frames, and natural frequencies for
 //! footbridge use. SI throughout; no I/O, no formats.
 
+pub mod chord;
 pub mod frame;
 pub mod in_plane;
+pub mod u_frame;
+pub mod vibration;
 
 use crate::analysis::eigen::EigenError;
 
@@ -19,6 +22,8 @@ pub struct Settings {
     pub rigid: Vec<usize>,
     /// Beam-column elements per member.
     pub parts: usize,
+    pub u_frame: Option<u_frame::UFrameInput>,
+    pub vibration: Option<vibration::VibrationInput>,
 }
 
 impl Default for Settings {
@@ -26,6 +31,8 @@ impl Default for Settings {
         Settings {
             rigid: Vec::new(),
             parts: DEFAULT_PARTS,
+            u_frame: None,
+            vibration: None,
         }
     }
 }
@@ -36,6 +43,10 @@ pub enum StabilityError {
     Unstable,
     #[error("the plane frame has {dofs} DOFs; the dense eigen-solver takes at most {limit} (use fewer `elements_per_member`)")]
     TooLarge { dofs: usize, limit: usize },
+    #[error("stability.u_frames.chord: no member joins \"{from}\" and \"{to}\"")]
+    ChordGap { from: String, to: String },
+    #[error("the vibration check needs a deck line of two or more nodes (`deck: [...]`)")]
+    NoDeck,
     #[error(transparent)]
     Eigen(#[from] EigenError),
 }
