@@ -325,6 +325,7 @@ mod tests {
             combinations: vec![],
             rating: Default::default(),
             live: Default::default(),
+            stability: Default::default(),
         }
     }
 

@@ -197,6 +197,8 @@ pub struct Model {
     pub rating: RatingSettings,
     /// Deck line, vehicles and moving loads (empty when not given).
     pub live: crate::loads::LiveLoads,
+    /// Rigid joints, U-frames and vibration data (defaults when not given).
+    pub stability: crate::stability::Settings,
 }
 
 /// A named linear combination of load cases: Σ factor × case (live cases

@@ -808,6 +808,7 @@ pub fn convert_deferred(
         .map(|i| degree[i] > 0 || supported[i])
         .collect();
     let live = super::loads::live_loads(&mut ctx, &file, &parts, &node_ids, &carries);
+    let stability = super::stability::convert(&mut ctx, &file.stability, &node_ids, u, &materials);
 
     // Combinations.
     let _ = intern(&mut ctx, "combination", &file.combinations, |c| &c.id);
@@ -978,6 +979,7 @@ pub fn convert_deferred(
         combinations,
         rating,
         live,
+        stability,
     };
     lap.mark("isolated nodes");
     Ok((

@@ -11,6 +11,7 @@ pub mod quantity;
 pub mod ron_writer;
 pub mod schema;
 mod sections;
+pub mod stability;
 pub mod sweep;
 
 pub use convert::Converted;

@@ -49,6 +49,10 @@ pub struct ModelFile {
     /// Load cases whose sum is the dead load reported beside the envelopes.
     #[serde(default)]
     pub dead_cases: Vec<String>,
+    /// Whole-truss stability and vibration (`panelpoint stability`); see
+    /// `input/stability.rs`.
+    #[serde(default)]
+    pub stability: Option<super::stability::StabilityFile>,
 }
 
 /// `(id: "strength", factors: [("deck", 1.25), ("crowd", 1.75)])`.
