@@ -37,6 +37,11 @@ pub enum Error {
         path: PathBuf,
         source: crate::loads::LoadError,
     },
+    #[error("{path}: {source}")]
+    Stability {
+        path: PathBuf,
+        source: crate::stability::StabilityError,
+    },
     #[error("{0}")]
     Usage(String),
 }
@@ -51,6 +56,13 @@ impl Error {
                 _ => 2,
             },
             Error::Write { .. } => 1,
+            Error::Stability { source, .. } => {
+                if source.is_internal() {
+                    1
+                } else {
+                    2
+                }
+            }
             Error::Loads { source, .. } => {
                 if source.is_internal() {
                     1

@@ -221,6 +221,32 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             })?;
             Ok(0)
         }
+        Command::Stability {
+            model,
+            format: f,
+            out,
+        } => {
+            let c = load(&model)?;
+            let m = &c.model;
+            let a = analysis::analyse(m).map_err(|source| Error::Analysis {
+                path: model.clone(),
+                source,
+            })?;
+            let r = crate::stability::run::run(m, &a).map_err(|source| Error::Stability {
+                path: model.clone(),
+                source,
+            })?;
+            let warn = &c.warnings;
+            write(&out, |w| match f {
+                super::args::StabilityFormat::Text => {
+                    report::stability_text::stability(w, m, &r, warn)
+                }
+                super::args::StabilityFormat::Json => {
+                    report::stability_json::stability(w, m, &r, warn)
+                }
+            })?;
+            Ok(0)
+        }
         Command::Influence {
             model,
             members,

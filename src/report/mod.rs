@@ -15,6 +15,8 @@ pub mod rate_rows;
 pub mod rate_text;
 pub mod section_svg;
 pub mod sections;
+pub mod stability_json;
+pub mod stability_text;
 pub mod svg;
 pub mod table;
 pub mod term;

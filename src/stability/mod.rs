@@ -6,6 +6,7 @@
 pub mod chord;
 pub mod frame;
 pub mod in_plane;
+pub mod run;
 pub mod u_frame;
 pub mod vibration;
 
@@ -49,4 +50,14 @@ pub enum StabilityError {
     NoDeck,
     #[error(transparent)]
     Eigen(#[from] EigenError),
+}
+
+impl StabilityError {
+    /// True for our own failure (an inaccurate eigen-solution), not the model's.
+    pub fn is_internal(&self) -> bool {
+        matches!(
+            self,
+            StabilityError::Eigen(EigenError::Residual { .. } | EigenError::Sparse)
+        )
+    }
 }
