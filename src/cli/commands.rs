@@ -206,10 +206,22 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
                 path: model.clone(),
                 source,
             })?;
-            let r = rate::rate(m, &a, chosen).map_err(|e| Error::Rate {
+            // Chord k_out from the U-frames when the model asks (stability/rate_k.rs).
+            let from_u_frames =
+                crate::stability::rate_k::with_u_frame_k(m, &a).map_err(|source| {
+                    Error::Stability {
+                        path: model.clone(),
+                        source,
+                    }
+                })?;
+            let m = from_u_frames.as_ref().map_or(m, |(adjusted, _)| adjusted);
+            let mut r = rate::rate(m, &a, chosen).map_err(|e| Error::Rate {
                 path: model.clone(),
                 source: e,
             })?;
+            if let Some((_, notes)) = &from_u_frames {
+                r.notes.extend(notes.iter().cloned());
+            }
             let warn = &c.warnings;
             if format(f) == Format::Csv {
                 warnings_to_stderr(&model, warn, &a.warnings);
