@@ -256,3 +256,101 @@ fn chord_with_one_spring_ideal_brace() {
     let mid = lam(0.5 * ideal);
     assert!(mid > 1.1 * p1 && mid < 0.99 * p2, "{mid}");
 }
+
+fn demo() -> String {
+    std::fs::read_to_string(concat!(env!("CARGO_MANIFEST_DIR"), "/models/tanners-brook-pony.ron"))
+        .unwrap()
+}
+
+/// The demo through the command line: fixed JSON names, every case and
+/// combination, the caution, and the U-frame spring by hand from the
+/// model's numbers (E = 29,000 ksi, I_v = 24 in⁴, h_v = 78 in, h = 87 in,
+/// I_q = 900 in⁴, b_q = 132 in, f_c = 2e-6 rad/(kip·ft) = 1.6667e-7
+/// rad/(kip·in)): δ = 78³/(3·29000·24) + 87²·132/(2·29000·900) +
+/// 87²·1.6667e-7 = 0.227276 + 0.019140 + 0.001262 = 0.247678 in/kip,
+/// C_d = 4.0375 kip/in = 48.45 kip/ft.
+#[test]
+fn stability_command_json() {
+    let path = common::temp_model("pony.ron", &demo());
+    let out = path.with_extension("json");
+    let (code, stdout, stderr) = common::run(&[
+        "stability",
+        path.to_str().unwrap(),
+        "--format",
+        "json",
+        "-o",
+        out.to_str().unwrap(),
+    ]);
+    assert_eq!(code, 0, "{stderr}");
+    assert!(stdout.is_empty());
+    let v: serde_json::Value = serde_json::from_str(&std::fs::read_to_string(&out).unwrap()).unwrap();
+    assert!(v["caution"].as_str().unwrap().contains("qualified engineer"));
+    let cases: Vec<&str> = v["in_plane"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|e| e["case"].as_str().unwrap())
+        .collect();
+    assert_eq!(cases, ["dead", "crowd", "strength-i"]);
+    for e in v["in_plane"].as_array().unwrap() {
+        assert!(e["critical_factor"].as_f64().unwrap() > 1.0);
+        assert!(e["residual"].as_f64().unwrap() < 1e-6);
+    }
+    let cd = v["u_frame"]["spring"]["stiffness"].as_f64().unwrap();
+    assert!((cd - 48.45).abs() < 0.01, "{cd}");
+    // The factored combination's chord margin is checked against 1.5.
+    let strength = &v["u_frame"]["results"][2];
+    assert_eq!(strength["required"].as_f64(), Some(1.5));
+    assert_eq!(strength["ok"].as_bool(), Some(strength["critical_factor"].as_f64().unwrap() >= 1.5));
+    // Chord members' K from the U-frames: above 1 for this soft frame.
+    for m in strength["members"].as_array().unwrap() {
+        assert!(m["k"].as_f64().unwrap() > 1.0);
+    }
+    let f = v["vibration"]["vertical_frequency"].as_f64().unwrap();
+    assert!(f > 1.0 && f < 20.0, "{f}");
+    assert!(v["vibration"]["deflection"]["value"].as_f64().unwrap() > 0.0);
+}
+
+/// The text report names the clauses beside the numbers.
+#[test]
+fn stability_command_text() {
+    let path = common::temp_model("pony.ron", &demo());
+    let (code, stdout, stderr) = common::run(&["stability", path.to_str().unwrap()]);
+    assert_eq!(code, 0, "{stderr}");
+    for needle in ["qualified engineer", "EN 1993-2", "6.14.2.9", "Pedestrian Bridges", "EN 1990", "span/360"] {
+        assert!(stdout.contains(needle), "missing {needle}:\n{stdout}");
+    }
+}
+
+/// `rate` takes the chord's k_out from the U-frames when the model says
+/// so, and says so; without `use_in_rate` it keeps the user's K.
+#[test]
+fn rate_uses_u_frame_k_when_asked() {
+    let path = common::temp_model("pony.ron", &demo());
+    let (code, stdout, stderr) = common::run(&["rate", path.to_str().unwrap()]);
+    assert_eq!(code, 0, "{stderr}");
+    assert!(stdout.contains("from its U-frames"), "{stdout}");
+    assert!(stdout.contains("member \"U2-U3\": k_out"));
+    let off = demo().replace("use_in_rate: true", "use_in_rate: false");
+    let path = common::temp_model("pony.ron", &off);
+    let (code, stdout, _) = common::run(&["rate", path.to_str().unwrap()]);
+    assert_eq!(code, 0);
+    assert!(!stdout.contains("from its U-frames"));
+}
+
+/// Bad stability input: an unknown chord node and a chord gap are named,
+/// exit 2, nothing on standard output.
+#[test]
+fn bad_stability_input_is_named() {
+    let bad = demo().replace("chord: [\"L0\", \"U1\"", "chord: [\"L0\", \"U9\"");
+    let path = common::temp_model("pony.ron", &bad);
+    let (code, stdout, stderr) = common::run(&["stability", path.to_str().unwrap()]);
+    assert_eq!(code, 2);
+    assert!(stdout.is_empty());
+    assert!(stderr.contains("\"U9\""), "{stderr}");
+    let gap = demo().replace("chord: [\"L0\", \"U1\", \"U2\"", "chord: [\"L0\", \"U2\", \"U1\"");
+    let path = common::temp_model("pony.ron", &gap);
+    let (code, _, stderr) = common::run(&["stability", path.to_str().unwrap()]);
+    assert_eq!(code, 2);
+    assert!(stderr.contains("no member joins \"L0\" and \"U2\""), "{stderr}");
+}
