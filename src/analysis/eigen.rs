@@ -75,6 +75,34 @@ impl Reduced {
         })
     }
 
+    /// Every pair of C = L⁻¹·B·L⁻ᵀ: μ = 1/λ (largest first) and the
+    /// A-orthonormal vectors φ = L⁻ᵀ·y as columns (the Ritz step of the
+    /// subspace iteration needs the whole set, negative μ included).
+    pub fn all(&self, b: &DMatrix<f64>) -> Result<(Vec<f64>, DMatrix<f64>), EigenError> {
+        let l = &self.l;
+        let n = l.nrows();
+        let x = l
+            .solve_lower_triangular(b)
+            .ok_or(EigenError::NotPositiveDefinite)?;
+        let c = l
+            .solve_lower_triangular(&x.transpose())
+            .ok_or(EigenError::NotPositiveDefinite)?;
+        let c = (&c + c.transpose()) * 0.5;
+        let eig = nalgebra::SymmetricEigen::new(c);
+        let mut order: Vec<usize> = (0..n).collect();
+        order.sort_by(|&i, &j| eig.eigenvalues[j].total_cmp(&eig.eigenvalues[i]));
+        let lt = l.transpose();
+        let mut phi = DMatrix::zeros(n, n);
+        for (c, &i) in order.iter().enumerate() {
+            let y = eig.eigenvectors.column(i).into_owned();
+            let v = lt
+                .solve_upper_triangular(&y)
+                .ok_or(EigenError::NotPositiveDefinite)?;
+            phi.set_column(c, &v);
+        }
+        Ok((order.iter().map(|&i| eig.eigenvalues[i]).collect(), phi))
+    }
+
     /// As [`smallest_positive`], on this A.
     pub fn smallest_positive(
         &self,

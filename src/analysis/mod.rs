@@ -6,6 +6,7 @@ pub mod assemble;
 pub mod conditioning;
 pub mod dofs;
 pub mod eigen;
+pub mod eigen_sparse;
 pub mod results;
 pub mod solve;
 

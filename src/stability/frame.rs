@@ -59,6 +59,14 @@ pub struct Frame {
     pub masses: Vec<(Dof, f64)>,
 }
 
+/// Which matrix to assemble.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum Matrix {
+    Stiffness,
+    Geometric,
+    Mass(MassKind),
+}
+
 /// How mass is distributed.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
 pub enum MassKind {
@@ -129,34 +137,57 @@ impl Frame {
 
     /// Elastic stiffness K (with the springs).
     pub fn stiffness(&self) -> DMatrix<f64> {
-        let mut k = DMatrix::zeros(self.n_dofs, self.n_dofs);
-        for beam in &self.beams {
-            scatter(&mut k, beam, &local_elastic(beam));
-        }
-        diagonal(&mut k, &self.springs);
-        k
+        self.dense(Matrix::Stiffness)
     }
 
     /// G per the buckling convention K·φ = λ·G·φ: G = −K_g(N), so
     /// compression gives positive G.
     pub fn geometric(&self) -> DMatrix<f64> {
-        let mut g = DMatrix::zeros(self.n_dofs, self.n_dofs);
-        for beam in &self.beams {
-            let mut kg = local_geometric(beam);
-            kg.iter_mut().flatten().for_each(|v| *v = -*v);
-            scatter(&mut g, beam, &kg);
-        }
-        g
+        self.dense(Matrix::Geometric)
     }
 
     /// Mass M (with the point masses).
     pub fn mass(&self, kind: MassKind) -> DMatrix<f64> {
+        self.dense(Matrix::Mass(kind))
+    }
+
+    fn dense(&self, which: Matrix) -> DMatrix<f64> {
         let mut m = DMatrix::zeros(self.n_dofs, self.n_dofs);
-        for beam in &self.beams {
-            scatter(&mut m, beam, &local_mass(beam, kind));
-        }
-        diagonal(&mut m, &self.masses);
+        self.each(which, &mut |i, j, v| m[(i, j)] += v);
         m
+    }
+
+    /// The matrix as (row, column, value) triplets, duplicates not summed
+    /// (both triangles), for the sparse solver.
+    pub fn triplets(&self, which: Matrix) -> Vec<(usize, usize, f64)> {
+        let mut t = Vec::with_capacity(36 * self.beams.len() + self.springs.len());
+        self.each(which, &mut |i, j, v| t.push((i, j, v)));
+        t
+    }
+
+    fn each(&self, which: Matrix, add: &mut dyn FnMut(usize, usize, f64)) {
+        for beam in &self.beams {
+            let local = match which {
+                Matrix::Stiffness => local_elastic(beam),
+                Matrix::Geometric => {
+                    let mut kg = local_geometric(beam);
+                    kg.iter_mut().flatten().for_each(|v| *v = -*v);
+                    kg
+                }
+                Matrix::Mass(kind) => local_mass(beam, kind),
+            };
+            scatter(add, beam, &local);
+        }
+        let point = match which {
+            Matrix::Stiffness => &self.springs,
+            Matrix::Geometric => return,
+            Matrix::Mass(_) => &self.masses,
+        };
+        for &(d, v) in point {
+            if let Some((i, c)) = d {
+                add(i, i, c * c * v);
+            }
+        }
     }
 
     /// Global displacement (u, v) of a node of the frame in a mode.
@@ -192,18 +223,10 @@ pub fn geometric_work(beam: &Beam, phi: &nalgebra::DVector<f64>) -> f64 {
     w
 }
 
-fn diagonal(m: &mut DMatrix<f64>, items: &[(Dof, f64)]) {
-    for &(d, v) in items {
-        if let Some((i, c)) = d {
-            m[(i, i)] += c * c * v;
-        }
-    }
-}
-
 type Local = [[f64; 6]; 6];
 
 /// Rotates a local matrix to global axes and adds it through the DOF map.
-fn scatter(global: &mut DMatrix<f64>, beam: &Beam, local: &Local) {
+fn scatter(add: &mut dyn FnMut(usize, usize, f64), beam: &Beam, local: &Local) {
     let l = beam.length();
     let (c, s) = ((beam.b[0] - beam.a[0]) / l, (beam.b[1] - beam.a[1]) / l);
     // T maps global (u, v, θ) to local: u' = c·u + s·v, v' = −s·u + c·v.
@@ -231,7 +254,7 @@ fn scatter(global: &mut DMatrix<f64>, beam: &Beam, local: &Local) {
                 continue;
             };
             let v: f64 = (0..6).map(|p| t[p][i] * kt[p][j]).sum();
-            global[(gi, gj)] += ci * cj * v;
+            add(gi, gj, ci * cj * v);
         }
     }
 }

@@ -11,9 +11,10 @@
 //! definition from an elastic buckling analysis, e.g. AISC 360-16
 //! Commentary Appendix 7, from memory).
 
-use super::frame::{geometric_work, Frame, FrameNode};
+use super::frame::{geometric_work, Frame, FrameNode, Matrix};
 use super::StabilityError;
-use crate::analysis::eigen::{EigenError, Reduced};
+use crate::analysis::eigen::{EigenError, Reduced, DENSE_LIMIT};
+use crate::analysis::eigen_sparse::SparseSym;
 use crate::model::Model;
 use nalgebra::DVector;
 
@@ -105,6 +106,15 @@ pub struct Buckling {
     pub member_shapes: Vec<Vec<[f64; 2]>>,
 }
 
+/// Which eigen-solver: dense up to [`DENSE_LIMIT`] DOFs, sparse subspace
+/// iteration above (`Auto`), or one of them forced.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum Solver {
+    Auto,
+    Dense,
+    Sparse,
+}
+
 /// λcr and effective lengths for each (id, member forces) effect.
 pub fn buckling(
     model: &Model,
@@ -112,20 +122,43 @@ pub fn buckling(
     parts: usize,
     effects: &[(String, Vec<f64>)],
 ) -> Result<Vec<Buckling>, StabilityError> {
+    buckling_with(model, rigid, parts, effects, Solver::Auto)
+}
+
+/// As [`buckling`], with the solver chosen.
+pub fn buckling_with(
+    model: &Model,
+    rigid: &[bool],
+    parts: usize,
+    effects: &[(String, Vec<f64>)],
+    solver: Solver,
+) -> Result<Vec<Buckling>, StabilityError> {
     let mut f = build(model, rigid, parts);
-    if f.frame.n_dofs > crate::analysis::eigen::DENSE_LIMIT {
-        return Err(StabilityError::TooLarge {
-            dofs: f.frame.n_dofs,
-            limit: crate::analysis::eigen::DENSE_LIMIT,
-        });
-    }
-    let k = f.frame.stiffness();
-    let reduced = Reduced::new(&k).map_err(|_| StabilityError::Unstable)?;
+    let n = f.frame.n_dofs;
+    let sparse = match solver {
+        Solver::Auto => n > DENSE_LIMIT,
+        Solver::Dense => false,
+        Solver::Sparse => true,
+    };
+    let (reduced, k_sparse) = if sparse {
+        let t = f.frame.triplets(Matrix::Stiffness);
+        (None, Some(SparseSym::new(n, t)))
+    } else {
+        let k = f.frame.stiffness();
+        (Some(Reduced::new(&k).map_err(|_| StabilityError::Unstable)?), None)
+    };
     let mut out = Vec::with_capacity(effects.len());
     for (id, forces) in effects {
         f.set_forces(forces);
-        let g = f.frame.geometric();
-        match reduced.smallest_positive(&g, 1) {
+        let pairs = match (&reduced, &k_sparse) {
+            (Some(r), _) => r.smallest_positive(&f.frame.geometric(), 1),
+            (None, Some(k)) => {
+                let g = SparseSym::new(n, f.frame.triplets(Matrix::Geometric));
+                crate::analysis::eigen_sparse::smallest_positive(k, &g, 1)
+            }
+            (None, None) => unreachable!("one solver is prepared"),
+        };
+        match pairs {
             Ok(pairs) => out.push(describe(model, &f, id, forces, &pairs[0])),
             Err(EigenError::NoPositive) => out.push(Buckling {
                 effect: id.clone(),
@@ -135,6 +168,7 @@ pub fn buckling(
                 mode: Vec::new(),
                 member_shapes: Vec::new(),
             }),
+            Err(EigenError::NotPositiveDefinite) => return Err(StabilityError::Unstable),
             Err(e) => return Err(StabilityError::Eigen(e)),
         }
     }

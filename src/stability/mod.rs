@@ -43,8 +43,6 @@ impl Default for Settings {
 pub enum StabilityError {
     #[error("the plane frame of the truss is unstable before loading (a mechanism)")]
     Unstable,
-    #[error("the plane frame has {dofs} DOFs; the dense eigen-solver takes at most {limit} (use fewer `elements_per_member`)")]
-    TooLarge { dofs: usize, limit: usize },
     #[error("stability.u_frames.chord: no member joins \"{from}\" and \"{to}\"")]
     ChordGap { from: String, to: String },
     #[error("the vibration check needs a deck line of two or more nodes (`deck: [...]`)")]
