@@ -394,3 +394,34 @@ fn sparse_subspace_iteration_matches_dense() {
     // Second mode: two half-waves, 4π²EI/L² (closed form), within 0.5 %.
     assert!((p[1].value - 4.0 * euler).abs() / (4.0 * euler) < 5e-3, "{}", p[1].value);
 }
+
+/// The SVG of the mode parses, carries the critical factor of the case
+/// asked for (the same number as the JSON) and the caution; an unknown
+/// case is a usage error (exit 2).
+#[test]
+fn stability_mode_svg() {
+    let path = common::temp_model("pony.ron", &demo());
+    let svg = path.with_extension("svg");
+    let (code, _, stderr) = common::run(&[
+        "stability",
+        path.to_str().unwrap(),
+        "--format",
+        "svg",
+        "--case",
+        "strength-i",
+        "-o",
+        svg.to_str().unwrap(),
+    ]);
+    assert_eq!(code, 0, "{stderr}");
+    let text = std::fs::read_to_string(&svg).unwrap();
+    let doc = roxmltree::Document::parse(&text).unwrap();
+    assert!(doc.descendants().any(|n| n.has_tag_name("polyline")));
+    let (_, json, _) = common::run(&["stability", path.to_str().unwrap(), "--format", "json"]);
+    let v: serde_json::Value = serde_json::from_str(&json).unwrap();
+    let lam = v["in_plane"][2]["critical_factor"].as_f64().unwrap();
+    assert!(text.contains(&format!("= {lam:.3}")), "{lam}");
+    assert!(text.contains("strength-i") && text.contains("qualified engineer"));
+    let (code, _, stderr) = common::run(&["stability", path.to_str().unwrap(), "--format", "svg", "--case", "nope"]);
+    assert_eq!(code, 2);
+    assert!(stderr.contains("\"nope\""));
+}

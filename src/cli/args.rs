@@ -29,6 +29,7 @@ pub enum FormatArg {
 pub enum StabilityFormat {
     Text,
     Json,
+    Svg,
 }
 
 /// What `panelpoint draw` shows.
@@ -77,9 +78,13 @@ pub enum Command {
     /// the compression chord on its U-frames, natural frequencies for footbridges.
     Stability {
         model: PathBuf,
-        /// text or json.
+        /// text, json, or svg (the in-plane buckling mode).
         #[arg(long, value_enum, default_value_t = StabilityFormat::Text)]
         format: StabilityFormat,
+        /// With --format svg: the case or combination whose mode is drawn
+        /// (default: the lowest critical factor).
+        #[arg(long)]
+        case: Option<String>,
         /// Write to this file (atomically) instead of standard output.
         #[arg(short = 'o', long)]
         out: Option<PathBuf>,

@@ -236,6 +236,7 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
         Command::Stability {
             model,
             format: f,
+            case,
             out,
         } => {
             let c = load(&model)?;
@@ -249,12 +250,22 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
                 source,
             })?;
             let warn = &c.warnings;
+            if let Some(id) = &case {
+                if !r.in_plane.iter().any(|e| &e.effect == id) {
+                    return Err(Error::Usage(format!(
+                        "--case \"{id}\": no such load case or combination"
+                    )));
+                }
+            }
             write(&out, |w| match f {
                 super::args::StabilityFormat::Text => {
                     report::stability_text::stability(w, m, &r, warn)
                 }
                 super::args::StabilityFormat::Json => {
                     report::stability_json::stability(w, m, &r, warn)
+                }
+                super::args::StabilityFormat::Svg => {
+                    report::stability_svg::mode_svg(w, m, &r, case.as_deref())
                 }
             })?;
             Ok(0)

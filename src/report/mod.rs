@@ -16,6 +16,7 @@ pub mod rate_text;
 pub mod section_svg;
 pub mod sections;
 pub mod stability_json;
+pub mod stability_svg;
 pub mod stability_text;
 pub mod svg;
 pub mod table;
