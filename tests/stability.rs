@@ -12,7 +12,16 @@ fn column(l: f64, ei: f64, parts: usize, hold_a: [bool; 3], hold_b: [bool; 3]) -
     let mut f = Frame::default();
     let a = f.node(0.0, 0.0, hold_a);
     let b = f.node(l, 0.0, hold_b);
-    f.member(&a, &b, a.dofs[2], b.dofs[2], parts, [1e6 * ei, ei, 0.0], -1.0, 0);
+    f.member(
+        &a,
+        &b,
+        a.dofs[2],
+        b.dofs[2],
+        parts,
+        [1e6 * ei, ei, 0.0],
+        -1.0,
+        0,
+    );
     let p = smallest_positive(&f.stiffness(), &f.geometric(), 1).unwrap();
     assert!(p[0].residual < 1e-8, "residual {}", p[0].residual);
     p[0].value
@@ -37,7 +46,13 @@ fn euler_columns_within_a_tenth_of_a_percent() {
     let cases = [
         ("pinned-pinned", PIN, ROLL, 4, euler(1.0)),
         ("fixed-free", FIXED, FREE, 4, euler(2.0)),
-        ("fixed-pinned", FIXED, ROLL, 6, 4.493_409_457_909_064f64.powi(2) * ei / (l * l)),
+        (
+            "fixed-pinned",
+            FIXED,
+            ROLL,
+            6,
+            4.493_409_457_909_064f64.powi(2) * ei / (l * l),
+        ),
         ("fixed-fixed", FIXED, SLIDE_FIXED, 8, euler(0.5)),
     ];
     for (name, a, b, parts, expected) in cases {
@@ -78,7 +93,16 @@ fn chain_of_bars_on_springs_closed_form() {
         for i in 0..n {
             let (ra, rb) = (f.dof(), f.dof());
             let ei = 1e6 * k * l.powi(3);
-            f.member(&nodes[i], &nodes[i + 1], ra, rb, 1, [1e3 * ei, ei, 0.0], -1.0, i);
+            f.member(
+                &nodes[i],
+                &nodes[i + 1],
+                ra,
+                rb,
+                1,
+                [1e3 * ei, ei, 0.0],
+                -1.0,
+                i,
+            );
         }
         for node in &nodes[1..n] {
             f.springs.push((node.dofs[1], k));
@@ -120,7 +144,11 @@ fn pin_jointed_truss_buckles_at_its_weakest_member() {
             let rel = (got - weakest).abs() / weakest;
             // The joints move a little in the mode; 0.5 % covers that and
             // the 4-element discretization.
-            assert!(rel < 5e-3, "{}: λcr {got} vs weakest member {weakest}", r.effect);
+            assert!(
+                rel < 5e-3,
+                "{}: λcr {got} vs weakest member {weakest}",
+                r.effect
+            );
             assert!(r.residual < 1e-6);
             // The weakest member takes part with K = 1 (to the same 0.5 %).
             assert!(r.members.iter().any(|k| (k.k - 1.0).abs() < 5e-3));
@@ -163,7 +191,10 @@ fn simply_supported_beam_frequencies() {
         let n = (i + 1) as f64;
         let expected = (n * PI / l).powi(2) * (ei / m).sqrt();
         let got = pair.value.sqrt();
-        assert!((got - expected).abs() / expected < 1e-3, "mode {n}: {got} vs {expected}");
+        assert!(
+            (got - expected).abs() / expected < 1e-3,
+            "mode {n}: {got} vs {expected}"
+        );
     }
 }
 
@@ -191,7 +222,10 @@ fn chord_on_elastic_foundation_engesser() {
     let b = chord_buckling(&chord).unwrap();
     let expected = 2.0 * (c * ei).sqrt();
     let got = b.critical_factor.unwrap();
-    assert!((got - expected).abs() / expected < 0.01, "{got} vs {expected}");
+    assert!(
+        (got - expected).abs() / expected < 0.01,
+        "{got} vs {expected}"
+    );
     assert!(b.residual < 1e-6);
     // Every segment carries the same force, so K = π/a·√(EI/Pcr) for all:
     // by hand π/1.0·√(1e7/2e6) = 7.025.
@@ -258,8 +292,11 @@ fn chord_with_one_spring_ideal_brace() {
 }
 
 fn demo() -> String {
-    std::fs::read_to_string(concat!(env!("CARGO_MANIFEST_DIR"), "/models/tanners-brook-pony.ron"))
-        .unwrap()
+    std::fs::read_to_string(concat!(
+        env!("CARGO_MANIFEST_DIR"),
+        "/models/tanners-brook-pony.ron"
+    ))
+    .unwrap()
 }
 
 /// The demo through the command line: fixed JSON names, every case and
@@ -283,8 +320,12 @@ fn stability_command_json() {
     ]);
     assert_eq!(code, 0, "{stderr}");
     assert!(stdout.is_empty());
-    let v: serde_json::Value = serde_json::from_str(&std::fs::read_to_string(&out).unwrap()).unwrap();
-    assert!(v["caution"].as_str().unwrap().contains("qualified engineer"));
+    let v: serde_json::Value =
+        serde_json::from_str(&std::fs::read_to_string(&out).unwrap()).unwrap();
+    assert!(v["caution"]
+        .as_str()
+        .unwrap()
+        .contains("qualified engineer"));
     let cases: Vec<&str> = v["in_plane"]
         .as_array()
         .unwrap()
@@ -301,7 +342,10 @@ fn stability_command_json() {
     // The factored combination's chord margin is checked against 1.5.
     let strength = &v["u_frame"]["results"][2];
     assert_eq!(strength["required"].as_f64(), Some(1.5));
-    assert_eq!(strength["ok"].as_bool(), Some(strength["critical_factor"].as_f64().unwrap() >= 1.5));
+    assert_eq!(
+        strength["ok"].as_bool(),
+        Some(strength["critical_factor"].as_f64().unwrap() >= 1.5)
+    );
     // Chord members' K from the U-frames: above 1 for this soft frame.
     for m in strength["members"].as_array().unwrap() {
         assert!(m["k"].as_f64().unwrap() > 1.0);
@@ -317,7 +361,14 @@ fn stability_command_text() {
     let path = common::temp_model("pony.ron", &demo());
     let (code, stdout, stderr) = common::run(&["stability", path.to_str().unwrap()]);
     assert_eq!(code, 0, "{stderr}");
-    for needle in ["qualified engineer", "EN 1993-2", "6.14.2.9", "Pedestrian Bridges", "EN 1990", "span/360"] {
+    for needle in [
+        "qualified engineer",
+        "EN 1993-2",
+        "6.14.2.9",
+        "Pedestrian Bridges",
+        "EN 1990",
+        "span/360",
+    ] {
         assert!(stdout.contains(needle), "missing {needle}:\n{stdout}");
     }
 }
@@ -348,11 +399,17 @@ fn bad_stability_input_is_named() {
     assert_eq!(code, 2);
     assert!(stdout.is_empty());
     assert!(stderr.contains("\"U9\""), "{stderr}");
-    let gap = demo().replace("chord: [\"L0\", \"U1\", \"U2\"", "chord: [\"L0\", \"U2\", \"U1\"");
+    let gap = demo().replace(
+        "chord: [\"L0\", \"U1\", \"U2\"",
+        "chord: [\"L0\", \"U2\", \"U1\"",
+    );
     let path = common::temp_model("pony.ron", &gap);
     let (code, _, stderr) = common::run(&["stability", path.to_str().unwrap()]);
     assert_eq!(code, 2);
-    assert!(stderr.contains("no member joins \"L0\" and \"U2\""), "{stderr}");
+    assert!(
+        stderr.contains("no member joins \"L0\" and \"U2\""),
+        "{stderr}"
+    );
 }
 
 /// The sparse subspace iteration (on the project's sparse Cholesky) gives
@@ -365,8 +422,11 @@ fn sparse_subspace_iteration_matches_dense() {
     use panelpoint::stability::frame::Matrix;
     use panelpoint::stability::in_plane::{buckling_with, Solver};
     let (m, a) = common::solve(common::FOUR_PANEL);
-    let effects: Vec<(String, Vec<f64>)> =
-        a.cases.iter().map(|c| (c.id.clone(), c.forces.clone())).collect();
+    let effects: Vec<(String, Vec<f64>)> = a
+        .cases
+        .iter()
+        .map(|c| (c.id.clone(), c.forces.clone()))
+        .collect();
     for rigid in [false, true] {
         let r = vec![rigid; m.nodes.len()];
         let d = buckling_with(&m, &r, 4, &effects, Solver::Dense).unwrap();
@@ -374,7 +434,11 @@ fn sparse_subspace_iteration_matches_dense() {
         for (x, y) in d.iter().zip(&s) {
             match (x.critical_factor, y.critical_factor) {
                 (Some(p), Some(q)) => {
-                    assert!((p - q).abs() / p < 1e-8, "{}: dense {p} sparse {q}", x.effect);
+                    assert!(
+                        (p - q).abs() / p < 1e-8,
+                        "{}: dense {p} sparse {q}",
+                        x.effect
+                    );
                     assert!(y.residual < 1e-6);
                 }
                 (p, q) => assert_eq!(p, q),
@@ -385,14 +449,27 @@ fn sparse_subspace_iteration_matches_dense() {
     let mut f = Frame::default();
     let na = f.node(0.0, 0.0, PIN);
     let nb = f.node(l, 0.0, ROLL);
-    f.member(&na, &nb, na.dofs[2], nb.dofs[2], 8, [1e4 * ei, ei, 0.0], -1.0, 0);
+    f.member(
+        &na,
+        &nb,
+        na.dofs[2],
+        nb.dofs[2],
+        8,
+        [1e4 * ei, ei, 0.0],
+        -1.0,
+        0,
+    );
     let k = SparseSym::new(f.n_dofs, f.triplets(Matrix::Stiffness));
     let g = SparseSym::new(f.n_dofs, f.triplets(Matrix::Geometric));
     let p = sparse(&k, &g, 2).unwrap();
     let euler = PI * PI * ei / (l * l);
     assert!((p[0].value - euler).abs() / euler < 1e-3, "{}", p[0].value);
     // Second mode: two half-waves, 4π²EI/L² (closed form), within 0.5 %.
-    assert!((p[1].value - 4.0 * euler).abs() / (4.0 * euler) < 5e-3, "{}", p[1].value);
+    assert!(
+        (p[1].value - 4.0 * euler).abs() / (4.0 * euler) < 5e-3,
+        "{}",
+        p[1].value
+    );
 }
 
 /// The SVG of the mode parses, carries the critical factor of the case
@@ -421,7 +498,14 @@ fn stability_mode_svg() {
     let lam = v["in_plane"][2]["critical_factor"].as_f64().unwrap();
     assert!(text.contains(&format!("= {lam:.3}")), "{lam}");
     assert!(text.contains("strength-i") && text.contains("qualified engineer"));
-    let (code, _, stderr) = common::run(&["stability", path.to_str().unwrap(), "--format", "svg", "--case", "nope"]);
+    let (code, _, stderr) = common::run(&[
+        "stability",
+        path.to_str().unwrap(),
+        "--format",
+        "svg",
+        "--case",
+        "nope",
+    ]);
     assert_eq!(code, 2);
     assert!(stderr.contains("\"nope\""));
 }

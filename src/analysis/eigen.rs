@@ -9,10 +9,8 @@
 //! give the positive λ, largest μ first. Each pair's residual
 //! ‖A·φ − λ·B·φ‖ / ‖A·φ‖ is computed and returned.
 //!
-//! Sparse method (larger models): subspace iteration with the
-//! Rayleigh–Ritz projection on the existing sparse Cholesky factor of A
-//! (`analysis::solve`), A⁻¹·B applied to a block of vectors (Bathe's
-//! subspace iteration, its standard form).
+//! Larger models: `eigen_sparse.rs` (subspace iteration on the sparse
+//! Cholesky of `analysis::solve`), which uses this for its Ritz step.
 
 use nalgebra::{DMatrix, DVector};
 
@@ -26,9 +24,13 @@ pub const DENSE_LIMIT: usize = 3000;
 pub enum EigenError {
     #[error("the stiffness matrix is not positive definite (the structure is a mechanism or unstable before loading)")]
     NotPositiveDefinite,
-    #[error("no positive eigenvalue: the loading causes no instability (no member in compression)")]
+    #[error(
+        "no positive eigenvalue: the loading causes no instability (no member in compression)"
+    )]
     NoPositive,
-    #[error("eigenpair {index}: residual {residual:.1e} exceeds {limit:.0e}; the result is not trusted")]
+    #[error(
+        "eigenpair {index}: residual {residual:.1e} exceeds {limit:.0e}; the result is not trusted"
+    )]
     Residual {
         index: usize,
         residual: f64,
@@ -161,7 +163,12 @@ pub fn pair(a: &DMatrix<f64>, b: &DMatrix<f64>, value: f64, phi: DVector<f64>) -
 }
 
 /// ‖A·φ − λ·B·φ‖₂ / ‖A·φ‖₂.
-pub fn relative_residual(a: &DMatrix<f64>, b: &DMatrix<f64>, value: f64, phi: &DVector<f64>) -> f64 {
+pub fn relative_residual(
+    a: &DMatrix<f64>,
+    b: &DMatrix<f64>,
+    value: f64,
+    phi: &DVector<f64>,
+) -> f64 {
     let aphi = a * phi;
     let r = &aphi - (b * phi) * value;
     let d = aphi.norm();
@@ -175,7 +182,7 @@ pub fn relative_residual(a: &DMatrix<f64>, b: &DMatrix<f64>, value: f64, phi: &D
 /// Refuses a set whose residuals exceed [`EIGEN_RESIDUAL_LIMIT`].
 pub fn check(pairs: &[EigenPair]) -> Result<(), EigenError> {
     for (index, p) in pairs.iter().enumerate() {
-        if !(p.residual <= EIGEN_RESIDUAL_LIMIT) {
+        if p.residual.is_nan() || p.residual > EIGEN_RESIDUAL_LIMIT {
             return Err(EigenError::Residual {
                 index: index + 1,
                 residual: p.residual,

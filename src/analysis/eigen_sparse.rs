@@ -146,10 +146,9 @@ pub fn smallest_positive(
             return Err(EigenError::NoPositive);
         }
         let converged = values
-
-                .iter()
-                .zip(&previous)
-                .all(|(v, p)| ((v - p) / v).abs() < 1e-10);
+            .iter()
+            .zip(&previous)
+            .all(|(v, p)| ((v - p) / v).abs() < 1e-10);
         previous = values.clone();
         if converged {
             let mut out = Vec::with_capacity(values.len());

@@ -172,8 +172,18 @@ fn u_frames(
         Some(q) => pos(ctx, q, Dimension::Length, "vertical_height"),
         None => height,
     };
-    let floor_beam_i = pos(ctx, &u.floor_beam_i, Dimension::SecondMoment, "floor_beam_i");
-    let floor_beam_span = pos(ctx, &u.floor_beam_span, Dimension::Length, "floor_beam_span");
+    let floor_beam_i = pos(
+        ctx,
+        &u.floor_beam_i,
+        Dimension::SecondMoment,
+        "floor_beam_i",
+    );
+    let floor_beam_span = pos(
+        ctx,
+        &u.floor_beam_span,
+        Dimension::Length,
+        "floor_beam_span",
+    );
     let spring = u
         .spring
         .as_ref()
@@ -204,15 +214,39 @@ fn u_frames(
 
 fn vibration(ctx: &mut Ctx, v: &VibrationFile, units: &DisplayUnits) -> Option<VibrationInput> {
     let what = |f: &str| format!("stability.vibration.{f}");
-    let deck_weight = value(ctx, &v.deck_weight, Dimension::ForcePerLength, units, &what("deck_weight"), None);
-    let width = positive(ctx, &v.tributary_width, Dimension::Length, units, &what("tributary_width"), None);
+    let deck_weight = value(
+        ctx,
+        &v.deck_weight,
+        Dimension::ForcePerLength,
+        units,
+        &what("deck_weight"),
+        None,
+    );
+    let width = positive(
+        ctx,
+        &v.tributary_width,
+        Dimension::Length,
+        units,
+        &what("tributary_width"),
+        None,
+    );
     let load = match &v.pedestrian_load {
-        Some(q) => positive(ctx, q, Dimension::Stress, units, &what("pedestrian_load"), None),
+        Some(q) => positive(
+            ctx,
+            q,
+            Dimension::Stress,
+            units,
+            &what("pedestrian_load"),
+            None,
+        ),
         None => Some(PEDESTRIAN_LOAD),
     };
     let live_share = v.live_share.unwrap_or(0.0);
     if !(0.0..=1.0).contains(&live_share) {
-        ctx.error(format!("{} must be 0 to 1, not {live_share}", what("live_share")), None);
+        ctx.error(
+            format!("{} must be 0 to 1, not {live_share}", what("live_share")),
+            None,
+        );
     }
     let trusses = v.trusses.unwrap_or(2.0);
     let ratio = v.deflection_ratio.unwrap_or(360.0);
@@ -223,7 +257,10 @@ fn vibration(ctx: &mut Ctx, v: &VibrationFile, units: &DisplayUnits) -> Option<V
     }
     let deck_weight = deck_weight?;
     if deck_weight < 0.0 {
-        ctx.error(format!("{} must not be negative", what("deck_weight")), None);
+        ctx.error(
+            format!("{} must not be negative", what("deck_weight")),
+            None,
+        );
     }
     Some(VibrationInput {
         deck_weight,

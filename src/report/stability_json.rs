@@ -22,7 +22,8 @@ pub const AASHTO_CLAUSE: &str =
     "AASHTO LRFD 6.14.2.9 (from memory): lateral force 0.30 kip/ft at the top-chord panel points; chord critical force >= 1.5 x factored force";
 pub const GUIDE: &str = "AASHTO LRFD Guide Specifications for the Design of Pedestrian Bridges (2009), 6 and 5 (from memory)";
 pub const EN1990: &str = "EN 1990:2002/A1:2005 Annex A2, A2.4.3.2(2) (from memory)";
-pub const RANGES: &str = "footbridge guidance (Setra 2006, HiVoSS 2008) resonance-risk ranges (from memory)";
+pub const RANGES: &str =
+    "footbridge guidance (Setra 2006, HiVoSS 2008) resonance-risk ranges (from memory)";
 
 pub fn stability(
     w: &mut dyn Write,
@@ -116,8 +117,11 @@ fn u_frame(model: &Model, s: &Scale, u: &UFrameReport) -> Value {
     })
 }
 
+/// One footbridge limit: (check, source, value in Hz, limit text, passes).
+pub type Criterion = (String, &'static str, Option<f64>, String, Option<bool>);
+
 /// Pass/fail entries of the footbridge limits.
-pub fn criteria(v: &Vibration, lateral: Option<f64>) -> Vec<(String, &'static str, Option<f64>, String, Option<bool>)> {
+pub fn criteria(v: &Vibration, lateral: Option<f64>) -> Vec<Criterion> {
     let fv = v.vertical.map(|i| v.modes[i].frequency);
     let mut out = Vec::new();
     let min = 3.0f64.min(v.weight_based_minimum.max(0.0));
@@ -125,19 +129,56 @@ pub fn criteria(v: &Vibration, lateral: Option<f64>) -> Vec<(String, &'static st
         "vertical frequency >= 3.0 Hz, or >= 2.86 ln(180/W)".to_string(),
         GUIDE,
         fv,
-        format!(">= {:.2} Hz (3.0; weight-based {:.2})", min, v.weight_based_minimum),
+        format!(
+            ">= {:.2} Hz (3.0; weight-based {:.2})",
+            min, v.weight_based_minimum
+        ),
         fv.map(|f| f >= min),
     ));
-    out.push(("lateral frequency >= 1.3 Hz".into(), GUIDE, lateral, ">= 1.3 Hz".into(), lateral.map(|f| f >= 1.3)));
-    out.push(("vertical frequency: comfort check needed below 5 Hz".into(), EN1990, fv, ">= 5 Hz (else verify accelerations)".into(), fv.map(|f| f >= 5.0)));
-    out.push(("lateral frequency: comfort check needed below 2.5 Hz".into(), EN1990, lateral, ">= 2.5 Hz (else verify accelerations)".into(), lateral.map(|f| f >= 2.5)));
-    out.push(("vertical frequency outside 1.25-4.6 Hz".into(), RANGES, fv, "outside 1.25-4.6 Hz".into(), fv.map(|f| !(1.25..=4.6).contains(&f))));
-    out.push(("lateral frequency outside 0.5-1.2 Hz".into(), RANGES, lateral, "outside 0.5-1.2 Hz".into(), lateral.map(|f| !(0.5..=1.2).contains(&f))));
+    out.push((
+        "lateral frequency >= 1.3 Hz".into(),
+        GUIDE,
+        lateral,
+        ">= 1.3 Hz".into(),
+        lateral.map(|f| f >= 1.3),
+    ));
+    out.push((
+        "vertical frequency: comfort check needed below 5 Hz".into(),
+        EN1990,
+        fv,
+        ">= 5 Hz (else verify accelerations)".into(),
+        fv.map(|f| f >= 5.0),
+    ));
+    out.push((
+        "lateral frequency: comfort check needed below 2.5 Hz".into(),
+        EN1990,
+        lateral,
+        ">= 2.5 Hz (else verify accelerations)".into(),
+        lateral.map(|f| f >= 2.5),
+    ));
+    out.push((
+        "vertical frequency outside 1.25-4.6 Hz".into(),
+        RANGES,
+        fv,
+        "outside 1.25-4.6 Hz".into(),
+        fv.map(|f| !(1.25..=4.6).contains(&f)),
+    ));
+    out.push((
+        "lateral frequency outside 0.5-1.2 Hz".into(),
+        RANGES,
+        lateral,
+        "outside 0.5-1.2 Hz".into(),
+        lateral.map(|f| !(0.5..=1.2).contains(&f)),
+    ));
     out
 }
 
 fn vibration(model: &Model, s: &Scale, v: &Vibration, r: &StabilityReport) -> Value {
-    let lateral = r.u_frame.as_ref().and_then(|u| u.lateral_frequency).map(|p| p.0);
+    let lateral = r
+        .u_frame
+        .as_ref()
+        .and_then(|u| u.lateral_frequency)
+        .map(|p| p.0);
     let input = model.stability.vibration.as_ref();
     let ratio = input.map_or(360.0, |i| i.deflection_ratio);
     let limit = v.span / ratio;

@@ -16,18 +16,30 @@ pub fn chosen<'a>(
 ) -> Option<&'a crate::stability::in_plane::Buckling> {
     let all = r.in_plane.iter().filter_map(|e| e.buckling.as_ref());
     match case {
-        Some(id) => all.into_iter().find(|b| b.effect == id && b.critical_factor.is_some()),
-        None => all
-            .filter(|b| b.critical_factor.is_some())
-            .min_by(|a, b| a.critical_factor.unwrap().total_cmp(&b.critical_factor.unwrap())),
+        Some(id) => all
+            .into_iter()
+            .find(|b| b.effect == id && b.critical_factor.is_some()),
+        None => all.filter(|b| b.critical_factor.is_some()).min_by(|a, b| {
+            a.critical_factor
+                .unwrap()
+                .total_cmp(&b.critical_factor.unwrap())
+        }),
     }
 }
 
 fn esc(s: &str) -> String {
-    s.replace('&', "&amp;").replace('<', "&lt;").replace('>', "&gt;").replace('"', "&quot;")
+    s.replace('&', "&amp;")
+        .replace('<', "&lt;")
+        .replace('>', "&gt;")
+        .replace('"', "&quot;")
 }
 
-pub fn mode_svg(w: &mut dyn Write, model: &Model, r: &StabilityReport, case: Option<&str>) -> io::Result<()> {
+pub fn mode_svg(
+    w: &mut dyn Write,
+    model: &Model,
+    r: &StabilityReport,
+    case: Option<&str>,
+) -> io::Result<()> {
     let (mut x0, mut x1, mut y0, mut y1) = (f64::MAX, f64::MIN, f64::MAX, f64::MIN);
     for n in &model.nodes {
         x0 = x0.min(n.x);

@@ -24,8 +24,17 @@ pub fn stability(
     for d in warnings {
         writeln!(w, "warning: {d}")?;
     }
-    writeln!(w, "\nIn-plane elastic buckling (K phi = lambda G phi; {K_FORMULA})")?;
-    let mut t = Table::new(&["case", "kind", "lambda_cr", "residual", "members in the mode (K)"]);
+    writeln!(
+        w,
+        "\nIn-plane elastic buckling (K phi = lambda G phi; {K_FORMULA})"
+    )?;
+    let mut t = Table::new(&[
+        "case",
+        "kind",
+        "lambda_cr",
+        "residual",
+        "members in the mode (K)",
+    ]);
     for e in &r.in_plane {
         let kind = if e.combination { "combination" } else { "case" };
         let (lam, res, members) = match &e.buckling {
@@ -54,8 +63,15 @@ pub fn stability(
         u_frame(w, model, &s, u)?;
     }
     if let Some(v) = &r.vibration {
-        let lateral = r.u_frame.as_ref().and_then(|u| u.lateral_frequency).map(|p| p.0);
-        writeln!(w, "\nNatural frequencies (in-plane, pin-jointed truss, lumped masses)")?;
+        let lateral = r
+            .u_frame
+            .as_ref()
+            .and_then(|u| u.lateral_frequency)
+            .map(|p| p.0);
+        writeln!(
+            w,
+            "\nNatural frequencies (in-plane, pin-jointed truss, lumped masses)"
+        )?;
         let mut t = Table::new(&["mode", "f (Hz)", "vertical share", "residual"]);
         for (i, m) in v.modes.iter().enumerate() {
             t.row(vec![
@@ -84,7 +100,11 @@ pub fn stability(
             ]);
         }
         write!(w, "{}", t.render())?;
-        let ratio = model.stability.vibration.as_ref().map_or(360.0, |i| i.deflection_ratio);
+        let ratio = model
+            .stability
+            .vibration
+            .as_ref()
+            .map_or(360.0, |i| i.deflection_ratio);
         let limit = v.span / ratio;
         writeln!(
             w,
@@ -114,7 +134,11 @@ fn u_frame(w: &mut dyn Write, model: &Model, s: &Scale, u: &UFrameReport) -> io:
         sig(u.spring.stiffness / per_len, 4),
         s.force_name,
         s.length_name,
-        if u.spring.given { "given in the model" } else { SPRING_FORMULA },
+        if u.spring.given {
+            "given in the model"
+        } else {
+            SPRING_FORMULA
+        },
         SPRING_CLAUSE
     )?;
     if !u.spring.given {
@@ -128,7 +152,13 @@ fn u_frame(w: &mut dyn Write, model: &Model, s: &Scale, u: &UFrameReport) -> io:
             s.force_name
         )?;
     }
-    let mut t = Table::new(&["case", "lambda_cr", "required", "ok", "chord members: K (K L)"]);
+    let mut t = Table::new(&[
+        "case",
+        "lambda_cr",
+        "required",
+        "ok",
+        "chord members: K (K L)",
+    ]);
     for c in &u.results {
         let members = u
             .members
@@ -139,16 +169,29 @@ fn u_frame(w: &mut dyn Write, model: &Model, s: &Scale, u: &UFrameReport) -> io:
                     let mem = &model.members[m];
                     let (a, b) = (&model.nodes[mem.start], &model.nodes[mem.end]);
                     let l = (b.x - a.x).hypot(b.y - a.y);
-                    format!("{} {} ({} {})", mem.id, sig(k, 3), sig(k * l / s.length, 3), s.length_name)
+                    format!(
+                        "{} {} ({} {})",
+                        mem.id,
+                        sig(k, 3),
+                        sig(k * l / s.length, 3),
+                        s.length_name
+                    )
                 })
             })
             .collect::<Vec<_>>()
             .join(", ");
         t.row(vec![
             c.effect.clone(),
-            c.buckling.critical_factor.map_or("none".into(), |l| sig(l, 4)),
-            if c.combination { format!("{AASHTO_MARGIN}") } else { "-".into() },
-            c.margin_ok.map_or("-".into(), |o| if o { "yes".into() } else { "NO".into() }),
+            c.buckling
+                .critical_factor
+                .map_or("none".into(), |l| sig(l, 4)),
+            if c.combination {
+                format!("{AASHTO_MARGIN}")
+            } else {
+                "-".into()
+            },
+            c.margin_ok
+                .map_or("-".into(), |o| if o { "yes".into() } else { "NO".into() }),
             members,
         ]);
     }
@@ -159,7 +202,12 @@ fn u_frame(w: &mut dyn Write, model: &Model, s: &Scale, u: &UFrameReport) -> io:
         t.row(vec![
             model.nodes[n].id.clone(),
             format!("{} {}", sig(h / s.force, 3), s.force_name),
-            format!("{} {}-{}", sig(m / (s.force * s.length), 3), s.force_name, s.length_name),
+            format!(
+                "{} {}-{}",
+                sig(m / (s.force * s.length), 3),
+                s.force_name,
+                s.length_name
+            ),
             format!("{} {}", sig(d / s.disp, 3), s.disp_name),
         ]);
     }
@@ -172,7 +220,11 @@ fn u_frame(w: &mut dyn Write, model: &Model, s: &Scale, u: &UFrameReport) -> io:
         s.length_name
     )?;
     if let Some((f, res)) = u.lateral_frequency {
-        writeln!(w, "Lateral frequency of the chord on its U-frames: {} Hz (residual {res:.1e})", sig(f, 3))?;
+        writeln!(
+            w,
+            "Lateral frequency of the chord on its U-frames: {} Hz (residual {res:.1e})",
+            sig(f, 3)
+        )?;
     }
     Ok(())
 }

@@ -199,6 +199,7 @@ impl Frame {
 
 /// φ_eᵀ·(−K_g)·φ_e of one element: its share of φᵀ·G·φ (the work of its
 /// axial force in the mode; positive in compression).
+#[allow(clippy::needless_range_loop)]
 pub fn geometric_work(beam: &Beam, phi: &nalgebra::DVector<f64>) -> f64 {
     let l = beam.length();
     let (c, s) = ((beam.b[0] - beam.a[0]) / l, (beam.b[1] - beam.a[1]) / l);
@@ -226,6 +227,7 @@ pub fn geometric_work(beam: &Beam, phi: &nalgebra::DVector<f64>) -> f64 {
 type Local = [[f64; 6]; 6];
 
 /// Rotates a local matrix to global axes and adds it through the DOF map.
+#[allow(clippy::needless_range_loop)] // index form mirrors Tᵀ·k·T
 fn scatter(add: &mut dyn FnMut(usize, usize, f64), beam: &Beam, local: &Local) {
     let l = beam.length();
     let (c, s) = ((beam.b[0] - beam.a[0]) / l, (beam.b[1] - beam.a[1]) / l);
@@ -260,6 +262,7 @@ fn scatter(add: &mut dyn FnMut(usize, usize, f64), beam: &Beam, local: &Local) {
 }
 
 /// Local bending pattern [v₁, θ₁, v₂, θ₂] placed in a 6×6 matrix.
+#[allow(clippy::needless_range_loop)]
 fn bending(into: &mut Local, f: f64, m: [[f64; 4]; 4]) {
     let map = [1, 2, 4, 5];
     for i in 0..4 {

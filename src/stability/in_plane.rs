@@ -53,7 +53,11 @@ pub fn build(model: &Model, rigid: &[bool], parts: usize) -> InPlaneFrame {
     let mut members = Vec::with_capacity(model.members.len());
     for (mi, m) in model.members.iter().enumerate() {
         let (a, b) = (nodes[m.start], nodes[m.end]);
-        let rot_a = if rigid[m.start] { a.dofs[2] } else { frame.dof() };
+        let rot_a = if rigid[m.start] {
+            a.dofs[2]
+        } else {
+            frame.dof()
+        };
         let rot_b = if rigid[m.end] { b.dofs[2] } else { frame.dof() };
         let sec = &model.sections[m.section];
         let mat = &model.materials[m.material];
@@ -145,7 +149,10 @@ pub fn buckling_with(
         (None, Some(SparseSym::new(n, t)))
     } else {
         let k = f.frame.stiffness();
-        (Some(Reduced::new(&k).map_err(|_| StabilityError::Unstable)?), None)
+        (
+            Some(Reduced::new(&k).map_err(|_| StabilityError::Unstable)?),
+            None,
+        )
     };
     let mut out = Vec::with_capacity(effects.len());
     for (id, forces) in effects {
@@ -198,7 +205,11 @@ fn describe(
     let mut members = Vec::new();
     for (mi, m) in model.members.iter().enumerate() {
         let n = forces[mi];
-        let share = if biggest > 0.0 { work[mi] / biggest } else { 0.0 };
+        let share = if biggest > 0.0 {
+            work[mi] / biggest
+        } else {
+            0.0
+        };
         if n < 0.0 && share >= PARTICIPATION {
             let ei = model.materials[m.material].e * model.sections[m.section].i_in;
             let l = (model.nodes[m.end].x - model.nodes[m.start].x)

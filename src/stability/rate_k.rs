@@ -51,7 +51,11 @@ pub fn with_u_frame_k(
                 mem.id,
                 used,
                 mem.k_out,
-                if mem.unbraced_out.is_some() { ", with its unbraced_out" } else { "" }
+                if mem.unbraced_out.is_some() {
+                    ", with its unbraced_out"
+                } else {
+                    ""
+                }
             ));
             mem.k_out = used;
             mem.unbraced_out = None;

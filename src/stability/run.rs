@@ -85,10 +85,7 @@ pub fn run(model: &Model, analysis: &Analysis) -> Result<StabilityReport, Stabil
         Some(v) => Some(super::vibration::vibration(model, v, 6)?),
         None => None,
     };
-    if model
-        .materials
-        .iter()
-        .any(|m| m.density.is_none())
+    if model.materials.iter().any(|m| m.density.is_none())
         && (u_frame.is_some() || vibration.is_some())
     {
         notes.push("A material gives no density: steel, 490 lb/ft³ (77.0 kN/m³), is assumed for masses (common practice).".into());

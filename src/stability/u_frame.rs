@@ -30,7 +30,7 @@ use crate::analysis::eigen::{smallest_positive, EigenError};
 /// AASHTO LRFD Bridge Design Specifications (9th ed., 2020) 6.14.2.9, from
 /// memory: lateral force at each top-chord panel point, per length of
 /// span, on the verticals, floor beams and their connections: 0.30 kip/ft.
-pub const AASHTO_LATERAL_FORCE: f64 = 0.30 * 4448.221_615_260_5 / 0.3048;
+pub const AASHTO_LATERAL_FORCE: f64 = 0.30 * 4_448.221_615_260_5 / 0.3048;
 
 /// AASHTO LRFD 6.14.2.9, from memory: the chord's critical buckling force
 /// as a column on elastic lateral supports shall exceed the greatest
@@ -139,7 +139,16 @@ fn frame(c: &Chord) -> (Frame, Vec<FrameNode>) {
     for i in 0..n {
         let (a, b) = (nodes[i], nodes[i + 1]);
         let ea = c.ei[i] / (c.lengths[i] * c.lengths[i]);
-        f.member(&a, &b, a.dofs[2], b.dofs[2], c.parts, [ea, c.ei[i], 0.0], c.forces[i], i);
+        f.member(
+            &a,
+            &b,
+            a.dofs[2],
+            b.dofs[2],
+            c.parts,
+            [ea, c.ei[i], 0.0],
+            c.forces[i],
+            i,
+        );
     }
     for (node, &k) in nodes.iter().zip(&c.springs) {
         if k > 0.0 {
@@ -171,7 +180,10 @@ pub fn chord_buckling(c: &Chord) -> Result<ChordBuckling, StabilityError> {
         .map(|i| {
             (c.forces[i] < 0.0).then(|| {
                 let pcr = lambda * c.forces[i].abs();
-                (pcr, std::f64::consts::PI / c.lengths[i] * (c.ei[i] / pcr).sqrt())
+                (
+                    pcr,
+                    std::f64::consts::PI / c.lengths[i] * (c.ei[i] / pcr).sqrt(),
+                )
             })
         })
         .collect();

@@ -27,7 +27,7 @@ use crate::model::Model;
 
 /// Pedestrian load of the guide specification, 90 psf in Pa (from memory).
 pub const PEDESTRIAN_LOAD: f64 = 90.0 * 4.448_221_615_260_5 / (0.3048 * 0.3048);
-pub const KIP: f64 = 4448.221_615_260_5;
+pub const KIP: f64 = 4_448.221_615_260_5;
 
 /// What the model's `vibration` section gives (SI, validated).
 #[derive(Clone, Debug, PartialEq)]
@@ -101,14 +101,22 @@ fn deck_tributary(model: &Model) -> Vec<(usize, f64)> {
         .map(|i| {
             let x = |k: usize| model.nodes[d[k]].x;
             let left = if i > 0 { (x(i) - x(i - 1)).abs() } else { 0.0 };
-            let right = if i + 1 < d.len() { (x(i + 1) - x(i)).abs() } else { 0.0 };
+            let right = if i + 1 < d.len() {
+                (x(i + 1) - x(i)).abs()
+            } else {
+                0.0
+            };
             (d[i], (left + right) / 2.0)
         })
         .collect()
 }
 
 /// The lowest `count` in-plane modes and the footbridge figures.
-pub fn vibration(model: &Model, v: &VibrationInput, count: usize) -> Result<Vibration, StabilityError> {
+pub fn vibration(
+    model: &Model,
+    v: &VibrationInput,
+    count: usize,
+) -> Result<Vibration, StabilityError> {
     if model.live.deck.len() < 2 {
         return Err(StabilityError::NoDeck);
     }
@@ -127,8 +135,11 @@ pub fn vibration(model: &Model, v: &VibrationInput, count: usize) -> Result<Vibr
     let modes: Vec<Mode> = pairs
         .iter()
         .map(|p| {
-            let shape: Vec<[f64; 2]> =
-                f.nodes.iter().map(|n| Frame::translation(&n.dofs, &p.vector)).collect();
+            let shape: Vec<[f64; 2]> = f
+                .nodes
+                .iter()
+                .map(|n| Frame::translation(&n.dofs, &p.vector))
+                .collect();
             let (mut ev, mut et) = (0.0, 0.0);
             for (s, &mi) in shape.iter().zip(&masses) {
                 ev += mi * s[1] * s[1];
