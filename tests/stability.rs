@@ -509,3 +509,49 @@ fn stability_mode_svg() {
     assert_eq!(code, 2);
     assert!(stderr.contains("\"nope\""));
 }
+
+/// Rayleigh's method (any structural-dynamics text): with the static
+/// deflection (u, v) under the masses' own weights as the trial shape,
+/// ω² ≈ g·Σm·|v| / Σm·(u² + v²) is an upper bound of the fundamental ω² and,
+/// for a simply supported truss, close to it. The demo's lowest vertical
+/// frequency must lie at or below Rayleigh's value and within 3 % of it.
+#[test]
+fn vertical_frequency_agrees_with_rayleigh() {
+    use panelpoint::model::{CaseKind, LoadCase, NodalLoad};
+    use panelpoint::stability::vibration::{node_masses, vibration};
+    let m = common::load(&demo());
+    let v = m.stability.vibration.clone().unwrap();
+    let res = vibration(&m, &v, 4).unwrap();
+    let f = res.modes[res.vertical.unwrap()].frequency;
+    let (masses, _) = node_masses(&m, &v);
+    let g = panelpoint::stability::chord::G;
+    let mut mm = m.clone();
+    mm.combinations.clear();
+    mm.cases = vec![LoadCase {
+        id: "weight".into(),
+        kind: CaseKind::Dead,
+        nodal: masses
+            .iter()
+            .enumerate()
+            .map(|(node, &mi)| NodalLoad {
+                node,
+                fx: 0.0,
+                fy: -mi * g,
+            })
+            .collect(),
+        ..Default::default()
+    }];
+    let a = panelpoint::analysis::analyse(&mm).unwrap();
+    let d = &a.cases[0].displacements;
+    let (mut num, mut den) = (0.0, 0.0);
+    for (i, &mi) in masses.iter().enumerate() {
+        num += mi * g * d[i][1].abs();
+        den += mi * (d[i][0].powi(2) + d[i][1].powi(2));
+    }
+    let rayleigh = (num / den).sqrt() / (2.0 * PI);
+    assert!(
+        f <= rayleigh * (1.0 + 1e-9),
+        "{f} above Rayleigh's {rayleigh}"
+    );
+    assert!((rayleigh - f) / f < 0.03, "{f} vs Rayleigh {rayleigh}");
+}
