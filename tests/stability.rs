@@ -555,3 +555,27 @@ fn vertical_frequency_agrees_with_rayleigh() {
     );
     assert!((rayleigh - f) / f < 0.03, "{f} vs Rayleigh {rayleigh}");
 }
+
+/// A temperature change on a statically determinate truss causes no
+/// member force (statics, by hand: the truss is free to expand), so its
+/// round-off forces must give no critical factor, while the dead load
+/// does.
+#[test]
+fn round_off_forces_give_no_critical_factor() {
+    let text = std::fs::read_to_string(concat!(
+        env!("CARGO_MANIFEST_DIR"),
+        "/models/four_panel_live.ron"
+    ))
+    .unwrap();
+    let (m, a) = common::solve(&text);
+    let r = panelpoint::stability::run::run(&m, &a).unwrap();
+    let get = |id: &str| {
+        r.in_plane
+            .iter()
+            .find(|e| e.effect == id)
+            .and_then(|e| e.buckling.as_ref())
+            .and_then(|b| b.critical_factor)
+    };
+    assert_eq!(get("warm"), None);
+    assert!(get("dead").unwrap() > 1.0);
+}

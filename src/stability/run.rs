@@ -27,12 +27,29 @@ pub struct StabilityReport {
     pub notes: Vec<String>,
 }
 
+/// Forces below this fraction of the largest force scale of any case are
+/// round-off (e.g. a temperature change on a statically determinate truss)
+/// and are taken as zero, so they cannot produce a meaningless λcr.
+pub const ROUND_OFF: f64 = 1e-9;
+
 /// (id, is-combination, member forces) of every case and every
-/// combination without a moving load (as `rate` builds them).
+/// combination without a moving load (as `rate` builds them), round-off
+/// forces zeroed.
 pub fn effects(model: &Model, analysis: &Analysis) -> Vec<(String, bool, Vec<f64>)> {
+    let scale = analysis
+        .cases
+        .iter()
+        .fold(0.0f64, |m, c| m.max(c.force_scale));
     crate::rate::load_effects(model, analysis)
         .into_iter()
-        .map(|e| (e.id, e.case.is_none(), e.forces))
+        .map(|e| {
+            let forces = e
+                .forces
+                .iter()
+                .map(|&n| if n.abs() < ROUND_OFF * scale { 0.0 } else { n })
+                .collect();
+            (e.id, e.case.is_none(), forces)
+        })
         .collect()
 }
 
