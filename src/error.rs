@@ -37,6 +37,11 @@ pub enum Error {
         path: PathBuf,
         source: crate::loads::LoadError,
     },
+    #[error("{path}: {source}")]
+    Stability {
+        path: PathBuf,
+        source: crate::stability::StabilityError,
+    },
     #[error("{0}")]
     Usage(String),
 }
@@ -57,6 +62,13 @@ impl Error {
                     2
                 } else {
                     1
+                }
+            }
+            Error::Stability { source, .. } => {
+                if source.is_internal() {
+                    1
+                } else {
+                    2
                 }
             }
             Error::Loads { source, .. } => {

@@ -331,6 +331,7 @@ mod tests {
             rating: Default::default(),
             live: Default::default(),
             fatigue: None,
+            stability: Default::default(),
         }
     }
 

@@ -22,6 +22,7 @@ pub mod rate;
 pub mod report;
 pub mod section;
 pub mod sensitivity;
+pub mod stability;
 pub mod sweep;
 pub mod textsafe;
 pub mod timing;

@@ -240,6 +240,8 @@ pub struct Model {
     pub live: crate::loads::LiveLoads,
     /// Fatigue vehicle, traffic and member details (the `fatigue` block).
     pub fatigue: Option<crate::fatigue::Settings>,
+    /// Rigid joints, U-frames and vibration data (defaults when not given).
+    pub stability: crate::stability::Settings,
 }
 
 /// A named linear combination of load cases: Σ factor × case (live cases

@@ -5,6 +5,8 @@
 pub mod assemble;
 pub mod conditioning;
 pub mod dofs;
+pub mod eigen;
+pub mod eigen_sparse;
 pub mod mechanism;
 pub mod results;
 pub mod solve;

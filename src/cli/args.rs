@@ -27,6 +27,14 @@ pub enum FormatArg {
     Csv,
 }
 
+/// Output formats of `panelpoint stability`.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
+pub enum StabilityFormat {
+    Text,
+    Json,
+    Svg,
+}
+
 /// What `panelpoint draw` shows.
 #[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
 pub enum ShowArg {
@@ -68,6 +76,22 @@ pub enum Command {
         /// Show every row in the text tables (default: the 40 highest).
         #[arg(long)]
         all: bool,
+    },
+    /// Whole-truss stability and vibration: in-plane elastic buckling of every
+    /// case and combination (critical factor, effective lengths from the mode),
+    /// the compression chord on its U-frames, natural frequencies for footbridges.
+    Stability {
+        model: PathBuf,
+        /// text, json, or svg (the in-plane buckling mode).
+        #[arg(long, value_enum, default_value_t = StabilityFormat::Text)]
+        format: StabilityFormat,
+        /// With --format svg: the case or combination whose mode is drawn
+        /// (default: the lowest critical factor).
+        #[arg(long)]
+        case: Option<String>,
+        /// Write to this file (atomically) instead of standard output.
+        #[arg(short = 'o', long)]
+        out: Option<PathBuf>,
     },
     /// Section properties (built-up sections: as built and after section loss),
     /// or a drawing of one section's parts.

@@ -223,10 +223,22 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
                 path: model.clone(),
                 source,
             })?;
-            let r = rate::rate(m, &a, chosen).map_err(|e| Error::Rate {
+            // Chord k_out from the U-frames when the model asks (stability/rate_k.rs).
+            let from_u_frames =
+                crate::stability::rate_k::with_u_frame_k(m, &a).map_err(|source| {
+                    Error::Stability {
+                        path: model.clone(),
+                        source,
+                    }
+                })?;
+            let m = from_u_frames.as_ref().map_or(m, |(adjusted, _)| adjusted);
+            let mut r = rate::rate(m, &a, chosen).map_err(|e| Error::Rate {
                 path: model.clone(),
                 source: e,
             })?;
+            if let Some((_, notes)) = &from_u_frames {
+                r.notes.extend(notes.iter().cloned());
+            }
             let warn = &c.warnings;
             if format(f) == Format::Csv {
                 warnings_to_stderr(&model, warn, &a.warnings);
@@ -235,6 +247,43 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
                 Format::Text => report::rate_text::rate_term(w, m, &a, &r, warn, all, &term(&out)),
                 Format::Json => report::rate_json::rate(w, m, &a, &r, warn),
                 Format::Csv => report::rate_csv::rate(w, m, &r),
+            })?;
+            Ok(0)
+        }
+        Command::Stability {
+            model,
+            format: f,
+            case,
+            out,
+        } => {
+            let c = load(&model)?;
+            let m = &c.model;
+            let a = analysis::analyse(m).map_err(|source| Error::Analysis {
+                path: model.clone(),
+                source,
+            })?;
+            let r = crate::stability::run::run(m, &a).map_err(|source| Error::Stability {
+                path: model.clone(),
+                source,
+            })?;
+            let warn = &c.warnings;
+            if let Some(id) = &case {
+                if !r.in_plane.iter().any(|e| &e.effect == id) {
+                    return Err(Error::Usage(format!(
+                        "--case \"{id}\": no such load case or combination"
+                    )));
+                }
+            }
+            write(&out, |w| match f {
+                super::args::StabilityFormat::Text => {
+                    report::stability_text::stability(w, m, &r, warn)
+                }
+                super::args::StabilityFormat::Json => {
+                    report::stability_json::stability(w, m, &r, warn)
+                }
+                super::args::StabilityFormat::Svg => {
+                    report::stability_svg::mode_svg(w, m, &r, case.as_deref())
+                }
             })?;
             Ok(0)
         }

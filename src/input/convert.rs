@@ -900,6 +900,7 @@ pub fn convert_deferred(
         .collect();
     let live = super::loads::live_loads(&mut ctx, &file, &parts, &node_ids, &carries);
     let fatigue = super::fatigue::settings(&mut ctx, &file, &live);
+    let stability = super::stability::convert(&mut ctx, &file.stability, &node_ids, u, &materials);
 
     // Combinations.
     let _ = intern(&mut ctx, "combination", &file.combinations, |c| &c.id);
@@ -1008,6 +1009,7 @@ pub fn convert_deferred(
         rating,
         live,
         fatigue,
+        stability,
     };
     lap.mark("isolated nodes");
     Ok((

@@ -17,6 +17,7 @@ pub mod ron_writer;
 pub mod schema;
 mod section_errors;
 mod sections;
+pub mod stability;
 pub mod sweep;
 pub mod syntax;
 

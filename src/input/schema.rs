@@ -50,6 +50,10 @@ pub struct ModelFile {
     /// Load cases whose sum is the dead load reported beside the envelopes.
     #[serde(default)]
     pub dead_cases: Vec<String>,
+    /// Whole-truss stability and vibration (`panelpoint stability`); see
+    /// `input/stability.rs`.
+    #[serde(default)]
+    pub stability: Option<super::stability::StabilityFile>,
     /// Fatigue vehicle, traffic and evaluation parameters; see
     /// `docs/fatigue.md` and `input/fatigue.rs`.
     #[serde(default)]
