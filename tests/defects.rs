@@ -633,3 +633,57 @@ fn a_generated_truss_with_a_panel_load_has_a_deck_and_a_dead_case() {
         "{dead}"
     );
 }
+
+// Defect 1: a combination naming a moving load was drawn (and reported)
+// with its load cases alone (L3-U4 +4.64 kip), while `rate` checked the
+// envelope (−24.71 kip). The drawing and the report now show what `rate`
+// checks, and say how.
+#[test]
+fn combinations_with_a_moving_load_show_the_vehicle() {
+    let out = std::env::temp_dir().join(format!("pp-combo-{}.svg", std::process::id()));
+    let (code, _, err) = run(&[
+        "draw",
+        &demo(),
+        "--case",
+        "strength-truck",
+        "-o",
+        out.to_str().unwrap(),
+    ]);
+    assert_eq!(code, 0, "{err}");
+    let svg = std::fs::read_to_string(&out).unwrap();
+    std::fs::remove_file(&out).ok();
+    // The force `rate` checks for L3-U4 under this combination (its
+    // controlling row): read from `rate`'s own JSON, not recomputed.
+    let (code, json, _) = run(&["rate", &demo(), "--format", "json"]);
+    assert_eq!(code, 0);
+    let v: serde_json::Value = serde_json::from_str(&json).unwrap();
+    let force = v["checks"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|c| {
+            c["member"] == "L3-U4" && c["case"] == "strength-truck (1.75 × truck max compression)"
+        })
+        .unwrap()["force"]
+        .as_f64()
+        .unwrap();
+    assert!(force < -20.0, "{force}");
+    let label = format!("{:.1} C", force.abs());
+    assert!(svg.contains(&label), "no {label} in the drawing");
+    assert!(!svg.contains("4.64 T"), "the load cases alone were drawn");
+    assert!(
+        svg.contains("moving load &quot;truck&quot;"),
+        "no note of the vehicle"
+    );
+    // The report's combinations table names the moving load and its factor.
+    let html = std::env::temp_dir().join(format!("pp-combo-{}.html", std::process::id()));
+    let (code, _, err) = run(&["report", &demo(), "-o", html.to_str().unwrap()]);
+    assert_eq!(code, 0, "{err}");
+    let text = std::fs::read_to_string(&html).unwrap();
+    std::fs::remove_file(&html).ok();
+    assert!(
+        text.contains("1.750 × moving load “truck”"),
+        "combination table"
+    );
+    assert!(text.contains("Moving loads"), "moving-load section");
+}

@@ -394,7 +394,25 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
                 path: model.clone(),
                 source,
             })?;
-            let effects = report::svg::effects(m, &a);
+            let show = match show {
+                ShowArg::Forces => report::svg::Show::Forces,
+                ShowArg::Utilization => report::svg::Show::Utilization,
+                ShowArg::Deflection => report::svg::Show::Deflection,
+                ShowArg::Model => report::svg::Show::Model,
+            };
+            // Utilization needs the rating, and so does a combination with a
+            // moving load (its forces are the envelope `rate` checks).
+            let with_vehicle = m.combinations.iter().any(|c| !c.moving.is_empty());
+            let rating = if show == report::svg::Show::Utilization || with_vehicle {
+                let chosen = rate::choose_method(m, method.as_deref()).map_err(Error::Usage)?;
+                Some(rate::rate(m, &a, chosen).map_err(|e| Error::Rate {
+                    path: model.clone(),
+                    source: e,
+                })?)
+            } else {
+                None
+            };
+            let effects = report::svg::effects_rated(m, &a, rating.as_ref());
             let effect = match &case {
                 None => effects.first(),
                 Some(id) => Some(effects.iter().find(|e| &e.id == id).ok_or_else(|| {
@@ -409,21 +427,6 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
                     ))
                 })?),
             };
-            let show = match show {
-                ShowArg::Forces => report::svg::Show::Forces,
-                ShowArg::Utilization => report::svg::Show::Utilization,
-                ShowArg::Deflection => report::svg::Show::Deflection,
-                ShowArg::Model => report::svg::Show::Model,
-            };
-            let rating = if show == report::svg::Show::Utilization {
-                let chosen = rate::choose_method(m, method.as_deref()).map_err(Error::Usage)?;
-                Some(rate::rate(m, &a, chosen).map_err(|e| Error::Rate {
-                    path: model.clone(),
-                    source: e,
-                })?)
-            } else {
-                None
-            };
             let mut d = report::svg::Drawing::new(m, show);
             // Utilization without --case is the envelope of every effect.
             d.effect = if show == report::svg::Show::Utilization && case.is_none() {
@@ -431,7 +434,9 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             } else {
                 effect
             };
-            d.rating = rating.as_ref();
+            d.rating = rating
+                .as_ref()
+                .filter(|_| show == report::svg::Show::Utilization);
             let strips = if influence.is_empty() {
                 Vec::new()
             } else {

@@ -124,7 +124,7 @@ pub fn report_with_fatigue(
     fatigue: Option<Result<&crate::fatigue::Fatigue, String>>,
 ) -> String {
     let s = Scale::of(model);
-    let effects = svg::effects(model, analysis);
+    let effects = svg::effects_rated(model, analysis, rating.as_ref().ok().copied());
     let title = if model.title.is_empty() {
         "(untitled model)".to_string()
     } else {
@@ -789,7 +789,7 @@ fn results(h: &mut String, model: &Model, analysis: &Analysis, effects: &[Effect
             for &(k, f) in &combo.moving {
                 let _ = writeln!(
                     h,
-                    r#"<p class="note">This combination also holds {} × moving load “{}”: the forces above are its load cases alone; the checks and ratings use each member's envelope of the moving load (see Moving loads and the rating factors).</p>"#,
+                    r#"<p class="note">This combination also holds {} × moving load “{}”: the member forces above include it at each member's governing position (the envelope side with the greater utilization, as the checks use it); the reactions and displacements are those of its load cases alone (see Moving loads and the rating factors).</p>"#,
                     esc(&sig(f, 4)),
                     esc(&model.live.moving[k].id)
                 );

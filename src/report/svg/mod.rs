@@ -52,6 +52,9 @@ pub struct Effect {
     pub reactions: Vec<[f64; 2]>,
     /// (node, fx, fy), N.
     pub loads: Vec<(usize, f64, f64)>,
+    /// What the drawing must say about how the effect was built (a
+    /// combination with a moving load's envelope).
+    pub note: Option<String>,
 }
 
 /// The load cases, then the combinations as Σ factor × case (live cases
@@ -68,6 +71,7 @@ pub fn effects(model: &Model, analysis: &Analysis) -> Vec<Effect> {
             displacements: r.displacements.clone(),
             reactions: r.reactions.clone(),
             loads: c.nodal.iter().map(|l| (l.node, l.fx, l.fy)).collect(),
+            note: None,
         })
         .collect();
     for combo in &model.combinations {
@@ -78,6 +82,7 @@ pub fn effects(model: &Model, analysis: &Analysis) -> Vec<Effect> {
             displacements: vec![[0.0; 2]; model.nodes.len()],
             reactions: vec![[0.0; 2]; model.supports.len()],
             loads: Vec::new(),
+            note: None,
         };
         let mut node_load = vec![[0.0f64; 2]; model.nodes.len()];
         for &(ci, factor) in &combo.factors {
@@ -113,6 +118,65 @@ pub fn effects(model: &Model, analysis: &Analysis) -> Vec<Effect> {
         out.push(e);
     }
     out
+}
+
+/// As [`effects`], with the member forces of each combination that names a
+/// moving load taken from `rating` as `rate` checks them: for each member
+/// the side of the moving load's envelope (its governing vehicle position)
+/// with the larger force, beside the combination's load cases; the loads,
+/// reactions and deflections drawn stay those of the load cases alone, and
+/// the effect's note says so.
+pub fn effects_rated(model: &Model, analysis: &Analysis, rating: Option<&Rating>) -> Vec<Effect> {
+    let mut out = effects(model, analysis);
+    let Some(r) = rating else {
+        return out;
+    };
+    for (ci, combo) in model.combinations.iter().enumerate() {
+        let Some(&(k, factor)) = combo.moving.first() else {
+            continue;
+        };
+        let sides: Vec<&[f64]> = r
+            .effects
+            .iter()
+            .filter(|x| x.combination.map(|c| c.0) == Some(ci))
+            .map(|x| x.forces.as_slice())
+            .collect();
+        let Some(e) = out.iter_mut().find(|e| e.combination && e.id == combo.id) else {
+            continue;
+        };
+        if sides.is_empty() {
+            continue;
+        }
+        // Per member, the side with the higher utilization (as checked).
+        let util = |j: usize, f: f64| {
+            let cap = &r.members[j];
+            let c = if f > 0.0 {
+                cap.tension_capacity
+            } else {
+                cap.compression.capacity
+            };
+            f.abs() / c
+        };
+        e.forces = (0..model.members.len())
+            .map(|j| {
+                sides
+                    .iter()
+                    .map(|f| f[j])
+                    .max_by(|a, b| util(j, *a).total_cmp(&util(j, *b)))
+                    .unwrap_or(0.0)
+            })
+            .collect();
+        e.note = Some(format!(
+            "Member forces include {} × moving load \"{}\" at each member's governing position (its greater utilization of the envelope's tension and compression sides, as rate checks them); the loads, reactions and deflections drawn are those of the load cases alone.",
+            sig_plain(factor),
+            model.live.moving[k].id
+        ));
+    }
+    out
+}
+
+fn sig_plain(v: f64) -> String {
+    super::table::sig(v, 4)
 }
 
 /// An influence line to plot under the truss: `ordinates` are (x in m, the

@@ -134,6 +134,31 @@ fn subtitle(d: &Drawing, mag: Option<f64>) -> String {
     s
 }
 
+/// The effect's note (how a combination with a moving load was built),
+/// wrapped to `chars` characters a line, at most three lines.
+fn note_lines(d: &Drawing, chars: usize) -> Vec<String> {
+    let Some(note) = d.effect.and_then(|e| e.note.as_ref()) else {
+        return Vec::new();
+    };
+    if d.show == Show::Utilization {
+        return Vec::new();
+    }
+    let mut lines: Vec<String> = vec![String::new()];
+    for word in note.split_whitespace() {
+        let last = lines.last_mut().unwrap();
+        if !last.is_empty() && last.chars().count() + 1 + word.chars().count() > chars {
+            lines.push(word.to_string());
+        } else {
+            if !last.is_empty() {
+                last.push(' ');
+            }
+            last.push_str(word);
+        }
+    }
+    lines.truncate(3);
+    lines
+}
+
 fn capital(s: &str) -> String {
     let mut c = s.chars();
     match c.next() {
@@ -242,6 +267,10 @@ pub fn render(d: &Drawing) -> String {
         &format!(r#"{ink} font-weight="bold""#),
     );
     svg.text((20.0, 50.0), 13.0, "start", &sub, &ink);
+    let chars = ((w - 40.0) / (0.56 * 11.0)).max(40.0) as usize;
+    for (i, line) in note_lines(d, chars).iter().enumerate() {
+        svg.text((20.0, 67.0 + 14.0 * i as f64), 11.0, "start", line, &ink);
+    }
 
     // Members.
     svg.raw(r#"<g class="members">"#);
