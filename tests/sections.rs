@@ -351,3 +351,29 @@ fn section_drawing_shows_loss_and_centroid_after_loss() {
         .descendants()
         .any(|n| n.attribute("class") == Some("centroid-as-built")));
 }
+
+/// The "balance within about 10 %" note (common practice for built-up
+/// compression members) is printed for an unbalanced built-up section of two
+/// or more components, not for an eye-bar, where balance is no design aim.
+/// A 6 × 1 in eye-bar: Ix/Iy = 1/36 by b·t³/12 over t·b³/12 (closed form).
+#[test]
+fn balance_note_only_where_balance_is_a_design_aim() {
+    let base = |parts: &str| {
+        format!(
+            "(units: (length: \"ft\", force: \"kip\", section: \"in\", stress: \"ksi\"),\n materials: [(id: \"s\", e: 29000.0, fy: 33.0, fu: 60.0)],\n sections: [(id: \"x\", parts: [{parts}])],\n nodes: [(id: \"A\", x: 0.0, y: 0.0), (id: \"B\", x: 10.0, y: 0.0)],\n members: [(id: \"AB\", start: \"A\", end: \"B\", section: \"x\", material: \"s\")],\n supports: [(node: \"A\", kind: Pin), (node: \"B\", kind: Roller)],\n)"
+        )
+    };
+    let text = |parts: &str| {
+        let path = temp_model("balance.ron", &base(parts));
+        let (code, out, err) = run(&["section", path.to_str().unwrap()]);
+        assert_eq!(code, 0, "{err}");
+        out
+    };
+    let eyebar = text("EyeBar(width: 6.0, thickness: 1.0, x: 0.0, y: 0.0)");
+    assert!(!eyebar.contains("within about 10 %"), "{eyebar}");
+    // Two plates side by side, 6 × 1 each, 1 in apart: far from balanced.
+    let two = text(
+        "Plate(width: 6.0, thickness: 1.0, x: 0.0, y: 1.0), Plate(width: 6.0, thickness: 1.0, x: 0.0, y: -1.0)",
+    );
+    assert!(two.contains("within about 10 %"), "{two}");
+}

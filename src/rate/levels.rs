@@ -151,6 +151,16 @@ pub(super) fn rate_live_loads(
                     (super::Side::Tension, &e.tension),
                     (super::Side::Compression, &e.compression),
                 ] {
+                    // A side whose extreme has the other sign (a member the
+                    // vehicle never compresses, say) is not that side: the
+                    // other side rates it.
+                    let wrong_sign = match side {
+                        super::Side::Tension => extreme.force < 0.0,
+                        super::Side::Compression => extreme.force > 0.0,
+                    };
+                    if wrong_sign {
+                        continue;
+                    }
                     let d = Demand {
                         dc: dc[m],
                         dw: dw[m],

@@ -141,7 +141,15 @@ pub fn text(w: &mut dyn Write, model: &Model, id: Option<&str>) -> io::Result<()
                         "torsion: not computed (a part is given only by table properties); flexural-torsional buckling cannot be checked for this section"
                     )?,
                 }
-                if b.reduced.balance < 0.9 {
+                // Balance is a design aim of built-up compression members
+                // (two or more components, laced or battened), not of eye-bars
+                // or single shapes.
+                let eyebar = b
+                    .parts
+                    .iter()
+                    .any(|p| matches!(p.shape, crate::section::Shape::EyeBar { .. }));
+                let balance_aim = b.parts.len() >= 2 && !eyebar;
+                if balance_aim && b.reduced.balance < 0.9 {
                     writeln!(
                         w,
                         "note: the two principal second moments differ by more than 10 % (balance {:.2}); designers of compression members usually kept them within about 10 % (common practice)",
