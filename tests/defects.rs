@@ -441,7 +441,10 @@ fn sensitivity_differentiates_the_check_rate_governs_including_the_vehicle() {
     // No --case: the check `rate` reports as controlling (2.290 under LRFR, L3-U4,
     // strength-truck with the truck's compression envelope).
     let effect = check_sensitivity_against_rate(&m, None);
-    assert_eq!(effect, "strength-truck (1.75 × truck max compression)");
+    assert_eq!(
+        effect,
+        "strength-truck (1.75 × truck placed for greatest compression)"
+    );
     // --case takes what `draw --case` takes (cases, combinations) and a
     // moving load's id.
     for case in ["strength-truck", "truck", "crowd", "deck", "strength-crowd"] {
@@ -562,7 +565,7 @@ fn a_narrow_terminal_loses_no_column_silently() {
     // The rest are all there: headers over two lines where needed, the
     // long case names whole.
     assert!(
-        text.contains("strength-truck (1.75 × truck max compression)"),
+        text.contains("strength-truck (1.75 × truck placed for greatest compression)"),
         "{text}"
     );
     for h in ["RF", "inventory", "operating", "LL+IM", "C kip", "level"] {
@@ -662,7 +665,8 @@ fn combinations_with_a_moving_load_show_the_vehicle() {
         .unwrap()
         .iter()
         .find(|c| {
-            c["member"] == "L3-U4" && c["case"] == "strength-truck (1.75 × truck max compression)"
+            c["member"] == "L3-U4"
+                && c["case"] == "strength-truck (1.75 × truck placed for greatest compression)"
         })
         .unwrap()["force"]
         .as_f64()

@@ -393,7 +393,9 @@ fn moving_load_rating_by_hand() {
         .as_array()
         .unwrap()
         .iter()
-        .find(|c| c["member"] == "L0-U1" && c["case"] == "dead + roll (max compression)")
+        .find(|c| {
+            c["member"] == "L0-U1" && c["case"] == "dead + roll (placed for greatest compression)"
+        })
         .unwrap();
     assert!((c["force"].as_f64().unwrap() + (d + live)).abs() < 1e-9);
 }

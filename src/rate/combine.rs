@@ -30,6 +30,17 @@ pub enum Side {
 }
 
 impl Side {
+    /// How an effect holding this side is named: the live load placed for
+    /// its greatest tension or compression (the total with the dead load may
+    /// still have the other sense, so the name says where the vehicle is,
+    /// not what the member carries).
+    pub fn effect_label(self) -> &'static str {
+        match self {
+            Side::Tension => "placed for greatest tension",
+            Side::Compression => "placed for greatest compression",
+        }
+    }
+
     pub fn label(self) -> &'static str {
         match self {
             Side::Tension => "max tension",
@@ -211,7 +222,7 @@ pub fn moving_effects_relieved(
                 })
                 .collect();
             out.push(LoadEffect {
-                id: format!("dead + {} ({})", env.moving_load, side.label()),
+                id: format!("dead + {} ({})", env.moving_load, side.effect_label()),
                 case: None,
                 moving: Some((k, side)),
                 factored: false,
@@ -254,7 +265,7 @@ pub fn moving_effects_relieved(
                         "{} ({factor} × {} {})",
                         combo.id,
                         env.moving_load,
-                        side.label()
+                        side.effect_label()
                     ),
                     case: None,
                     moving: None,

@@ -31,7 +31,7 @@ pub struct Loss {
     /// greatest tension of the service effects if any is tension, else the
     /// greatest compression (see [`service_forces`]).
     pub service_force: f64,
-    /// Which service effect gives it ("dead + live", "dead + truck (max tension)").
+    /// Which service effect gives it ("dead + live", "dead + truck (placed for greatest tension)").
     pub service_effect: String,
     /// Why the damaged truss fails, when it does.
     pub mechanism: Option<String>,
@@ -103,7 +103,7 @@ pub fn service_forces(
                 })
                 .collect();
             effects.push((
-                format!("dead + {} ({})", env.moving_load, side.label()),
+                format!("dead + {} ({})", env.moving_load, side.effect_label()),
                 forces,
             ));
         }
