@@ -342,12 +342,27 @@ fn summary(
                     );
                 }
             }
-            if !r.notes.is_empty() {
-                h.push_str("<h3>Notes</h3>\n<ul>");
-                for note in &r.notes {
+            // Stated defaults and assumptions stay on the summary page; the
+            // per-member notes (limits, modes, lacing) are collapsed.
+            let (general, per_member): (Vec<&String>, Vec<&String>) =
+                r.notes.iter().partition(|n| !n.starts_with("member \""));
+            if !general.is_empty() {
+                h.push_str("<h3>Notes: defaults taken and assumptions</h3>\n<ul>");
+                for note in general {
                     let _ = write!(h, "<li>{}</li>", esc(note));
                 }
                 h.push_str("</ul>\n");
+            }
+            if !per_member.is_empty() {
+                let _ = write!(
+                    h,
+                    "<details><summary>Notes on members ({}): slenderness limits, buckling modes, lacing (open to read or print)</summary>\n<ul>",
+                    per_member.len()
+                );
+                for note in per_member {
+                    let _ = write!(h, "<li>{}</li>", esc(note));
+                }
+                h.push_str("</ul></details>\n");
             }
         }
     }
