@@ -328,3 +328,29 @@ fn replaced_curve_and_unknown_methods() {
     assert_eq!(code, 2);
     assert!(err.contains("\"asr\""), "{err}");
 }
+
+/// Lacing bars get rows of their own (AISC 360-16 §E6.2): V is 2 % of the
+/// member's available compressive strength C (the capacity of its
+/// compression checks), not of the demand.
+#[test]
+fn lacing_bars_have_rows_of_their_own() {
+    let text = std::fs::read_to_string(
+        std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("models/millrace-footbridge.ron"),
+    )
+    .unwrap();
+    let v = rate_json_with(&text, &[]);
+    let rows = v["lacing_bars"].as_array().unwrap();
+    assert_eq!(rows.len(), 6, "top chords and end posts");
+    for r in rows {
+        let member = r["member"].as_str().unwrap();
+        let c = v["checks"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .find(|c| c["member"] == member && c["force"].as_f64().unwrap() < 0.0)
+            .unwrap();
+        let cap = f(c, "capacity");
+        assert!((f(r, "shear") - 0.02 * cap).abs() < 1e-9 * cap, "{r}");
+        assert_eq!(r["clause"], "AISC 360-16 §E6.2");
+    }
+}

@@ -192,6 +192,29 @@ pub fn rate(
         )?;
     }
     w.write_all(b"]")?;
+    w.write_all(b",\"lacing_bars\":[")?;
+    let mut first = true;
+    for (m, cap) in rating.members.iter().enumerate() {
+        let Some(b) = &cap.lacing_bars else { continue };
+        if !first {
+            w.write_all(b",")?;
+        }
+        first = false;
+        write!(
+            w,
+            "{{\"member\":{},\"shear\":{},\"bar_force\":{},\"bar_strength\":{},\"utilization\":{},\"slenderness\":{},\"slenderness_limit\":{},\"slenderness_ok\":{},\"clause\":{}}}",
+            string(&model.members[m].id),
+            num(b.shear / super::Scale::of(model).force),
+            num(b.force / super::Scale::of(model).force),
+            num(b.capacity / super::Scale::of(model).force),
+            num(b.utilization),
+            num(b.slenderness),
+            num(b.slenderness_limit),
+            b.slenderness_ok,
+            string(crate::rate::lacing::LacingBarCheck::CLAUSE)
+        )?;
+    }
+    w.write_all(b"]")?;
     w.write_all(b",\"notes\":[")?;
     for (i, n) in rating.notes.iter().enumerate() {
         if i > 0 {

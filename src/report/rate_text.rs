@@ -236,6 +236,44 @@ pub fn rate_term(
             )?;
         }
     }
+    let bars: Vec<(usize, &crate::rate::lacing::LacingBarCheck)> = rating
+        .members
+        .iter()
+        .enumerate()
+        .filter_map(|(m, c)| c.lacing_bars.as_ref().map(|b| (m, b)))
+        .collect();
+    if !bars.is_empty() {
+        writeln!(
+            w,
+            "\n== Lacing bars ({}: V = 2 % of the member's available strength C) ==",
+            crate::rate::lacing::LacingBarCheck::CLAUSE
+        )?;
+        let vu = format!("V {}", s.force_name);
+        let fu = format!("bar force {}", s.force_name);
+        let cu = format!("bar strength {}", s.force_name);
+        let mut t = Table::new(&["member", &vu, &fu, &cu, "util", "K·L/r", "limit", "verdict"]);
+        for (m, b) in bars {
+            let fails = b.utilization > 1.0 || !b.slenderness_ok;
+            t.row_marked(
+                vec![
+                    model.members[m].id.to_string(),
+                    sig(b.shear / s.force, 4),
+                    sig(b.force / s.force, 4),
+                    sig(b.capacity / s.force, 4),
+                    sig(b.utilization, 3),
+                    sig(b.slenderness, 4),
+                    sig(b.slenderness_limit, 3),
+                    if fails {
+                        "FAILS".into()
+                    } else {
+                        "passes".into()
+                    },
+                ],
+                if fails { Mark::Fail } else { Mark::Plain },
+            );
+        }
+        write!(w, "{}", t.render_for(term))?;
+    }
     if !rating.notes.is_empty() {
         writeln!(w, "\nNotes:")?;
         for n in &rating.notes {
