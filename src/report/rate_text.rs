@@ -245,7 +245,7 @@ pub fn rate_term(
     if !bars.is_empty() {
         writeln!(
             w,
-            "\n== Lacing bars ({}: V = 2 % of the member's available strength C) ==",
+            "\n== Lacing bars ({}) ==",
             crate::rate::lacing::LacingBarCheck::CLAUSE
         )?;
         let vu = format!("V {}", s.force_name);
@@ -272,7 +272,12 @@ pub fn rate_term(
                 if fails { Mark::Fail } else { Mark::Plain },
             );
         }
+        t.optional(&["limit", vu.as_str()]);
         write!(w, "{}", t.render_for(term))?;
+        writeln!(
+            w,
+            "(V = 2 % of the member's available compressive strength C; K·L/r limit 140 single, 200 double lacing)"
+        )?;
     }
     if !rating.notes.is_empty() {
         writeln!(w, "\nNotes:")?;
