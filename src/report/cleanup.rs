@@ -103,11 +103,19 @@ mod tests {
         let tmp = dir.join(".out.tmp-x");
         std::fs::write(&tmp, "half").unwrap();
         let reg = Registered::new(&tmp);
-        // SAFETY: the child only raises a signal (async-signal-safe) and
-        // exits; the parent waits for it.
+        // SAFETY: the child only stores to atomics, raises a signal
+        // (async-signal-safe) and exits; the parent waits for it.
         let pid = unsafe { libc::fork() };
         assert!(pid >= 0, "fork failed");
         if pid == 0 {
+            // The child inherits every path the parent's other test threads
+            // registered (an atomic write's temporary file in flight); it
+            // must remove only its own, or it unlinks theirs under them.
+            for (i, slot) in PATHS.iter().enumerate() {
+                if Some(i) != reg.slot {
+                    slot.store(std::ptr::null_mut(), Ordering::SeqCst);
+                }
+            }
             unsafe {
                 libc::raise(libc::SIGTERM);
                 libc::_exit(0);
