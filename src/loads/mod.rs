@@ -245,6 +245,10 @@ pub struct MovingLoad {
     /// Transverse share of the vehicle this truss carries (already in the
     /// vehicle's loads), with any multiple-presence factor and scale.
     pub share: f64,
+    /// The moving load's own `scale` (already in the vehicle's loads).
+    pub scale: f64,
+    /// Whether the model gave `impact` (kept when a sweep changes the vehicle).
+    pub impact_given: bool,
 }
 
 impl Default for MovingLoad {
@@ -260,6 +264,8 @@ impl Default for MovingLoad {
             model: None,
             share: 1.0,
             legal: false,
+            scale: 1.0,
+            impact_given: false,
         }
     }
 }
@@ -273,6 +279,10 @@ pub struct LiveLoads {
     pub moving: Vec<MovingLoad>,
     /// Load cases (indices into `model.cases`) summed as the dead load.
     pub dead_cases: Vec<usize>,
+    /// The first `user_vehicles` of `vehicles` are the model's own, as given.
+    pub user_vehicles: usize,
+    /// The deck's transverse layout, when the model gives one.
+    pub layout: Option<distribution::DeckLayout>,
 }
 
 /// What can go wrong computing influence lines and envelopes.
