@@ -83,6 +83,32 @@ impl Vehicle {
     }
 }
 
+impl Vehicle {
+    /// Whether the vehicle has placement rules that choose among trains or
+    /// spacings (alternatives or a variable axle spacing).
+    pub fn chooses_train(&self) -> bool {
+        !self.rules.alternatives.is_empty()
+            || self.rules.variable_gap.is_some()
+            || self
+                .rules
+                .alternatives
+                .iter()
+                .any(|t| t.variable_gap.is_some())
+    }
+
+    /// The name of train `train` (0 the vehicle's own, 1… its alternatives).
+    pub fn train_label(&self, train: usize) -> &str {
+        match train {
+            0 => self.rules.label.as_deref().unwrap_or(&self.id),
+            k => self
+                .rules
+                .alternatives
+                .get(k - 1)
+                .map_or(self.id.as_str(), |t| t.label.as_str()),
+        }
+    }
+}
+
 /// An axle spacing that varies: the spacing between axle `axle − 1` and
 /// `axle` runs from `min` to `max` (m) and the one giving the greatest
 /// effect governs (the HS truck's rear axle, 14 to 30 ft). The axle
@@ -146,6 +172,9 @@ pub struct Rules {
     pub variable_gap: Option<VariableGap>,
     /// Other axle trains, the greatest effect governing.
     pub alternatives: Vec<Train>,
+    /// The name of the vehicle's own train beside its alternatives
+    /// ("design truck"); the vehicle's id when not given.
+    pub label: Option<String>,
     pub trailing: Option<Trailing>,
     pub crowd: Option<Crowd>,
     /// Leave off axles whose effect relieves the one sought (AASHTO LRFD
