@@ -236,10 +236,14 @@ pub(super) fn single_angle_mode(
         None => {
             let (a, z) = (through(ConnectedLeg::Long), through(ConnectedLeg::Short));
             let w = if z.0.value >= a.0.value { z } else { a };
-            notes.push(format!(
-                "single angle: the connected leg is not given; taken as connected through one leg, the {} (the larger AISC 360-16 §E5 slenderness: the conservative choice)",
-                if bl > bs * (1.0 + 1e-9) { leg_name(w.2) } else { "either (equal legs)" }
-            ));
+            notes.push(if bl > bs * (1.0 + 1e-9) {
+                format!(
+                    "single angle: the connected leg is not given; taken as connected through one leg, the {} (the larger AISC 360-16 §E5 slenderness: the conservative choice)",
+                    leg_name(w.2)
+                )
+            } else {
+                "single angle: the connected leg is not given; taken as connected through one leg (AISC 360-16 §E5; equal legs, either gives the same: the conservative choice)".into()
+            });
             w
         }
     };
@@ -254,8 +258,12 @@ pub(super) fn single_angle_mode(
         return (None, notes);
     }
     notes.push(format!(
-        "single angle connected through the {} leg: equivalent slenderness Lc/r = {:.1} from L/ra = {:.1} ({}{}), as flexural buckling about the geometric axis; the principal-axis and §E4 modes kept, the lowest governs (conservative). Assumed (AISC 360-16 §E5 conditions 1–3 and case (a)): loaded at both ends through that leg by at least two rivets or bolts or by welds, no load between the ends, adjacent web members on the same side of the gusset",
-        leg_name(leg),
+        "single angle connected through {}: equivalent slenderness Lc/r = {:.1} from L/ra = {:.1} ({}{}), as flexural buckling about the geometric axis; the principal-axis and §E4 modes kept, the lowest governs (conservative). Assumed (AISC 360-16 §E5 conditions 1–3 and case (a)): loaded at both ends through that leg by at least two rivets or bolts or by welds, no load between the ends, adjacent web members on the same side of the gusset",
+        if bl > bs * (1.0 + 1e-9) {
+            format!("the {} leg", leg_name(leg))
+        } else {
+            "one leg (equal legs)".to_string()
+        },
         s.value,
         s.l_over_ra,
         s.equation.clause(),
