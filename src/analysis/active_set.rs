@@ -94,6 +94,10 @@ impl<'a> Solver<'a> {
         })
     }
 
+    pub fn model(&self) -> &'a Model {
+        self.model
+    }
+
     /// The tension-only members, by index.
     pub fn tension_only(&self) -> &[usize] {
         &self.tension_only

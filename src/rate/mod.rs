@@ -12,6 +12,7 @@ mod combine;
 pub mod lacing;
 mod levels;
 pub mod modes;
+mod nonlinear;
 mod notes;
 
 pub use checks::{member_capacity, Axis, LacingEffect, MemberCapacity, RP_PUNCHED};
@@ -34,6 +35,13 @@ pub enum RateError {
     /// A combined or enveloped force overflowed (issue 22, item 12).
     #[error("load case or combination \"{effect}\": the force of member \"{member}\" is not a finite number (overflow); the loads or factors are out of range")]
     NonFinite { effect: String, member: String },
+    /// The active-set analysis of a model with tension-only members failed
+    /// for a combination or a vehicle position (issue 16).
+    #[error("{0}")]
+    Analysis(#[from] crate::analysis::results::AnalysisError),
+    /// A moving load the tension-only analysis cannot place faithfully.
+    #[error("moving load \"{id}\": {what} cannot be rolled over a truss with tension-only members yet (the nonlinear analysis places axle trains only, each position solved with the dead load); rate it with an axle train of its own")]
+    TensionOnlyMoving { id: String, what: &'static str },
     #[error("member \"{member}\": {source}")]
     Capacity {
         member: String,
@@ -184,6 +192,9 @@ pub fn choose_method(model: &Model, cli: Option<&str>) -> Result<Method, String>
 
 /// Check every member under every case and combination, and rate it.
 pub fn rate(model: &Model, analysis: &Analysis, method: Method) -> Result<Rating, RateError> {
+    if model.has_tension_only() {
+        return nonlinear::rate(model, analysis, method);
+    }
     let envelopes = moving_envelopes(model, &analysis.prepared)?;
     rate_results(model, &analysis.cases, method, &envelopes)
 }
@@ -216,6 +227,24 @@ pub fn rate_results(
     let (moving, more) = combine::moving_effects_relieved(model, results, envelopes, relief);
     effects.extend(moving);
     relieved.extend(more);
+    let ratings = if method.rates {
+        levels::rate_live_loads(model, results, envelopes, &method, &members)
+    } else {
+        Vec::new()
+    };
+    finish(model, method, members, effects, relieved, ratings)
+}
+
+/// The rating from its effects and rating rows: the checks, the
+/// controlling check, the lowest factors, postings and notes.
+fn finish(
+    model: &Model,
+    method: Method,
+    members: Vec<MemberCapacity>,
+    effects: Vec<LoadEffect>,
+    relieved: Vec<String>,
+    ratings: Vec<MemberRating>,
+) -> Result<Rating, RateError> {
     for e in &effects {
         if let Some(m) = e.forces.iter().position(|f| !f.is_finite()) {
             return Err(RateError::NonFinite {
@@ -224,11 +253,6 @@ pub fn rate_results(
             });
         }
     }
-    let ratings = if method.rates {
-        levels::rate_live_loads(model, results, envelopes, &method, &members)
-    } else {
-        Vec::new()
-    };
     let checks = check_rows(model, &effects, &members, &method, &ratings);
     let controlling = controlling(&checks);
     let lowest_by_level = levels::lowest_by_level(&method, &ratings);
@@ -283,7 +307,10 @@ fn check_rows(
             };
             let area = model.sections[model.members[m].section].area;
             let stress = force / area;
-            let (regime, capacity, critical) = if force > 0.0 {
+            let slack = model.members[m].tension_only && force <= 0.0;
+            let (regime, capacity, critical) = if slack {
+                (Regime::Slack, cap.tension_capacity, 0.0)
+            } else if force > 0.0 {
                 (
                     Regime::Tension,
                     cap.tension_capacity,
