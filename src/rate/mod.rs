@@ -193,7 +193,7 @@ pub fn choose_method(model: &Model, cli: Option<&str>) -> Result<Method, String>
 /// Check every member under every case and combination, and rate it.
 pub fn rate(model: &Model, analysis: &Analysis, method: Method) -> Result<Rating, RateError> {
     if model.has_tension_only() {
-        return nonlinear::rate(model, analysis, method);
+        return nonlinear::rate(model, &analysis.cases, method);
     }
     let envelopes = moving_envelopes(model, &analysis.prepared)?;
     rate_results(model, &analysis.cases, method, &envelopes)
@@ -219,6 +219,12 @@ pub fn rate_results(
     method: Method,
     envelopes: &[crate::loads::MovingEnvelope],
 ) -> Result<Rating, RateError> {
+    if model.has_tension_only() {
+        // Superposition does not hold: the combinations and vehicle
+        // positions are solved whole (`nonlinear.rs`); `results` must come
+        // from the active-set analysis (`analysis::analyse`).
+        return nonlinear::rate(model, results, method);
+    }
     let members = (0..model.members.len())
         .map(|m| member_capacity(model, m, &method))
         .collect::<Result<Vec<_>, _>>()?;

@@ -26,7 +26,7 @@ use super::levels::{side_capacity, SideCapacity};
 use super::{LoadEffect, MemberRating, RateError, Rating, Side};
 use crate::analysis::active_set::{dead_state, factored_state, Solver};
 use crate::analysis::results::AnalysisError;
-use crate::analysis::Analysis;
+use crate::analysis::CaseResult;
 use crate::loads::moving::{positions, Deck, Direction, Placement};
 use crate::loads::rules::concrete_trains;
 use crate::method::{Level, Method};
@@ -324,7 +324,7 @@ fn extremes(
 /// envelopes of states solved whole.
 fn effects(
     model: &Model,
-    analysis: &Analysis,
+    results: &[CaseResult],
     solver: &Solver,
     lives: &[Live],
     dead_slack: &[bool],
@@ -332,7 +332,7 @@ fn effects(
     let mut out: Vec<LoadEffect> = model
         .cases
         .iter()
-        .zip(&analysis.cases)
+        .zip(results)
         .enumerate()
         .map(|(i, (c, r))| LoadEffect {
             id: c.id.clone(),
@@ -524,7 +524,7 @@ fn rate_live(
 /// [`super::rate`] for a model with tension-only members.
 pub(super) fn rate(
     model: &Model,
-    analysis: &Analysis,
+    results: &[CaseResult],
     method: Method,
 ) -> Result<Rating, RateError> {
     let members = (0..model.members.len())
@@ -533,7 +533,7 @@ pub(super) fn rate(
     let solver = Solver::new(model)?;
     let dead = solver.solve(&dead_state(model), None)?;
     let lives = live_loads(model)?;
-    let effects = effects(model, analysis, &solver, &lives, &dead.slack)?;
+    let effects = effects(model, results, &solver, &lives, &dead.slack)?;
     let mut ratings = Vec::new();
     if method.rates {
         for live in &lives {
