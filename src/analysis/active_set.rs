@@ -304,6 +304,41 @@ pub fn factored_state(model: &Model, id: &str, terms: &[(usize, f64)]) -> LoadCa
     out
 }
 
+/// A combination's load cases as one state: each case times its factor,
+/// live cases also times 1 + impact (as `rate` combines them). A moving
+/// load it names is not included (it is rolled position by position).
+pub fn combination_state(model: &Model, combo: &crate::model::Combination) -> LoadCase {
+    let terms: Vec<(usize, f64)> = combo
+        .factors
+        .iter()
+        .map(|&(c, f)| {
+            let case = &model.cases[c];
+            if case.kind == crate::model::CaseKind::Live {
+                (c, f * (1.0 + case.impact))
+            } else {
+                (c, f)
+            }
+        })
+        .collect();
+    factored_state(model, &combo.id, &terms)
+}
+
+/// Every combination of the model solved whole by the iteration, with its
+/// state (for drawings and reports of a model with tension-only members).
+pub fn combination_results(model: &Model) -> Result<Vec<(LoadCase, State)>, AnalysisError> {
+    let solver = Solver::new(model)?;
+    let dead = solver.solve(&dead_state(model), None)?;
+    model
+        .combinations
+        .iter()
+        .map(|c| {
+            let state = combination_state(model, c);
+            let s = solver.solve(&state, Some(&dead.slack))?;
+            Ok((state, s))
+        })
+        .collect()
+}
+
 /// The dead-load state: the model's dead cases together, unfactored.
 pub fn dead_state(model: &Model) -> LoadCase {
     let terms: Vec<(usize, f64)> = model.dead_cases().into_iter().map(|c| (c, 1.0)).collect();

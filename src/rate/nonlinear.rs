@@ -24,7 +24,7 @@
 use super::checks::MemberCapacity;
 use super::levels::{side_capacity, SideCapacity};
 use super::{LoadEffect, MemberRating, RateError, Rating, Side};
-use crate::analysis::active_set::{dead_state, factored_state, Solver};
+use crate::analysis::active_set::{combination_state, dead_state, factored_state, Solver};
 use crate::analysis::results::AnalysisError;
 use crate::analysis::CaseResult;
 use crate::loads::moving::{positions, Deck, Direction, Placement};
@@ -283,22 +283,6 @@ fn live_loads(model: &Model) -> Result<Vec<Live>, RateError> {
     Ok(out)
 }
 
-/// The terms of a combination as load-state factors (live cases times
-/// 1 + impact).
-fn combination_terms(model: &Model, factors: &[(usize, f64)]) -> Vec<(usize, f64)> {
-    factors
-        .iter()
-        .map(|&(c, f)| {
-            let case = &model.cases[c];
-            if case.kind == CaseKind::Live {
-                (c, f * (1.0 + case.impact))
-            } else {
-                (c, f)
-            }
-        })
-        .collect()
-}
-
 /// Greatest and least force of every member over the states `base` +
 /// `factor` × each placement.
 fn extremes(
@@ -344,7 +328,7 @@ fn effects(
         })
         .collect();
     for (ci, combo) in model.combinations.iter().enumerate() {
-        let state = factored_state(model, &combo.id, &combination_terms(model, &combo.factors));
+        let state = combination_state(model, combo);
         if combo.moving.is_empty() {
             let s = solver.solve(&state, Some(dead_slack))?;
             out.push(LoadEffect {
