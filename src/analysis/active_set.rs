@@ -70,7 +70,13 @@ pub struct Solver<'a> {
     symbolic: Symbolic,
     full: Vec<f64>,
     tension_only: Vec<usize>,
+    /// Factorizations by set of slack members: a trace over many vehicle
+    /// positions meets the same few sets again and again.
+    cache: std::cell::RefCell<std::collections::HashMap<Vec<bool>, std::rc::Rc<Prepared>>>,
 }
+
+/// Sets of slack members whose factorizations are kept.
+const CACHE_SETS: usize = 64;
 
 impl<'a> Solver<'a> {
     pub fn new(model: &'a Model) -> Result<Solver<'a>, AnalysisError> {
@@ -91,6 +97,7 @@ impl<'a> Solver<'a> {
             symbolic,
             full,
             tension_only,
+            cache: Default::default(),
         })
     }
 
@@ -105,7 +112,29 @@ impl<'a> Solver<'a> {
 
     /// K and the member stiffnesses with the `slack` members at zero,
     /// factored on the shared symbolic analysis.
-    pub fn prepared(&self, slack: &[bool]) -> Result<Prepared, AnalysisError> {
+    /// Kept for the next call with the same set (up to [`CACHE_SETS`]).
+    pub fn prepared(&self, slack: &[bool]) -> Result<std::rc::Rc<Prepared>, AnalysisError> {
+        if let Some(p) = self.cache.borrow().get(slack) {
+            return Ok(p.clone());
+        }
+        let (k, stiff) = self.assemble(slack);
+        let p = std::rc::Rc::new(Prepared::with_stiffness(
+            self.model,
+            self.dofs.clone(),
+            k,
+            &self.symbolic,
+            stiff,
+        )?);
+        let mut cache = self.cache.borrow_mut();
+        if cache.len() >= CACHE_SETS {
+            cache.clear();
+        }
+        cache.insert(slack.to_vec(), p.clone());
+        Ok(p)
+    }
+
+    /// K (full pattern) and the member stiffnesses with `slack` at zero.
+    fn assemble(&self, slack: &[bool]) -> (Csc, Vec<f64>) {
         let model = self.model;
         let stiff: Vec<f64> = self
             .full
@@ -132,7 +161,53 @@ impl<'a> Solver<'a> {
                 }
             }
         }
-        Prepared::with_stiffness(model, self.dofs.clone(), k, &self.symbolic, stiff)
+        (k, stiff)
+    }
+
+    /// With the set `slack` a mechanism: the slack members its free motion
+    /// takes up. The truss moves freely (at no load) in the null vector of
+    /// K, in the sense in which `push` does positive work, until a slack
+    /// member lengthens by its slack; every slack member that lengthens in
+    /// that motion is taken back (those that need not be are let go again
+    /// by the iteration). None when no slack member lengthens, or the set is
+    /// not a mechanism: the truss cannot carry the load without a member
+    /// pushing.
+    pub fn take_up(&self, slack: &[bool], push: &LoadCase) -> Option<Vec<bool>> {
+        use super::solve::FactorError;
+        let (k, _) = self.assemble(slack);
+        let Err(FactorError::Singular {
+            mode: Some(mode), ..
+        }) = self.symbolic.factor(&k)
+        else {
+            return None;
+        };
+        let u = super::mechanism::free_motion(self.model, &self.dofs, &mode).displacements;
+        let work: f64 = push
+            .nodal
+            .iter()
+            .map(|l| l.fx * u[l.node][0] + l.fy * u[l.node][1])
+            .sum();
+        if work == 0.0 || !work.is_finite() {
+            return None;
+        }
+        let sign = work.signum();
+        let mut next = slack.to_vec();
+        let mut any = false;
+        for &m in &self.tension_only {
+            if !slack[m] {
+                continue;
+            }
+            let mem = &self.model.members[m];
+            let c = self.model.direction(m);
+            let (a, b) = (u[mem.start], u[mem.end]);
+            // The mode is scaled to a largest entry of 1: a lengthening
+            // below 10⁻⁹ of it is round-off.
+            if sign * (c[0] * (b[0] - a[0]) + c[1] * (b[1] - a[1])) > 1e-9 {
+                next[m] = false;
+                any = true;
+            }
+        }
+        any.then_some(next)
     }
 
     /// The state `case` with the members' own slack added as stress-free
@@ -193,6 +268,11 @@ impl<'a> Solver<'a> {
         match self.solve_once(state, slack) {
             Ok(r) => Ok((r, slack.to_vec())),
             Err(e @ (AnalysisError::Mechanism { .. } | AnalysisError::RigidBody { .. })) => {
+                // A slack member with its slack still to take up: the truss
+                // moves freely until it does, then carries the load.
+                if let Some(next) = self.take_up(slack, state) {
+                    return self.solve_set(state, &next, seen);
+                }
                 let fallback = seen.last().and_then(|prev| {
                     let r = self.solve_once(state, prev).ok()?;
                     let m = self
@@ -220,7 +300,14 @@ impl<'a> Solver<'a> {
         Ok(r.pop().expect("one state, one result"))
     }
 
-    fn slack_mechanism(&self, case: &LoadCase, slack: &[bool], e: AnalysisError) -> AnalysisError {
+    /// The typed error for a set that is a mechanism (`e` the plain
+    /// mechanism error of its factorization).
+    pub fn slack_mechanism(
+        &self,
+        case: &LoadCase,
+        slack: &[bool],
+        e: AnalysisError,
+    ) -> AnalysisError {
         let motion = match e {
             AnalysisError::Mechanism {
                 node, direction, ..
@@ -366,7 +453,9 @@ pub fn analyse(model: &Model) -> Result<Analysis, AnalysisError> {
         }
         cases.push(s.result);
     }
-    let prepared = solver.prepared(&dead.slack)?;
+    let (k, stiff) = solver.assemble(&dead.slack);
+    let prepared =
+        Prepared::with_stiffness(model, solver.dofs.clone(), k, &solver.symbolic, stiff)?;
     warnings.extend(prepared_warnings(model, &prepared));
     let ids = dead.slack_ids(model);
     warnings.push(format!(

@@ -72,6 +72,9 @@ pub struct Limit {
 pub struct Reached {
     pub lambda: f64,
     pub tension: bool,
+    /// Not the member's resistance but the truss becoming a mechanism (its
+    /// slack members out) at this λ.
+    pub mechanism: bool,
 }
 
 /// The multiplier λ at which each member reaches its resistance under
@@ -87,7 +90,10 @@ pub struct Reached {
 /// N_D + λ·N_L = R (tension) or −R (compression). In the first segment a
 /// negative λ is kept (the dead load alone beyond the resistance, as the
 /// linear rating equation gives it). Members not reached by [`LAMBDA_MAX`]
-/// get None. A set of slack members seen twice at one λ is cycling.
+/// get None. Should a flip leave a mechanism that no slack member's
+/// take-up stops, the truss itself gives way at that λ: every member not yet
+/// reached gets that λ, marked `mechanism` (no rating above it is
+/// faithful). A set of slack members seen twice at one λ is cycling.
 pub fn trace(
     solver: &Solver,
     dead: &LoadCase,
@@ -103,7 +109,35 @@ pub fn trace(
     let mut lambda = 0.0f64;
     let mut seen_here: Vec<Vec<bool>> = Vec::new();
     for segment in 0..MAX_SEGMENTS {
-        let p = solver.prepared(&slack)?;
+        let p = match solver.prepared(&slack) {
+            Ok(p) => p,
+            Err(e @ (AnalysisError::Mechanism { .. } | AnalysisError::RigidBody { .. })) => {
+                // A member let go at the event leaves the truss free to
+                // move until a slack member takes up its slack (at the same
+                // λ): take it up and go on.
+                match solver.take_up(&slack, live) {
+                    Some(next) => {
+                        slack = next;
+                        continue;
+                    }
+                    None => {
+                        // The truss itself gives way here (a panel whose
+                        // shear reverses with no counter): no member can
+                        // be rated above this λ.
+                        let _ = e;
+                        for o in out.iter_mut().filter(|o| o.is_none()) {
+                            *o = Some(Reached {
+                                lambda,
+                                tension: true,
+                                mechanism: true,
+                            });
+                        }
+                        break;
+                    }
+                }
+            }
+            Err(e) => return Err(e),
+        };
         let r = p.solve_cases(model, &[dead_s.clone(), live.clone()])?;
         let (d, l) = (&r[0], &r[1]);
         let eps = 1e-9 * lambda.abs().max(1.0);
@@ -149,6 +183,7 @@ pub fn trace(
                 out[m] = Some(Reached {
                     lambda: at,
                     tension,
+                    mechanism: false,
                 });
             }
         }
@@ -463,7 +498,9 @@ fn rate_live(
         let sense = best[m].map_or(live_force >= 0.0, |b| b.0.tension);
         let side = if sense { &tension[m] } else { &compression[m] };
         let slack = model.members[m].tension_only && service.slack[m];
-        let governs = if best[m].is_none() && slack {
+        let governs = if best[m].is_some_and(|b| b.0.mechanism) {
+            "truss becomes a mechanism (slack members out)"
+        } else if best[m].is_none() && slack {
             "slack"
         } else {
             side.governs
@@ -544,6 +581,19 @@ pub(super) fn rate(
     rating.notes.push(
         "tension-only members (issue 16): every case, combination and vehicle position solved whole by the active-set iteration (superposition does not hold); combinations with their factors as written; rating factor = the live-load multiplier at which the member reaches its resistance with the factored dead load applied first, the slack members followed event by event (DC and DW shown together as DC); a slack member carries no force and is never checked in compression".into(),
     );
+    let mut gave_way: Vec<String> = Vec::new();
+    for r in rating.ratings.iter().filter(|r| r.governs.starts_with("truss becomes")) {
+        let note = format!(
+            "live load \"{}\" at the {} level: at RF {:.2} the truss itself becomes a mechanism (a panel's shear reverses where no counter can carry it, or a needed tension-only member goes slack); members that do not reach their resistance sooner are rated at that factor",
+            r.live_id,
+            r.level,
+            r.rf.unwrap_or(f64::NAN)
+        );
+        if !gave_way.contains(&note) {
+            gave_way.push(note);
+        }
+    }
+    rating.notes.extend(gave_way);
     let slack = dead.slack_ids(model);
     if !slack.is_empty() {
         rating.notes.push(format!(
