@@ -238,6 +238,27 @@ pub fn scan(model: &Model, analysis: &Analysis, opts: &RunOptions) -> Result<Vec
                     loss.mechanism = Some(e.to_string());
                     Ok(loss)
                 }
+                Ok((_, cases)) if damaged.has_tension_only() => {
+                    match super::run::summarise_tension_only(&damaged, &cases, opts) {
+                        // A combination or vehicle position the damaged
+                        // truss cannot carry with its slack members out.
+                        Err(crate::rate::RateError::Analysis(e))
+                            if e != AnalysisError::Internal =>
+                        {
+                            loss.critical = true;
+                            loss.fracture_critical = tension;
+                            loss.mechanism = Some(e.to_string());
+                            Ok(loss)
+                        }
+                        Err(e) => Err(e.to_string()),
+                        Ok(o) => {
+                            loss.max_utilization_after = o.max_utilization;
+                            loss.controlling_member = o.controlling_member;
+                            loss.controlling_case = o.controlling_case;
+                            Ok(loss)
+                        }
+                    }
+                }
                 Ok((prepared, cases)) => {
                     let o = summarise(&damaged, &cases, &prepared, opts)?;
                     loss.max_utilization_after = o.max_utilization;

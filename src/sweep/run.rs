@@ -329,6 +329,18 @@ pub fn summarise(
     Ok(outcome(model, cases, &r, opts.detail))
 }
 
+/// The outcome of a model with tension-only members from its active-set
+/// case results, the rating's own error kept typed (a combination or a
+/// vehicle position the truss cannot carry is an analysis error).
+pub fn summarise_tension_only(
+    model: &Model,
+    cases: &[CaseResult],
+    opts: &RunOptions,
+) -> Result<Outcome, rate::RateError> {
+    let r = rate::rate_results(model, cases, opts.method.clone(), &[])?;
+    Ok(outcome(model, cases, &r, opts.detail))
+}
+
 fn outcome(model: &Model, cases: &[CaseResult], r: &Rating, detail: bool) -> Outcome {
     let ctrl = r.controlling.map(|c| &r.checks[c]);
     let low = r.lowest.map(|l| &r.ratings[l]);
