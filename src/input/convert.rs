@@ -709,6 +709,7 @@ pub fn convert_deferred(
             let unbraced_out = len(&mut ctx, &m.unbraced_out, "unbraced_out");
             if let Some(q) = &m.slack {
                 let what = Field("member", &m.id, "slack");
+                let at = ctx.locate("id", &m.id, 0);
                 if !m.tension_only {
                     ctx.error(
                         format!("{what} is given but the member is not tension_only: true; only a tension-only member (rod, eyebar, counter) can be slack"),
