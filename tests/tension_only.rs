@@ -284,3 +284,53 @@ fn redundancy_with_a_slack_member() {
     let linear = scan(&pratt("", "", cases, ""));
     assert!(!linear.critical, "{linear:?}");
 }
+
+/// A loose rod (slack s = 0.05 in) must first take up its slack: the truss
+/// racks freely (a mechanism with the rod out) until it does. Statics are
+/// unchanged (a = 5P/9, b = 0, the truss being determinate with b slack),
+/// and by the unit-load method (virtual work, δ = Σ n·e with e including
+/// the slack) the load point L1 moves down by n_a·s = 5/9 × 0.05 in more
+/// than with a tight rod.
+#[test]
+fn loose_rod_takes_up_its_slack() {
+    let cases = r#"(id: "left", loads: [(node: "L1", fy: -18.0)])"#;
+    let (m, a) = solve(&pratt(", tension_only: true, slack: \"0.05 in\"", TO, cases, ""));
+    let (_, tight) = solve(&pratt(TO, TO, cases, ""));
+    assert_close!(force(&m, &a, 0, "a"), 10.0, 1e-9);
+    assert!(force(&m, &a, 0, "b").abs() < 1e-9);
+    let l1 = node(&m, "L1");
+    let extra = (a.cases[0].displacements[l1][1] - tight.cases[0].displacements[l1][1]) / INCH;
+    assert_close!(extra, -5.0 / 9.0 * 0.05, 1e-6);
+}
+
+/// The demo model (models/quarry-lane-pin.ron) rated by LRFR: no
+/// tension-only member (eyebar, rod, counter) is ever checked or rated in
+/// compression (the definition of a tension-only member, issue 16); its
+/// counters show slack rows; the loose counter is slack under the dead
+/// load; every case is in equilibrium.
+#[test]
+fn demo_model_never_pushes_an_eyebar() {
+    let (m, a) = solve(include_str!("../models/quarry-lane-pin.ron"));
+    for r in &a.cases {
+        assert!(r.relative_residual < 1e-9);
+        assert!((r.load_sum[1] + r.reaction_sum[1]).abs() < 1e-6 * KIP);
+    }
+    assert!(a.cases[0].forces[member(&m, "U4-L5")] == 0.0, "the loose counter");
+    let method = panelpoint::rate::choose_method(&m, None).unwrap();
+    let r = panelpoint::rate::rate(&m, &a, method).unwrap();
+    use panelpoint::capacity::Regime;
+    let mut slack_rows = 0;
+    for c in &r.checks {
+        if m.members[c.member].tension_only {
+            assert!(c.force >= 0.0, "{} pushed", m.members[c.member].id);
+            assert!(matches!(c.regime, Regime::Tension | Regime::Slack));
+            slack_rows += usize::from(c.regime == Regime::Slack);
+        }
+    }
+    assert!(slack_rows > 0);
+    for x in r.ratings.iter().filter(|x| m.members[x.member].tension_only) {
+        assert_ne!(x.governs, "compression");
+    }
+    let low = r.lowest.map(|i| &r.ratings[i]).expect("a lowest factor");
+    assert!(low.rf.unwrap() > 0.0);
+}
