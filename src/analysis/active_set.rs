@@ -432,6 +432,29 @@ pub fn dead_state(model: &Model) -> LoadCase {
     factored_state(model, "dead load", &terms)
 }
 
+/// The factorization of the dead-load state's active set, and the ids of
+/// its slack members: what influence lines of a model with tension-only
+/// members are computed on (they hold only while that set does).
+pub fn dead_prepared(model: &Model) -> Result<(Prepared, Vec<String>), AnalysisError> {
+    let solver = Solver::new(model)?;
+    let dead = solver.solve(&dead_state(model), None)?;
+    let (k, stiff) = solver.assemble(&dead.slack);
+    let p = Prepared::with_stiffness(model, solver.dofs.clone(), k, &solver.symbolic, stiff)?;
+    Ok((p, dead.slack_ids(model)))
+}
+
+/// The label influence lines of a model with tension-only members carry.
+pub fn influence_label(slack: &[String]) -> String {
+    format!(
+        "tension-only members: influence lines of the dead-load active set{} (they hold while that set does; `rate` and `envelope` solve each vehicle position whole)",
+        if slack.is_empty() {
+            " (no member slack)".to_string()
+        } else {
+            format!(" (slack: {})", slack.join(", "))
+        }
+    )
+}
+
 /// [`super::analyse`] for a model with tension-only members: each case
 /// solved on its own by the iteration; the `prepared` kept is that of the
 /// dead-load state's active set (for influence lines and envelopes). A
@@ -457,15 +480,9 @@ pub fn analyse(model: &Model) -> Result<Analysis, AnalysisError> {
     let prepared =
         Prepared::with_stiffness(model, solver.dofs.clone(), k, &solver.symbolic, stiff)?;
     warnings.extend(prepared_warnings(model, &prepared));
-    let ids = dead.slack_ids(model);
-    warnings.push(format!(
-        "tension-only members: each case solved by the active-set iteration (superposition does not hold); influence lines are those of the dead-load active set{}",
-        if ids.is_empty() {
-            String::new()
-        } else {
-            format!(" (slack: {})", ids.join(", "))
-        }
-    ));
+    warnings.push(
+        "tension-only members: each case solved by the active-set iteration (superposition does not hold)".into(),
+    );
     Ok(Analysis {
         prepared,
         cases,

@@ -39,9 +39,6 @@ pub enum RateError {
     /// for a combination or a vehicle position (issue 16).
     #[error("{0}")]
     Analysis(#[from] crate::analysis::results::AnalysisError),
-    /// A moving load the tension-only analysis cannot place faithfully.
-    #[error("moving load \"{id}\": {what} cannot be rolled over a truss with tension-only members yet (the nonlinear analysis places axle trains only, each position solved with the dead load); rate it with an axle train of its own")]
-    TensionOnlyMoving { id: String, what: &'static str },
     #[error("member \"{member}\": {source}")]
     Capacity {
         member: String,
@@ -206,6 +203,9 @@ pub fn moving_envelopes(
 ) -> Result<Vec<crate::loads::MovingEnvelope>, RateError> {
     if model.live.moving.is_empty() {
         Ok(Vec::new())
+    } else if model.has_tension_only() {
+        // Each vehicle position solved whole with the dead load.
+        Ok(crate::loads::envelope_nonlinear::envelopes(model)?)
     } else {
         Ok(crate::loads::envelopes(model, prepared)?)
     }

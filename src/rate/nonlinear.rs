@@ -13,7 +13,7 @@
 //!   (1 + impact), placed on the deck nodes by the lever rule, solved
 //!   together; each member's greatest and least force over the positions
 //!   are its envelope. Lane, trailing and crowd loads and the leaving-off of
-//!   relieving axles are refused ([`RateError::TensionOnlyMoving`]);
+//!   relieving axles are refused ([`crate::loads::LoadError::TensionOnlyMoving`]);
 //! - the rating factor is the live-load multiplier λ at which the member
 //!   reaches its resistance when the factored dead load is applied first and
 //!   λ·γL·(L + IM) then added, the active set followed along the way (see
@@ -27,37 +27,15 @@ use super::{LoadEffect, MemberRating, RateError, Rating, Side};
 use crate::analysis::active_set::{combination_state, dead_state, factored_state, Solver};
 use crate::analysis::results::AnalysisError;
 use crate::analysis::CaseResult;
-use crate::loads::moving::{positions, Deck, Direction, Placement};
-use crate::loads::rules::concrete_trains;
+use crate::loads::envelope_nonlinear::merge;
+use crate::loads::moving::Placement;
 use crate::method::{Level, Method};
-use crate::model::{CaseKind, LoadCase, Model, NodalLoad};
+use crate::model::{CaseKind, LoadCase, Model};
 
 /// λ beyond which the trace stops: the member is not governed by this live load.
 pub const LAMBDA_MAX: f64 = 1e4;
 /// Most segments of one trace.
 const MAX_SEGMENTS: usize = 10_000;
-
-/// `a` plus `f` times `b`, as one load state.
-fn merge(a: &LoadCase, b: &LoadCase, f: f64) -> LoadCase {
-    let mut out = a.clone();
-    out.nodal.extend(b.nodal.iter().map(|l| NodalLoad {
-        node: l.node,
-        fx: f * l.fx,
-        fy: f * l.fy,
-    }));
-    out.settlements
-        .extend(b.settlements.iter().map(|s| crate::model::Settlement {
-            node: s.node,
-            dx: f * s.dx,
-            dy: f * s.dy,
-        }));
-    out.elongations
-        .extend(b.elongations.iter().map(|e| crate::model::InitialElongation {
-            member: e.member,
-            elongation: f * e.elongation,
-        }));
-    out
-}
 
 /// A member's resistances in the two senses, N (positive magnitudes;
 /// infinite compression for a tension-only member, which goes slack first).
@@ -225,74 +203,16 @@ struct Live {
     placements: Vec<(LoadCase, Option<Placement>)>,
 }
 
-/// The placements of moving load `k`: every train, direction and position.
+/// The placements of moving load `k`: every train, direction and position
+/// (`loads/envelope_nonlinear.rs`).
 fn moving_placements(model: &Model, k: usize) -> Result<Live, RateError> {
     let ml = &model.live.moving[k];
-    let v = &model.live.vehicles[ml.vehicle];
-    let refuse = |what| {
-        Err(RateError::TensionOnlyMoving {
-            id: ml.id.clone(),
-            what,
-        })
-    };
-    if v.lane.is_some() {
-        return refuse("a lane load");
-    }
-    if v.rules.trailing.is_some() {
-        return refuse("a trailing uniform load");
-    }
-    if v.rules.crowd.is_some() {
-        return refuse("a crowd load");
-    }
-    if v.rules.ignore_relieving {
-        return refuse("a load model that leaves off relieving axles");
-    }
-    let deck = Deck::of_model(model).map_err(RateError::Loads)?;
-    // The dynamic allowance cannot follow each member's loaded length in one
-    // state: a loaded length of zero gives the rule's largest value (for
-    // 50/(L + 125) the 0.30 cap), the conservative one.
-    let impact = ml.impact_rule.allowance(ml.impact, 0.0);
-    let mut placements = Vec::new();
-    for train in concrete_trains(v, &deck) {
-        for direction in [Direction::Forward, Direction::Reverse] {
-            let at = positions(&deck, &train.axles, &[], ml.step, direction, &ml.id)
-                .map_err(RateError::Loads)?;
-            for front in at {
-                let mut case = LoadCase {
-                    id: ml.id.clone(),
-                    kind: CaseKind::Live,
-                    impact,
-                    ..Default::default()
-                };
-                for a in &train.axles {
-                    let Some((i, w0, w1)) = deck.split(direction.axle_at(front, a.offset)) else {
-                        continue;
-                    };
-                    for (node, w) in [(deck.nodes[i], w0), (deck.nodes[i + 1], w1)] {
-                        if w != 0.0 {
-                            case.nodal.push(NodalLoad {
-                                node,
-                                fx: 0.0,
-                                fy: -(1.0 + impact) * a.load * w,
-                            });
-                        }
-                    }
-                }
-                if !case.nodal.is_empty() {
-                    let p = Placement {
-                        position: front,
-                        direction,
-                    };
-                    placements.push((case, Some(p)));
-                }
-            }
-        }
-    }
+    let (placed, _) = crate::loads::envelope_nonlinear::placements(model, k)?;
     Ok(Live {
         id: ml.id.clone(),
         legal: ml.legal,
         moving: Some(k),
-        placements,
+        placements: placed.into_iter().map(|p| (p.case, Some(p.at))).collect(),
     })
 }
 
