@@ -334,3 +334,22 @@ fn demo_model_never_pushes_an_eyebar() {
     let low = r.lowest.map(|i| &r.ratings[i]).expect("a lowest factor");
     assert!(low.rf.unwrap() > 0.0);
 }
+
+/// The command line on the demo model: `rate` shows slack rows and exits 0;
+/// `sensitivity` refuses with exit 2 and says why (issue 16); `influence`
+/// labels its lines as those of the dead-load active set.
+#[test]
+fn command_line_on_the_demo() {
+    let model = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("models/quarry-lane-pin.ron");
+    let path = model.to_str().unwrap();
+    let (code, out, err) = run(&["rate", path, "--all"]);
+    assert_eq!(code, 0, "{err}");
+    assert!(out.contains(" slack "), "{out}");
+    let (code, out, err) = run(&["sensitivity", path]);
+    assert_eq!(code, 2);
+    assert!(out.is_empty());
+    assert!(err.contains("tension-only members"), "{err}");
+    let (code, out, err) = run(&["influence", path, "--member", "L3-U4"]);
+    assert_eq!(code, 0, "{err}");
+    assert!(out.contains("dead-load active set"), "{out}");
+}
