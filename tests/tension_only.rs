@@ -71,7 +71,10 @@ fn counter_panel_by_hand_statics() {
         "",
     );
     let (m, a) = solve(&text);
-    assert!(force(&m, &a, 0, "b").abs() < 1e-9, "slack rod b carries no force");
+    assert!(
+        force(&m, &a, 0, "b").abs() < 1e-9,
+        "slack rod b carries no force"
+    );
     assert_close!(force(&m, &a, 0, "a"), 5.0 * 18.0 / 9.0, 1e-9);
     assert!(force(&m, &a, 1, "a").abs() < 1e-9);
     assert_close!(force(&m, &a, 1, "b"), 10.0, 1e-9);
@@ -79,17 +82,29 @@ fn counter_panel_by_hand_statics() {
     assert_close!(force(&m, &a, 0, "a") * SIN, 18.0 / 3.0, 1e-9);
     // The same truss with the rods able to push shares the shear between
     // them and compresses b: what the linear analysis got wrong.
-    let (ml, al) = solve(&pratt("", "", r#"(id: "left", loads: [(node: "L1", fy: -18.0)])"#, ""));
+    let (ml, al) = solve(&pratt(
+        "",
+        "",
+        r#"(id: "left", loads: [(node: "L1", fy: -18.0)])"#,
+        "",
+    ));
     assert!(force(&ml, &al, 0, "b") < -1.0);
     // Equilibrium of the nonlinear solution: reactions balance the load
     // (ΣFy = 0: R0 + R3 = 18 kip, R0 = 2/3·18 = 12 kip by moments about L3),
     // residual within the analysis limit.
     for r in &a.cases {
-        assert!(r.relative_residual < 1e-9, "residual {}", r.relative_residual);
+        assert!(
+            r.relative_residual < 1e-9,
+            "residual {}",
+            r.relative_residual
+        );
         assert!((r.load_sum[1] + r.reaction_sum[1]).abs() < 1e-9 * KIP);
     }
     assert_close!(a.cases[0].reactions[0][1] / KIP, 12.0, 1e-9);
-    assert!(a.warnings.iter().any(|w| w.contains("slack") && w.contains("\"left\"")));
+    assert!(a
+        .warnings
+        .iter()
+        .any(|w| w.contains("slack") && w.contains("\"left\"")));
 }
 
 /// Force method by hand for the one redundant of the panel (unit-load
@@ -110,9 +125,10 @@ fn drawn_up_counter_taut_then_slack() {
     let (fd, fv, fc) = (240.0 / (e * 2.0), 144.0 / (e * 4.0), 192.0 / (e * 10.0));
     let ssf = 2.0 * fd + 2.0 * 0.36 * fv + 2.0 * 0.64 * fc;
     let x = 0.05 / ssf;
-    let sum_n0sf = |p: f64| 5.0 * p / 9.0 * fd - 0.6 * (2.0 * p / 3.0) * fv
-        + 0.8 * (8.0 * p / 9.0) * fc
-        - 0.8 * (4.0 * p / 9.0) * fc;
+    let sum_n0sf = |p: f64| {
+        5.0 * p / 9.0 * fd - 0.6 * (2.0 * p / 3.0) * fv + 0.8 * (8.0 * p / 9.0) * fc
+            - 0.8 * (4.0 * p / 9.0) * fc
+    };
     let text = pratt(
         ", tension_only: true, slack: \"-0.05 in\"",
         TO,
@@ -130,7 +146,11 @@ fn drawn_up_counter_taut_then_slack() {
     let nb = x - sum_n0sf(2.0) / ssf;
     assert!(nb > 0.0);
     assert_close!(force(&m, &a, 1, "b"), nb, 1e-6);
-    assert_close!(force(&m, &a, 1, "a") - force(&m, &a, 1, "b"), 10.0 / 9.0, 1e-9);
+    assert_close!(
+        force(&m, &a, 1, "a") - force(&m, &a, 1, "b"),
+        10.0 / 9.0,
+        1e-9
+    );
     // Heavy: X − 0.2034·40 < 0, so b is slack; a = 5·40/9.
     assert!(x - sum_n0sf(40.0) / ssf < 0.0);
     assert!(force(&m, &a, 2, "b").abs() < 1e-9);
@@ -199,9 +219,18 @@ fn slack_validation_names_the_member() {
         r#"(id: "d", loads: [(node: "L1", fy: -1.0)])"#,
         "",
     );
-    let err = panelpoint::input::load_str(&text).err().expect("refused").to_string();
-    assert!(err.contains("member \"a\"") && err.contains("not tension_only"), "{err}");
-    assert!(err.contains("member \"b\"") && err.contains("30.0 in"), "{err}");
+    let err = panelpoint::input::load_str(&text)
+        .err()
+        .expect("refused")
+        .to_string();
+    assert!(
+        err.contains("member \"a\"") && err.contains("not tension_only"),
+        "{err}"
+    );
+    assert!(
+        err.contains("member \"b\"") && err.contains("30.0 in"),
+        "{err}"
+    );
 }
 
 /// The event-traced rating factor against a hand calculation (LRFR,
@@ -241,7 +270,10 @@ fn traced_rating_factor_by_hand() {
     // cases solved alone.
     let (d, l) = (force(&m, &a, 0, "a"), force(&m, &a, 1, "a") * 1.33);
     let superposed = (ra.capacity / KIP - 1.25 * d) / (1.75 * l);
-    assert!((superposed - hand).abs() > 0.01 * hand, "{superposed} vs {hand}");
+    assert!(
+        (superposed - hand).abs() > 0.01 * hand,
+        "{superposed} vs {hand}"
+    );
     // Rod b is relieved by the live load and slack under dead + live: a
     // "slack" row without a factor, never a compression check.
     let rb = row("b");
@@ -294,7 +326,12 @@ fn redundancy_with_a_slack_member() {
 #[test]
 fn loose_rod_takes_up_its_slack() {
     let cases = r#"(id: "left", loads: [(node: "L1", fy: -18.0)])"#;
-    let (m, a) = solve(&pratt(", tension_only: true, slack: \"0.05 in\"", TO, cases, ""));
+    let (m, a) = solve(&pratt(
+        ", tension_only: true, slack: \"0.05 in\"",
+        TO,
+        cases,
+        "",
+    ));
     let (_, tight) = solve(&pratt(TO, TO, cases, ""));
     assert_close!(force(&m, &a, 0, "a"), 10.0, 1e-9);
     assert!(force(&m, &a, 0, "b").abs() < 1e-9);
@@ -315,7 +352,10 @@ fn demo_model_never_pushes_an_eyebar() {
         assert!(r.relative_residual < 1e-9);
         assert!((r.load_sum[1] + r.reaction_sum[1]).abs() < 1e-6 * KIP);
     }
-    assert!(a.cases[0].forces[member(&m, "U4-L5")] == 0.0, "the loose counter");
+    assert!(
+        a.cases[0].forces[member(&m, "U4-L5")] == 0.0,
+        "the loose counter"
+    );
     let method = panelpoint::rate::choose_method(&m, None).unwrap();
     let r = panelpoint::rate::rate(&m, &a, method).unwrap();
     use panelpoint::capacity::Regime;
@@ -328,7 +368,11 @@ fn demo_model_never_pushes_an_eyebar() {
         }
     }
     assert!(slack_rows > 0);
-    for x in r.ratings.iter().filter(|x| m.members[x.member].tension_only) {
+    for x in r
+        .ratings
+        .iter()
+        .filter(|x| m.members[x.member].tension_only)
+    {
         assert_ne!(x.governs, "compression");
     }
     let low = r.lowest.map(|i| &r.ratings[i]).expect("a lowest factor");

@@ -82,8 +82,8 @@ impl<'a> Solver<'a> {
     pub fn new(model: &'a Model) -> Result<Solver<'a>, AnalysisError> {
         let dofs = Dofs::new(model);
         let pattern = stiffness(model, &dofs);
-        let symbolic = Symbolic::new(&pattern)
-            .map_err(|e| super::results::mechanism(model, &dofs, e))?;
+        let symbolic =
+            Symbolic::new(&pattern).map_err(|e| super::results::mechanism(model, &dofs, e))?;
         let full = (0..model.members.len())
             .map(|m| model.axial_stiffness(m))
             .collect();
@@ -214,11 +214,15 @@ impl<'a> Solver<'a> {
     /// elongations (once per state).
     pub fn with_slack(&self, case: &LoadCase) -> LoadCase {
         let mut c = case.clone();
-        c.elongations
-            .extend(self.model.slack.iter().map(|&(member, e)| InitialElongation {
-                member,
-                elongation: e,
-            }));
+        c.elongations.extend(
+            self.model
+                .slack
+                .iter()
+                .map(|&(member, e)| InitialElongation {
+                    member,
+                    elongation: e,
+                }),
+        );
         c
     }
 
@@ -371,11 +375,12 @@ pub fn factored_state(model: &Model, id: &str, terms: &[(usize, f64)]) -> LoadCa
     };
     for &(c, f) in terms {
         let case = &model.cases[c];
-        out.nodal.extend(case.nodal.iter().map(|l| crate::model::NodalLoad {
-            node: l.node,
-            fx: f * l.fx,
-            fy: f * l.fy,
-        }));
+        out.nodal
+            .extend(case.nodal.iter().map(|l| crate::model::NodalLoad {
+                node: l.node,
+                fx: f * l.fx,
+                fy: f * l.fy,
+            }));
         out.settlements
             .extend(case.settlements.iter().map(|s| crate::model::Settlement {
                 node: s.node,

@@ -396,11 +396,9 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             })?;
             if m.has_tension_only() {
                 // Combinations are solved whole: a failure is the model's.
-                analysis::active_set::combination_results(m).map_err(|source| {
-                    Error::Analysis {
-                        path: model.clone(),
-                        source,
-                    }
+                analysis::active_set::combination_results(m).map_err(|source| Error::Analysis {
+                    path: model.clone(),
+                    source,
                 })?;
             }
             let show = match show {

@@ -43,7 +43,10 @@ fn factor(path: &Path, m: &crate::model::Model) -> Result<(Prepared, Option<Stri
     };
     if m.has_tension_only() {
         let (p, slack) = crate::analysis::active_set::dead_prepared(m).map_err(err)?;
-        Ok((p, Some(crate::analysis::active_set::influence_label(&slack))))
+        Ok((
+            p,
+            Some(crate::analysis::active_set::influence_label(&slack)),
+        ))
     } else {
         Ok((Prepared::new(m).map_err(err)?, None))
     }

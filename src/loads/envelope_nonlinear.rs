@@ -112,11 +112,14 @@ pub fn merge(a: &LoadCase, b: &LoadCase, f: f64) -> LoadCase {
             dx: f * s.dx,
             dy: f * s.dy,
         }));
-    out.elongations
-        .extend(b.elongations.iter().map(|e| crate::model::InitialElongation {
-            member: e.member,
-            elongation: f * e.elongation,
-        }));
+    out.elongations.extend(
+        b.elongations
+            .iter()
+            .map(|e| crate::model::InitialElongation {
+                member: e.member,
+                elongation: f * e.elongation,
+            }),
+    );
     out
 }
 

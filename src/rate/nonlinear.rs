@@ -349,7 +349,11 @@ fn factored_dead(model: &Model, level: &Level, max: bool) -> (LoadCase, f64, f64
         .map(|&c| (c, gdc))
         .chain(dw.iter().map(|&c| (c, gdw)))
         .collect();
-    (factored_state(model, "factored dead load", &terms), gdc, gdw)
+    (
+        factored_state(model, "factored dead load", &terms),
+        gdc,
+        gdw,
+    )
 }
 
 /// The rating rows of one live load at one level: for each member the
@@ -397,7 +401,10 @@ fn rate_live(
         );
         for max in [true, false] {
             let (dead, gdc, gdw) = factored_dead(model, level, max);
-            for (m, r) in trace(solver, &dead, &scaled, &limits)?.into_iter().enumerate() {
+            for (m, r) in trace(solver, &dead, &scaled, &limits)?
+                .into_iter()
+                .enumerate()
+            {
                 let Some(r) = r else { continue };
                 if best[m].is_none_or(|b| r.lambda < b.0.lambda) {
                     best[m] = Some((r, gdc, gdw, pi));
@@ -502,7 +509,11 @@ pub(super) fn rate(
         "tension-only members (issue 16): every case, combination and vehicle position solved whole by the active-set iteration (superposition does not hold); combinations with their factors as written; rating factor = the live-load multiplier at which the member reaches its resistance with the factored dead load applied first, the slack members followed event by event (DC and DW shown together as DC); a slack member carries no force and is never checked in compression".into(),
     );
     let mut gave_way: Vec<String> = Vec::new();
-    for r in rating.ratings.iter().filter(|r| r.governs.starts_with("truss becomes")) {
+    for r in rating
+        .ratings
+        .iter()
+        .filter(|r| r.governs.starts_with("truss becomes"))
+    {
         let note = format!(
             "live load \"{}\" at the {} level: at RF {:.2} the truss itself becomes a mechanism (a panel's shear reverses where no counter can carry it, or a needed tension-only member goes slack); members that do not reach their resistance sooner are rated at that factor",
             r.live_id,
