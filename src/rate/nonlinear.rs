@@ -248,6 +248,11 @@ fn extremes(
     start: &[bool],
 ) -> Result<(Vec<f64>, Vec<f64>), AnalysisError> {
     let nm = solver.model().members.len();
+    if live.placements.is_empty() {
+        // The vehicle never stands on the deck: the base state alone.
+        let s = solver.solve(base, Some(start))?;
+        return Ok((s.result.forces.clone(), s.result.forces));
+    }
     let (mut hi, mut lo) = (vec![f64::NEG_INFINITY; nm], vec![f64::INFINITY; nm]);
     for (p, _) in &live.placements {
         let s = solver.solve(&merge(base, p, factor), Some(start))?;
