@@ -397,3 +397,53 @@ fn command_line_on_the_demo() {
     assert_eq!(code, 0, "{err}");
     assert!(out.contains("dead-load active set"), "{out}");
 }
+
+/// A combination is solved as the whole factored load, not summed. D = 18
+/// kip at L2 alone puts rod b in tension (panel shear R0 = D/3: N_b =
+/// 5D/9), P = 6 kip at L1 alone rod a (5P/9). Together, 1.25·D + 1.75·P,
+/// the panel shear by statics is V = R0 − 1.75P with R0 = (1.25D + 2·1.75P)/3,
+/// V = (1.25D − 1.75P)/3 = (22.5 − 10.5)/3 = 4 kip: b carries V/sin θ =
+/// 6.667 kip and a is slack, where the sum of the cases would give
+/// a = 1.75·5P/9 = 5.833 and b = 1.25·5D/9 = 12.5 kip. With the dead case at
+/// LRFR's minimum 0.90 (also tried by `rate`) both rods stay taut (the
+/// redundant's share keeps a in tension), and statics still fix their
+/// difference: N_b − N_a = V/sin θ, V = (16.2 − 10.5)/3 = 1.9 kip. Each
+/// member keeps the more severe state: b = 6.667 kip.
+#[test]
+fn combination_is_solved_whole() {
+    use panelpoint::analysis::active_set::{factored_state, Solver};
+    let text = pratt(
+        TO,
+        TO,
+        r#"(id: "d", kind: Dead, loads: [(node: "L2", fy: -18.0)]),
+           (id: "l", kind: Live, loads: [(node: "L1", fy: -6.0)])"#,
+        "",
+    )
+    .replace(
+        "    load_cases:",
+        r#"    combinations: [(id: "c", factors: [("d", 1.25), ("l", 1.75)])],
+    load_cases:"#,
+    );
+    let (m, a) = solve(&text);
+    assert_close!(force(&m, &a, 0, "b"), 10.0, 1e-9);
+    assert_close!(force(&m, &a, 1, "a"), 10.0 / 3.0, 1e-9);
+    let (ia, ib) = (member(&m, "a"), member(&m, "b"));
+    let solver = Solver::new(&m).unwrap();
+    let full = solver
+        .solve(&factored_state(&m, "full", &[(0, 1.25), (1, 1.75)]), None)
+        .unwrap();
+    assert_eq!(full.slack_ids(&m), vec!["a".to_string()]);
+    assert_close!(full.result.forces[ib] / KIP, 4.0 / SIN, 1e-9);
+    let low = solver
+        .solve(&factored_state(&m, "low", &[(0, 0.9), (1, 1.75)]), None)
+        .unwrap();
+    let (la, lb) = (low.result.forces[ia] / KIP, low.result.forces[ib] / KIP);
+    assert!(la > 0.0 && lb > 0.0, "both taut: {la} {lb}");
+    assert_close!(lb - la, 1.9 / SIN, 1e-9);
+    let method = panelpoint::rate::choose_method(&m, Some("lrfr")).unwrap();
+    let r = panelpoint::rate::rate(&m, &a, method).unwrap();
+    let c = r.effects.iter().find(|e| e.id == "c").unwrap();
+    assert_close!(c.forces[ib] / KIP, 4.0 / SIN, 1e-9);
+    assert_close!(c.forces[ia] / KIP, la, 1e-9);
+    assert!(c.forces[ia] / KIP < 1.75 * 5.0 * 6.0 / 9.0);
+}

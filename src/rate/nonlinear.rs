@@ -4,9 +4,10 @@
 //!
 //! - load cases: as solved by `analyse` (each on its own);
 //! - combinations: the whole factored load as one state (live cases times
-//!   factor·(1 + impact)); the minimum dead-load factor where a dead case
-//!   relieves the live part is not applied member by member (it cannot be,
-//!   in one state): the factors are taken as written;
+//!   factor·(1 + impact)); where the method's minimum dead-load factors are
+//!   below the written ones, the state with the dead cases at those minima
+//!   too, each member taking the more severe of the two (the linear path
+//!   applies the minimum member by member where the dead load relieves);
 //! - moving loads: at every front-axle position of
 //!   [`moving::positions`](crate::loads::moving::positions), each train of
 //!   the vehicle and both directions, the dead load plus the axles times
@@ -266,12 +267,62 @@ fn extremes(
 
 /// Load cases as analysed, combinations solved whole, and the moving loads'
 /// envelopes of states solved whole.
+/// |force| over the member's resistance in the sense of the force (a
+/// tension-only member has none in compression: it is slack).
+fn utilization(cap: &MemberCapacity, force: f64) -> f64 {
+    if force >= 0.0 {
+        force / cap.tension_capacity
+    } else {
+        -force / cap.compression.capacity
+    }
+}
+
+/// A combination's state with its dead cases at the method's minimum
+/// factors, where a written factor is above them; None when none is.
+fn relieved_state(
+    model: &Model,
+    combo: &crate::model::Combination,
+    relief: super::Relief,
+) -> Option<LoadCase> {
+    let mut changed = false;
+    let factors: Vec<(usize, f64)> = combo
+        .factors
+        .iter()
+        .map(|&(c, f)| {
+            let min = match model.cases[c].kind {
+                CaseKind::Dead => relief.dc,
+                CaseKind::Wearing => relief.dw,
+                _ => return (c, f),
+            };
+            if f > min {
+                changed = true;
+                (c, min)
+            } else {
+                (c, f)
+            }
+        })
+        .collect();
+    let relieved = crate::model::Combination {
+        factors,
+        ..combo.clone()
+    };
+    changed.then(|| combination_state(model, &relieved))
+}
+
+/// Load cases as analysed, combinations solved whole (also with the dead
+/// cases at the method's minimum factors, the more severe kept), and the
+/// moving loads' envelopes of states solved whole. Also the ids of the
+/// combinations where the minimum factors were tried.
+#[allow(clippy::too_many_arguments)]
 fn effects(
     model: &Model,
     results: &[CaseResult],
     solver: &Solver,
     lives: &[Live],
     dead_slack: &[bool],
+    members: &[MemberCapacity],
+    relief: Option<super::Relief>,
+    relieved: &mut Vec<String>,
 ) -> Result<Vec<LoadEffect>, RateError> {
     let mut out: Vec<LoadEffect> = model
         .cases
@@ -288,16 +339,34 @@ fn effects(
         })
         .collect();
     for (ci, combo) in model.combinations.iter().enumerate() {
+        // The factors as written and, where the method has minimum
+        // permanent-load factors below them, the dead cases at those minima
+        // (AASHTO LRFD 3.4.1: a dead load that relieves the effect at its
+        // least): each member takes the more severe of the two states.
         let state = combination_state(model, combo);
+        let low = relief.and_then(|r| relieved_state(model, combo, r));
+        if low.is_some() {
+            relieved.push(combo.id.clone());
+        }
         if combo.moving.is_empty() {
             let s = solver.solve(&state, Some(dead_slack))?;
+            let mut forces = s.result.forces;
+            if let Some(low) = &low {
+                let t = solver.solve(low, Some(dead_slack))?;
+                for (m, f) in forces.iter_mut().enumerate() {
+                    let g = t.result.forces[m];
+                    if utilization(&members[m], g) > utilization(&members[m], *f) {
+                        *f = g;
+                    }
+                }
+            }
             out.push(LoadEffect {
                 id: combo.id.clone(),
                 case: None,
                 moving: None,
                 factored: true,
                 combination: Some((ci, None)),
-                forces: s.result.forces,
+                forces,
             });
             continue;
         }
@@ -305,7 +374,12 @@ fn effects(
             let Some(live) = lives.iter().find(|l| l.moving == Some(k)) else {
                 continue;
             };
-            let (hi, lo) = extremes(solver, &state, live, factor, dead_slack)?;
+            let (mut hi, mut lo) = extremes(solver, &state, live, factor, dead_slack)?;
+            if let Some(low) = &low {
+                let (h2, l2) = extremes(solver, low, live, factor, dead_slack)?;
+                hi.iter_mut().zip(h2).for_each(|(a, b)| *a = a.max(b));
+                lo.iter_mut().zip(l2).for_each(|(a, b)| *a = a.min(b));
+            }
             for (side, forces) in [(Side::Tension, hi), (Side::Compression, lo)] {
                 out.push(LoadEffect {
                     id: format!(
@@ -486,7 +560,17 @@ pub(super) fn rate(
     let solver = Solver::new(model)?;
     let dead = solver.solve(&dead_state(model), None)?;
     let lives = live_loads(model)?;
-    let effects = effects(model, results, &solver, &lives, &dead.slack)?;
+    let mut relieved = Vec::new();
+    let effects = effects(
+        model,
+        results,
+        &solver,
+        &lives,
+        &dead.slack,
+        &members,
+        super::Relief::of(&method),
+        &mut relieved,
+    )?;
     let mut ratings = Vec::new();
     if method.rates {
         for live in &lives {
@@ -510,8 +594,13 @@ pub(super) fn rate(
         }
     }
     let mut rating = super::finish(model, method, members, effects, Vec::new(), ratings)?;
+    for id in relieved {
+        rating.notes.push(format!(
+            "combination \"{id}\": solved also with its dead cases at the method's minimum factors (AASHTO LRFD 3.4.1 for LRFR), each member taking the more severe of the two states"
+        ));
+    }
     rating.notes.push(
-        "tension-only members (issue 16): every case, combination and vehicle position solved whole by the active-set iteration (superposition does not hold); combinations with their factors as written; rating factor = the live-load multiplier at which the member reaches its resistance with the factored dead load applied first, the slack members followed event by event (DC and DW shown together as DC); a slack member carries no force and is never checked in compression".into(),
+        "tension-only members (issue 16): every case, combination and vehicle position solved whole by the active-set iteration (superposition does not hold); rating factor = the live-load multiplier at which the member reaches its resistance with the factored dead load applied first, the slack members followed event by event (DC and DW shown together as DC); a slack member carries no force and is never checked in compression".into(),
     );
     let mut gave_way: Vec<String> = Vec::new();
     for r in rating
