@@ -139,6 +139,9 @@ pub struct Member {
     /// Unbraced lengths in and out of plane, m (None: the member length).
     pub unbraced_in: Option<f64>,
     pub unbraced_out: Option<f64>,
+    /// Carries tension only: slack when it would be compressed (eyebars,
+    /// rods, counters; `analysis::active_set`).
+    pub tension_only: bool,
 }
 
 /// How a support holds its node.
@@ -255,6 +258,10 @@ pub struct Model {
     pub fatigue: Option<crate::fatigue::Settings>,
     /// Rigid joints, U-frames and vibration data (defaults when not given).
     pub stability: crate::stability::Settings,
+    /// Initial slack of tension-only members, kept sparsely: (member index,
+    /// stress-free elongation e₀, m). Positive: longer than the distance
+    /// between its nodes (slack); negative: drawn up (initial tension).
+    pub slack: Vec<(usize, f64)>,
 }
 
 /// A named linear combination of load cases: Σ factor × case (live cases
@@ -298,6 +305,12 @@ impl Model {
         self.dead_cases()
             .into_iter()
             .partition(|&c| self.cases[c].kind != CaseKind::Wearing)
+    }
+
+    /// Whether any member is tension-only: the analysis is then the
+    /// active-set iteration and superposition no longer holds.
+    pub fn has_tension_only(&self) -> bool {
+        self.members.iter().any(|m| m.tension_only)
     }
 
     /// Length of member `m`, m.

@@ -2,6 +2,7 @@
 //! per-case results. It does no I/O and, on a validated model, fails only
 //! for a mechanism, which it names by node and direction.
 
+pub mod active_set;
 pub mod assemble;
 pub mod conditioning;
 pub mod dofs;

@@ -31,6 +31,22 @@ pub enum AnalysisError {
     IllConditioned { node: String, direction: String },
     #[error("the sparse factorization failed for want of memory or a malformed matrix")]
     Internal,
+    /// Issue 16: with its slack tension-only members out, the truss cannot
+    /// carry the load state (`analysis::active_set`).
+    #[error("{state}: with the tension-only members {slack} slack the truss is a mechanism: {motion}; that load cannot be carried by tension in those members, add a member that can push or check the loads")]
+    SlackMechanism {
+        state: String,
+        slack: String,
+        motion: String,
+    },
+    /// Issue 16: the active-set iteration came back to a set of slack
+    /// members it had already tried.
+    #[error("{state}: the tension-only iteration is cycling (slack members {slack} came back after {iterations} iterations); the state is too close to a member's zero force to decide, adjust the slack or the loads slightly")]
+    Cycling {
+        state: String,
+        slack: String,
+        iterations: usize,
+    },
     /// A force, displacement or reaction overflowed (issue 22, item 12): an
     /// error rather than a number the checks would treat as zero.
     #[error("load case \"{case}\": a {what} is not a finite number (overflow); the loads, properties or factors are out of range")]
@@ -126,7 +142,7 @@ pub struct Analysis {
 /// The error for a failed factorization: a mechanism named by the node and
 /// direction that move most in its free motion (the null vector of K), or
 /// a rigid-body motion of the whole truss.
-fn mechanism(model: &Model, dofs: &Dofs, e: FactorError) -> AnalysisError {
+pub(crate) fn mechanism(model: &Model, dofs: &Dofs, e: FactorError) -> AnalysisError {
     use super::mechanism::{direction_name, free_motion, nearest_node, Rigid};
     match e {
         FactorError::Singular {
@@ -207,13 +223,26 @@ impl Prepared {
         k: Csc,
         symbolic: &Symbolic,
     ) -> Result<Prepared, AnalysisError> {
+        let stiff = (0..model.members.len())
+            .map(|m| model.axial_stiffness(m))
+            .collect();
+        Self::with_stiffness(model, dofs, k, symbolic, stiff)
+    }
+
+    /// [`Prepared::with_symbolic`] with each member's axial stiffness given
+    /// (`k` assembled with the same): zero for a slack tension-only member
+    /// of the active-set iteration, which then carries no force.
+    pub fn with_stiffness(
+        model: &Model,
+        dofs: Dofs,
+        k: Csc,
+        symbolic: &Symbolic,
+        stiff: Vec<f64>,
+    ) -> Result<Prepared, AnalysisError> {
         let factor = crate::timing::stage("numeric factorization", || symbolic.factor(&k))
             .map_err(|e| mechanism(model, &dofs, e))?;
         let rows = (0..model.members.len())
             .map(|m| b_row(model, &dofs, m))
-            .collect();
-        let stiff = (0..model.members.len())
-            .map(|m| model.axial_stiffness(m))
             .collect();
         let dirs = (0..model.members.len())
             .map(|m| model.direction(m))
@@ -529,6 +558,10 @@ pub fn analyse_beside<T: Send>(
 
 fn analyse_with(model: &Model, beside: impl FnOnce() + Send) -> Result<Analysis, AnalysisError> {
     use super::conditioning;
+    if model.has_tension_only() {
+        beside();
+        return super::active_set::analyse(model);
+    }
     use crate::timing::stage;
     let dofs = stage("DOF numbering", || Dofs::new(model));
     let k = stage("assembly", || stiffness(model, &dofs));

@@ -230,6 +230,9 @@ pub enum Regime {
     Elastic,
     Inelastic,
     Tension,
+    /// A tension-only member (rod, eyebar, counter) that is slack: no
+    /// force, never checked in compression (issue 16).
+    Slack,
 }
 
 impl Regime {
@@ -238,6 +241,7 @@ impl Regime {
             Regime::Elastic => "elastic",
             Regime::Inelastic => "inelastic",
             Regime::Tension => "tension",
+            Regime::Slack => "slack",
         }
     }
 }

@@ -394,6 +394,13 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
                 path: model.clone(),
                 source,
             })?;
+            if m.has_tension_only() {
+                // Combinations are solved whole: a failure is the model's.
+                analysis::active_set::combination_results(m).map_err(|source| Error::Analysis {
+                    path: model.clone(),
+                    source,
+                })?;
+            }
             let show = match show {
                 ShowArg::Forces => report::svg::Show::Forces,
                 ShowArg::Utilization => report::svg::Show::Utilization,

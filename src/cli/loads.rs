@@ -16,11 +16,9 @@ fn prepare(
     c: &mut crate::input::Converted,
     format: Format,
 ) -> Result<Prepared, Error> {
-    let p = Prepared::new(&c.model).map_err(|source| Error::Analysis {
-        path: path.to_path_buf(),
-        source,
-    })?;
-    let warnings = crate::analysis::results::prepared_warnings(&c.model, &p);
+    let (p, label) = factor(path, &c.model)?;
+    let mut warnings = crate::analysis::results::prepared_warnings(&c.model, &p);
+    warnings.extend(label);
     if format == Format::Csv {
         super::commands::warnings_to_stderr(path, &c.warnings, &warnings);
     }
@@ -34,6 +32,24 @@ fn prepare(
             }),
     );
     Ok(p)
+}
+
+/// The model's factorization: with tension-only members that of the
+/// dead-load active set, with the label the output carries (issue 16).
+fn factor(path: &Path, m: &crate::model::Model) -> Result<(Prepared, Option<String>), Error> {
+    let err = |source| Error::Analysis {
+        path: path.to_path_buf(),
+        source,
+    };
+    if m.has_tension_only() {
+        let (p, slack) = crate::analysis::active_set::dead_prepared(m).map_err(err)?;
+        Ok((
+            p,
+            Some(crate::analysis::active_set::influence_label(&slack)),
+        ))
+    } else {
+        Ok((Prepared::new(m).map_err(err)?, None))
+    }
 }
 
 fn loads_error(path: &Path) -> impl Fn(LoadError) -> Error + '_ {
@@ -96,10 +112,7 @@ pub fn influence_strips(
     let deck = Deck::of_model(m).map_err(loads_error(path))?;
     // The drawing's own warnings are printed by `draw`; only the factor is
     // needed here.
-    let prepared = Prepared::new(m).map_err(|source| Error::Analysis {
-        path: path.to_path_buf(),
-        source,
-    })?;
+    let (prepared, label) = factor(path, m)?;
     let lines = loads::influence_lines(m, &prepared, &deck).map_err(loads_error(path))?;
     let mut out = Vec::with_capacity(ids.len());
     for id in ids {
@@ -109,7 +122,10 @@ pub fn influence_strips(
             .position(|x| x.id == *id)
             .ok_or_else(|| loads_error(path)(LoadError::UnknownMember(id.clone())))?;
         out.push(crate::report::svg::InfluenceLine {
-            name: format!("force in {id}, tension +"),
+            name: match &label {
+                None => format!("force in {id}, tension +"),
+                Some(_) => format!("force in {id}, tension + (dead-load active set)"),
+            },
             unit: "per unit load moving along the deck".into(),
             ordinates: deck
                 .nodes
@@ -130,7 +146,12 @@ pub fn envelope(path: &Path, format: Format, out: &Option<PathBuf>) -> Result<u8
     }
     let prepared = prepare(path, &mut c, format)?;
     let m = &c.model;
-    let envs = loads::envelopes(m, &prepared).map_err(loads_error(path))?;
+    let envs = if m.has_tension_only() {
+        loads::envelope_nonlinear::envelopes(m)
+    } else {
+        loads::envelopes(m, &prepared)
+    }
+    .map_err(loads_error(path))?;
     write(out, |w| match format {
         Format::Text => influence_text::envelopes(w, m, &envs, &c.warnings),
         Format::Json => influence_json::envelopes(w, m, &envs, &c.warnings),

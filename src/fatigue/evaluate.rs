@@ -160,7 +160,15 @@ pub fn evaluate(model: &Model, prepared: &Prepared) -> Result<Fatigue, FatigueEr
 
 /// [`evaluate`] building its own factorization.
 pub fn evaluate_model(model: &Model) -> Result<Fatigue, FatigueError> {
-    let prepared = Prepared::new(model).map_err(LoadError::Analysis)?;
+    // Tension-only members: the influence lines of the dead-load active set
+    // (issue 16; they hold while that set does).
+    let prepared = if model.has_tension_only() {
+        crate::analysis::active_set::dead_prepared(model)
+            .map(|(p, _)| p)
+            .map_err(LoadError::Analysis)?
+    } else {
+        Prepared::new(model).map_err(LoadError::Analysis)?
+    };
     evaluate(model, &prepared)
 }
 

@@ -509,6 +509,26 @@ impl<'a> Row<'a> {
         }
     }
 
+    /// `true` or `false`, ending at a blank, comma, parenthesis or comment.
+    fn boolean(&mut self) -> Option<bool> {
+        let rest = &self.b[self.i..];
+        let (v, n) = if rest.starts_with(b"true") {
+            (true, 4)
+        } else if rest.starts_with(b"false") {
+            (false, 5)
+        } else {
+            return None;
+        };
+        if !matches!(
+            rest.get(n),
+            Some(b' ' | b'\t' | b'\n' | b'\r' | b',' | b')' | b'/')
+        ) {
+            return None;
+        }
+        self.i += n;
+        Some(v)
+    }
+
     /// A bare number or a string with its unit.
     fn quantity(&mut self) -> Option<Quantity> {
         if self.b.get(self.i) == Some(&b'"') {
@@ -548,7 +568,7 @@ fn node(r: &mut Row) -> Option<NodeFile> {
 fn member(r: &mut Row) -> Option<MemberFile> {
     let (mut id, mut start, mut end, mut section, mut material) = (None, None, None, None, None);
     let (mut k_in, mut k_out, mut unbraced_in, mut unbraced_out) = (None, None, None, None);
-    let mut detail = None;
+    let (mut detail, mut tension_only, mut slack) = (None, None, None);
     r.fields(|r, name| match name {
         b"id" => once(&mut id, r.id()),
         b"start" => once(&mut start, r.id()),
@@ -560,6 +580,8 @@ fn member(r: &mut Row) -> Option<MemberFile> {
         b"unbraced_in" => once(&mut unbraced_in, r.quantity()),
         b"unbraced_out" => once(&mut unbraced_out, r.quantity()),
         b"detail" => once(&mut detail, r.string()),
+        b"tension_only" => once(&mut tension_only, r.boolean()),
+        b"slack" => once(&mut slack, r.quantity()),
         _ => None,
     })?;
     Some(MemberFile {
@@ -573,6 +595,8 @@ fn member(r: &mut Row) -> Option<MemberFile> {
         unbraced_in,
         unbraced_out,
         detail,
+        tension_only: tension_only.unwrap_or(false),
+        slack,
     })
 }
 

@@ -359,7 +359,7 @@ impl PlainRefs<'_, '_> {
             Some(k) if k.is_finite() && k > 0.0 => Some(k),
             Some(_) => None,
         };
-        if m.unbraced_in.is_some() || m.unbraced_out.is_some() {
+        if m.unbraced_in.is_some() || m.unbraced_out.is_some() || m.slack.is_some() {
             return None;
         }
         Some(Member {
@@ -372,6 +372,7 @@ impl PlainRefs<'_, '_> {
             k_out: good(m.k_out)?,
             unbraced_in: None,
             unbraced_out: None,
+            tension_only: m.tension_only,
         })
     }
 }
@@ -636,6 +637,7 @@ pub fn convert_deferred(
     } else {
         (Vec::with_capacity(file.members.len()), plain)
     };
+    let mut slack = Vec::new();
     for (m, plain) in file.members.iter().zip(plain) {
         if let Some(member) = plain {
             members.push(member);
@@ -705,6 +707,32 @@ pub fn convert_deferred(
             };
             let unbraced_in = len(&mut ctx, &m.unbraced_in, "unbraced_in");
             let unbraced_out = len(&mut ctx, &m.unbraced_out, "unbraced_out");
+            if let Some(q) = &m.slack {
+                let what = Field("member", &m.id, "slack");
+                let at = ctx.locate("id", &m.id, 0);
+                if !m.tension_only {
+                    ctx.error(
+                        format!("{what} is given but the member is not tension_only: true; only a tension-only member (rod, eyebar, counter) can be slack"),
+                        at,
+                    );
+                } else if let Some(v) = value(&mut ctx, q, Dimension::Length, u, &what, at) {
+                    if v.abs() >= 0.1 * l {
+                        let (sec, len) = (u.section, u.length);
+                        ctx.error(
+                            format!(
+                                "{what} {} {} is not less than a tenth of the member's length {} {}; give the slack or draw-up of the turnbuckle, not a length",
+                                crate::units::plain(v / sec.to_si),
+                                sec.name,
+                                crate::units::plain(l / len.to_si),
+                                len.name
+                            ),
+                            at,
+                        );
+                    } else if v != 0.0 {
+                        slack.push((members.len(), v));
+                    }
+                }
+            }
             members.push(Member {
                 id: m.id.clone(),
                 start: s,
@@ -715,6 +743,7 @@ pub fn convert_deferred(
                 k_out,
                 unbraced_in,
                 unbraced_out,
+                tension_only: m.tension_only,
             });
         }
     }
@@ -1010,6 +1039,7 @@ pub fn convert_deferred(
         live,
         fatigue,
         stability,
+        slack,
     };
     lap.mark("isolated nodes");
     Ok((

@@ -310,6 +310,15 @@ pub struct MemberFile {
     /// ("71"), or both ("D 71").
     #[serde(default)]
     pub detail: Option<String>,
+    /// Carries tension only (eyebar, rod, counter): slack when it would be
+    /// compressed (issue 16; `analysis/active_set.rs`).
+    #[serde(default)]
+    pub tension_only: bool,
+    /// Of a tension-only member: how much longer than the distance between
+    /// its pins it is when unloaded (slack); negative when drawn up by its
+    /// turnbuckle (an initial tension, as a lack of fit).
+    #[serde(default)]
+    pub slack: Option<Quantity>,
 }
 
 #[derive(Debug, Deserialize)]

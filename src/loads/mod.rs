@@ -5,6 +5,7 @@
 
 pub mod distribution;
 pub mod envelope;
+pub mod envelope_nonlinear;
 pub mod influence;
 pub mod library;
 pub mod moving;
@@ -346,6 +347,9 @@ pub enum LoadError {
     /// An envelope value overflowed (issue 22, item 12).
     #[error("moving load \"{id}\": the envelope of {of} is not a finite number (overflow); the axle loads or impact are out of range")]
     NonFinite { id: String, of: String },
+    /// Issue 16: a load the tension-only analysis cannot place faithfully.
+    #[error("moving load \"{id}\": {what} cannot be rolled over a truss with tension-only members yet (the nonlinear analysis places axle trains only, each position solved with the dead load); rate it with an axle train of its own")]
+    TensionOnlyMoving { id: String, what: &'static str },
     #[error(transparent)]
     Analysis(#[from] AnalysisError),
 }

@@ -78,6 +78,7 @@ mod tests {
             k_out: 1.0,
             unbraced_in: None,
             unbraced_out: None,
+            tension_only: false,
         }];
         let sections = vec![Section {
             id: "s".into(),

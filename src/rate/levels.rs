@@ -17,20 +17,26 @@ struct Demand {
     live: f64,
 }
 
-/// RF of one member at one level (None when the live force is negligible
-/// or the inputs are not finite):
-/// RF = (φc·φs·φ·Rn − γDC·DC·s − γDW·DW·s) / (γL·|L|), s = sign(L), each γ
-/// at its maximum where its load adds to the live effect and its minimum
-/// where it relieves it. For LFR and ASR the same form with A1, A2 or 1.0.
-fn rate_one(
+/// A member's resistance at one level in one sense, with its factors.
+pub(super) struct SideCapacity {
+    pub nominal: f64,
+    pub phi: f64,
+    pub governs: &'static str,
+    pub rp: f64,
+    pub u: f64,
+    /// φc·φs·φ·Rn (·Rp), N.
+    pub capacity: f64,
+}
+
+/// The resistance of `cap` at `level` in tension or in compression.
+pub(super) fn side_capacity(
     method: &Method,
     level: &Level,
     cap: &MemberCapacity,
-    d: &Demand,
-) -> (Option<f64>, MemberRating) {
-    let s = if d.live >= 0.0 { 1.0 } else { -1.0 };
+    tension: bool,
+) -> SideCapacity {
     let r = &level.resistance;
-    let (nominal, phi, governs, rp, u) = if d.live >= 0.0 {
+    let (nominal, phi, governs, rp, u) = if tension {
         let (_, governs) = cap.tension_at(r);
         if governs == "fracture" {
             let rp = if r.uses_rp { cap.rp } else { 1.0 };
@@ -60,7 +66,36 @@ fn rate_one(
         )
     };
     let cs = method.condition_system(level);
-    let capacity = cs * phi * nominal * rp;
+    SideCapacity {
+        nominal,
+        phi,
+        governs,
+        rp,
+        u,
+        capacity: cs * phi * nominal * rp,
+    }
+}
+
+/// RF of one member at one level (None when the live force is negligible
+/// or the inputs are not finite):
+/// RF = (φc·φs·φ·Rn − γDC·DC·s − γDW·DW·s) / (γL·|L|), s = sign(L), each γ
+/// at its maximum where its load adds to the live effect and its minimum
+/// where it relieves it. For LFR and ASR the same form with A1, A2 or 1.0.
+fn rate_one(
+    method: &Method,
+    level: &Level,
+    cap: &MemberCapacity,
+    d: &Demand,
+) -> (Option<f64>, MemberRating) {
+    let s = if d.live >= 0.0 { 1.0 } else { -1.0 };
+    let SideCapacity {
+        nominal,
+        phi,
+        governs,
+        rp,
+        u,
+        capacity,
+    } = side_capacity(method, level, cap, d.live >= 0.0);
     let gamma_dc = level.dc.applied(d.dc, s);
     let gamma_dw = level.dw.applied(d.dw, s);
     let denominator = level.gamma_live * d.live.abs();
@@ -87,7 +122,7 @@ fn rate_one(
         phi,
         phi_c: method.phi_c,
         phi_s: method.phi_s,
-        phi_cs: cs,
+        phi_cs: method.condition_system(level),
         rp,
         u,
         clause: level.clause,

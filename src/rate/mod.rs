@@ -12,6 +12,7 @@ mod combine;
 pub mod lacing;
 mod levels;
 pub mod modes;
+mod nonlinear;
 mod notes;
 pub mod single_angle;
 
@@ -37,6 +38,10 @@ pub enum RateError {
     NonFinite { effect: String, member: String },
     #[error("{0}")]
     Joint(#[from] crate::joint::JointError),
+    /// The active-set analysis of a model with tension-only members failed
+    /// for a combination or a vehicle position (issue 16).
+    #[error("{0}")]
+    Analysis(#[from] crate::analysis::results::AnalysisError),
     #[error("member \"{member}\": {source}")]
     Capacity {
         member: String,
@@ -193,6 +198,9 @@ pub fn choose_method(model: &Model, cli: Option<&str>) -> Result<Method, String>
 
 /// Check every member under every case and combination, and rate it.
 pub fn rate(model: &Model, analysis: &Analysis, method: Method) -> Result<Rating, RateError> {
+    if model.has_tension_only() {
+        return nonlinear::rate(model, &analysis.cases, method);
+    }
     let envelopes = moving_envelopes(model, &analysis.prepared)?;
     let mut rating = rate_results(model, &analysis.cases, method, &envelopes)?;
     rating.joints = crate::joint::rate_joints(model, analysis, &rating, &envelopes)?;
@@ -207,6 +215,9 @@ pub fn moving_envelopes(
 ) -> Result<Vec<crate::loads::MovingEnvelope>, RateError> {
     if model.live.moving.is_empty() {
         Ok(Vec::new())
+    } else if model.has_tension_only() {
+        // Each vehicle position solved whole with the dead load.
+        Ok(crate::loads::envelope_nonlinear::envelopes(model)?)
     } else {
         Ok(crate::loads::envelopes(model, prepared)?)
     }
@@ -220,6 +231,12 @@ pub fn rate_results(
     method: Method,
     envelopes: &[crate::loads::MovingEnvelope],
 ) -> Result<Rating, RateError> {
+    if model.has_tension_only() {
+        // Superposition does not hold: the combinations and vehicle
+        // positions are solved whole (`nonlinear.rs`); `results` must come
+        // from the active-set analysis (`analysis::analyse`).
+        return nonlinear::rate(model, results, method);
+    }
     let members = (0..model.members.len())
         .map(|m| member_capacity(model, m, &method))
         .collect::<Result<Vec<_>, _>>()?;
@@ -228,6 +245,24 @@ pub fn rate_results(
     let (moving, more) = combine::moving_effects_relieved(model, results, envelopes, relief);
     effects.extend(moving);
     relieved.extend(more);
+    let ratings = if method.rates {
+        levels::rate_live_loads(model, results, envelopes, &method, &members)
+    } else {
+        Vec::new()
+    };
+    finish(model, method, members, effects, relieved, ratings)
+}
+
+/// The rating from its effects and rating rows: the checks, the
+/// controlling check, the lowest factors, postings and notes.
+fn finish(
+    model: &Model,
+    method: Method,
+    members: Vec<MemberCapacity>,
+    effects: Vec<LoadEffect>,
+    relieved: Vec<String>,
+    ratings: Vec<MemberRating>,
+) -> Result<Rating, RateError> {
     for e in &effects {
         if let Some(m) = e.forces.iter().position(|f| !f.is_finite()) {
             return Err(RateError::NonFinite {
@@ -236,11 +271,6 @@ pub fn rate_results(
             });
         }
     }
-    let ratings = if method.rates {
-        levels::rate_live_loads(model, results, envelopes, &method, &members)
-    } else {
-        Vec::new()
-    };
     let checks = check_rows(model, &effects, &members, &method, &ratings);
     let controlling = controlling(&checks);
     let lowest_by_level = levels::lowest_by_level(&method, &ratings);
@@ -296,7 +326,10 @@ fn check_rows(
             };
             let area = model.sections[model.members[m].section].area;
             let stress = force / area;
-            let (regime, capacity, critical) = if force > 0.0 {
+            let slack = model.members[m].tension_only && force <= 0.0;
+            let (regime, capacity, critical) = if slack {
+                (Regime::Slack, cap.tension_capacity, 0.0)
+            } else if force > 0.0 {
                 (
                     Regime::Tension,
                     cap.tension_capacity,

@@ -92,13 +92,18 @@ pub(super) fn member_notes(
             } else {
                 AASHTO_TENSION_LIMIT
             };
-            if bridge_code(method) && cap.slenderness_unit_k() > limit {
+            // Not for eyebars, rods and bars, which the article exempts
+            // (AASHTO LRFD 6.8.4, from memory): the tension-only members.
+            if bridge_code(method)
+                && !model.members[m].tension_only
+                && cap.slenderness_unit_k() > limit
+            {
                 notes.push(format!(
                     "member \"{id}\": L/r = {:.1} exceeds the limit of {limit:.0} for main tension members{} (AASHTO LRFD 6.8.4)",
                     cap.slenderness_unit_k(),
                     if compressed { " subject to stress reversal" } else { "" }
                 ));
-            } else if !compressed {
+            } else if !compressed && !model.members[m].tension_only {
                 if let Some(w) = capacity::slenderness_warning(cap.slenderness_unit_k(), false) {
                     notes.push(format!("member \"{id}\": {w}"));
                 }

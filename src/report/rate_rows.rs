@@ -39,7 +39,10 @@ pub fn check_row<'a>(model: &'a Model, r: &'a Rating, c: &Check) -> CheckRow<'a>
     let s = Scale::of(model);
     let cap = &r.members[c.member];
     let area = model.sections[model.members[c.member].section].area;
-    let tension = c.regime == Regime::Tension;
+    // A slack tension-only member is shown against its tension resistance:
+    // it is never checked in compression (issue 16).
+    let slack = c.regime == Regime::Slack;
+    let tension = c.regime == Regime::Tension || slack;
     CheckRow {
         member: &model.members[c.member].id,
         case: &r.effects[c.effect].id,
@@ -71,7 +74,9 @@ pub fn check_row<'a>(model: &'a Model, r: &'a Rating, c: &Check) -> CheckRow<'a>
         } else {
             cap.compression.clause
         },
-        formula: if tension {
+        formula: if slack {
+            "slack: a tension-only member (eyebar, rod, counter) carries no compression"
+        } else if tension {
             "min(yield on gross area, fracture on net area)"
         } else {
             cap.compression.check.formula

@@ -71,6 +71,11 @@ pub enum SensitivityError {
     Rebuilt { member: String, effect: String },
     #[error("moving loads: {0}")]
     Loads(#[from] crate::loads::LoadError),
+    /// Issue 16: the derivatives assume one linear stiffness; with
+    /// tension-only members the set of slack members may change with the
+    /// geometry, so the adjoint is not defined where it does.
+    #[error("the model has tension-only members ({members}): its response is piecewise linear and a move of a node may change which of them are slack, so geometry derivatives are not given; compare variants with `panelpoint sweep` instead")]
+    TensionOnly { members: String },
     #[error(transparent)]
     Analysis(#[from] crate::analysis::results::AnalysisError),
     #[error("member \"{member}\": {source}")]
@@ -337,6 +342,17 @@ pub fn sensitivity(
     rating: &Rating,
     case: Option<&str>,
 ) -> Result<Sensitivity, SensitivityError> {
+    if model.has_tension_only() {
+        let ids: Vec<&str> = model
+            .members
+            .iter()
+            .filter(|m| m.tension_only)
+            .map(|m| m.id.as_str())
+            .collect();
+        return Err(SensitivityError::TensionOnly {
+            members: ids.join(", "),
+        });
+    }
     let (check, terms) = governing(model, rating, case)?;
     let j = check.member;
     let n = analysis.prepared.n();

@@ -40,8 +40,21 @@ pub fn effects(model: &Model, analysis: &Analysis) -> Vec<(String, bool, Vec<f64
         .cases
         .iter()
         .fold(0.0f64, |m, c| m.max(c.force_scale));
-    crate::rate::load_effects(model, analysis)
-        .into_iter()
+    let mut all = crate::rate::load_effects(model, analysis);
+    if model.has_tension_only() {
+        // Tension-only members: each combination solved whole (issue 16);
+        // one the truss cannot carry is left out (`rate` reports it).
+        let solved = crate::analysis::active_set::combination_results(model).ok();
+        all.retain_mut(|e| match (e.combination, &solved) {
+            (Some((ci, None)), Some(s)) => {
+                e.forces = s[ci].1.result.forces.clone();
+                true
+            }
+            (Some(_), None) => false,
+            _ => true,
+        });
+    }
+    all.into_iter()
         .map(|e| {
             let forces = e
                 .forces

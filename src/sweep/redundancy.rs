@@ -108,6 +108,11 @@ pub fn service_forces(
             ));
         }
     }
+    governing(model, &effects)
+}
+
+/// Per member, the governing service effect (see [`service_forces`]).
+fn governing(model: &Model, effects: &[(String, Vec<f64>)]) -> Vec<(f64, String)> {
     let largest = effects
         .iter()
         .flat_map(|(_, f)| f.iter())
@@ -136,11 +141,60 @@ pub fn service_forces(
         .collect()
 }
 
+/// [`service_forces`] for a model with tension-only members, where
+/// superposition does not hold: the dead and live cases (with impact)
+/// solved together as one state by the active-set iteration, and each
+/// moving load's service envelope as `rate` builds it (dead load and
+/// vehicle solved together at every position).
+fn tension_only_service(
+    model: &Model,
+    analysis: &Analysis,
+    opts: &RunOptions,
+) -> Result<Vec<(f64, String)>, String> {
+    use crate::analysis::active_set::{factored_state, Solver};
+    let marked = model
+        .cases
+        .iter()
+        .any(|c| matches!(c.kind, CaseKind::Dead | CaseKind::Live));
+    let terms: Vec<(usize, f64)> = (0..model.cases.len())
+        .filter(|&c| !marked || model.cases[c].kind != CaseKind::Other)
+        .map(|c| {
+            let case = &model.cases[c];
+            let f = if case.kind == CaseKind::Live {
+                1.0 + case.impact
+            } else {
+                1.0
+            };
+            (c, f)
+        })
+        .collect();
+    let label = if marked { "dead + live" } else { "all cases" };
+    let solver = Solver::new(model).map_err(|e| e.to_string())?;
+    let statics = solver
+        .solve(&factored_state(model, label, &terms), None)
+        .map_err(|e| e.to_string())?;
+    let mut effects = vec![(label.to_string(), statics.result.forces)];
+    let rating =
+        crate::rate::rate(model, analysis, opts.method.clone()).map_err(|e| e.to_string())?;
+    effects.extend(
+        rating
+            .effects
+            .into_iter()
+            .filter(|e| e.moving.is_some())
+            .map(|e| (e.id, e.forces)),
+    );
+    Ok(governing(model, &effects))
+}
+
 /// Remove each member in turn (in parallel) and report the loss.
 pub fn scan(model: &Model, analysis: &Analysis, opts: &RunOptions) -> Result<Vec<Loss>, String> {
-    let envelopes =
-        crate::rate::moving_envelopes(model, &analysis.prepared).map_err(|e| e.to_string())?;
-    let service = service_forces(model, analysis, &envelopes);
+    let service = if model.has_tension_only() {
+        tension_only_service(model, analysis, opts)?
+    } else {
+        let envelopes =
+            crate::rate::moving_envelopes(model, &analysis.prepared).map_err(|e| e.to_string())?;
+        service_forces(model, analysis, &envelopes)
+    };
     (0..model.members.len())
         .into_par_iter()
         .map(|j| {
@@ -165,8 +219,15 @@ pub fn scan(model: &Model, analysis: &Analysis, opts: &RunOptions) -> Result<Vec
                     return Ok(loss);
                 }
             };
-            let solved = Prepared::new(&damaged)
-                .and_then(|p| p.solve_cases(&damaged, &damaged.cases).map(|c| (p, c)));
+            // With tension-only members the damaged truss is re-run by the
+            // active-set iteration; a mechanism once its slack members are
+            // out is a mechanism: the lost member is not redundant.
+            let solved = if damaged.has_tension_only() {
+                crate::analysis::analyse(&damaged).map(|a| (a.prepared, a.cases))
+            } else {
+                Prepared::new(&damaged)
+                    .and_then(|p| p.solve_cases(&damaged, &damaged.cases).map(|c| (p, c)))
+            };
             match solved {
                 Err(AnalysisError::Internal) => Err(AnalysisError::Internal.to_string()),
                 Err(e) => {
@@ -176,6 +237,27 @@ pub fn scan(model: &Model, analysis: &Analysis, opts: &RunOptions) -> Result<Vec
                     loss.fracture_critical = tension;
                     loss.mechanism = Some(e.to_string());
                     Ok(loss)
+                }
+                Ok((_, cases)) if damaged.has_tension_only() => {
+                    match super::run::summarise_tension_only(&damaged, &cases, opts) {
+                        // A combination or vehicle position the damaged
+                        // truss cannot carry with its slack members out.
+                        Err(crate::rate::RateError::Analysis(e))
+                            if e != AnalysisError::Internal =>
+                        {
+                            loss.critical = true;
+                            loss.fracture_critical = tension;
+                            loss.mechanism = Some(e.to_string());
+                            Ok(loss)
+                        }
+                        Err(e) => Err(e.to_string()),
+                        Ok(o) => {
+                            loss.max_utilization_after = o.max_utilization;
+                            loss.controlling_member = o.controlling_member;
+                            loss.controlling_case = o.controlling_case;
+                            Ok(loss)
+                        }
+                    }
                 }
                 Ok((prepared, cases)) => {
                     let o = summarise(&damaged, &cases, &prepared, opts)?;

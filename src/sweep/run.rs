@@ -193,6 +193,15 @@ fn run_chunk(base: &Base, sweep: &Sweep, chunk: &[usize], opts: &RunOptions) -> 
                 continue;
             }
         };
+        if model.has_tension_only() {
+            // Tension-only members: each variant re-run by the active-set
+            // iteration (no shared factorization, no superposition).
+            let r = crate::analysis::analyse(&model)
+                .map_err(|e| e.to_string())
+                .and_then(|a| summarise(&model, &a.cases, &a.prepared, opts));
+            out.push(row(i, v, kind, r));
+            continue;
+        }
         match kind {
             Kind::LoadsOnly => block.push((i, model)),
             Kind::Stiffness => {
@@ -308,10 +317,27 @@ pub fn summarise(
     prepared: &Prepared,
     opts: &RunOptions,
 ) -> Result<Outcome, String> {
-    // Moving loads are rolled on each variant's own stiffness.
-    let envelopes = rate::moving_envelopes(model, prepared).map_err(|e| e.to_string())?;
+    // Moving loads are rolled on each variant's own stiffness (with
+    // tension-only members, position by position inside `rate_results`).
+    let envelopes = if model.has_tension_only() {
+        Vec::new()
+    } else {
+        rate::moving_envelopes(model, prepared).map_err(|e| e.to_string())?
+    };
     let r = rate::rate_results(model, cases, opts.method.clone(), &envelopes)
         .map_err(|e| e.to_string())?;
+    Ok(outcome(model, cases, &r, opts.detail))
+}
+
+/// The outcome of a model with tension-only members from its active-set
+/// case results, the rating's own error kept typed (a combination or a
+/// vehicle position the truss cannot carry is an analysis error).
+pub fn summarise_tension_only(
+    model: &Model,
+    cases: &[CaseResult],
+    opts: &RunOptions,
+) -> Result<Outcome, rate::RateError> {
+    let r = rate::rate_results(model, cases, opts.method.clone(), &[])?;
     Ok(outcome(model, cases, &r, opts.detail))
 }
 

@@ -249,6 +249,12 @@ fn apply_one(m: &mut Model, change: &Change) -> Result<(), VariantError> {
 pub fn without_member(m: &Model, j: usize) -> Result<Model, VariantError> {
     let mut out = m.clone();
     out.members.remove(j);
+    out.slack.retain(|&(k, _)| k != j);
+    for (k, _) in &mut out.slack {
+        if *k > j {
+            *k -= 1;
+        }
+    }
     for case in &mut out.cases {
         case.elongations.retain(|e| e.member != j);
         for e in &mut case.elongations {

@@ -74,7 +74,37 @@ pub fn effects(model: &Model, analysis: &Analysis) -> Vec<Effect> {
             note: None,
         })
         .collect();
-    for combo in &model.combinations {
+    // Tension-only members: each combination solved whole (superposition
+    // does not hold); one that cannot be solved is not drawn (`draw` and
+    // `rate` report its error).
+    let solved = model
+        .has_tension_only()
+        .then(|| crate::analysis::active_set::combination_results(model));
+    for (ci, combo) in model.combinations.iter().enumerate() {
+        if let Some(solved) = &solved {
+            let Ok(all) = solved else { continue };
+            let (state, s) = &all[ci];
+            let mut node_load = vec![[0.0f64; 2]; model.nodes.len()];
+            for l in &state.nodal {
+                node_load[l.node][0] += l.fx;
+                node_load[l.node][1] += l.fy;
+            }
+            out.push(Effect {
+                id: combo.id.clone(),
+                combination: true,
+                forces: s.result.forces.clone(),
+                displacements: s.result.displacements.clone(),
+                reactions: s.result.reactions.clone(),
+                loads: node_load
+                    .iter()
+                    .enumerate()
+                    .filter(|(_, l)| l[0] != 0.0 || l[1] != 0.0)
+                    .map(|(n, l)| (n, l[0], l[1]))
+                    .collect(),
+                note: Some("Solved whole with its factors (tension-only members: superposition does not hold).".into()),
+            });
+            continue;
+        }
         let mut e = Effect {
             id: combo.id.clone(),
             combination: true,
