@@ -24,6 +24,7 @@
 //!
 //! Everything in SI; the report layer converts.
 
+pub(crate) mod nonlinear;
 pub mod solve_rf;
 pub mod states;
 
@@ -202,6 +203,28 @@ pub fn rate_joint_set(
     set: JointSet,
 ) -> Result<Joints, JointError> {
     let method = &rating.method;
+    let rows = rows_of(model, rating, &set.checks)?;
+    let ratings = if method.rates {
+        rate_live(model, analysis, method, &set.checks, envelopes)?
+    } else {
+        Vec::new()
+    };
+    Ok(Joints {
+        checks: set.checks,
+        rows,
+        ratings,
+        notes: set.notes,
+    })
+}
+
+/// Every check under every load case and combination without a moving load
+/// (consistent states), at the method's first level.
+pub(crate) fn rows_of(
+    model: &Model,
+    rating: &Rating,
+    checks: &[Box<dyn JointCheck>],
+) -> Result<Vec<JointRow>, JointError> {
+    let method = &rating.method;
     let first = method
         .design_levels
         .first()
@@ -209,7 +232,7 @@ pub fn rate_joint_set(
         .copied();
     let mut rows = Vec::new();
     if let Some(level) = first {
-        for (ci, check) in set.checks.iter().enumerate() {
+        for (ci, check) in checks.iter().enumerate() {
             for (ei, e) in rating.effects.iter().enumerate() {
                 let moving = e.moving.is_some() || matches!(e.combination, Some((_, Some(_))));
                 if moving {
@@ -226,17 +249,7 @@ pub fn rate_joint_set(
             }
         }
     }
-    let ratings = if method.rates {
-        rate_live(model, analysis, method, &set.checks, envelopes)?
-    } else {
-        Vec::new()
-    };
-    Ok(Joints {
-        checks: set.checks,
-        rows,
-        ratings,
-        notes: set.notes,
-    })
+    Ok(rows)
 }
 
 fn finite(model: &Model, check: &dyn JointCheck, e: &Eval, effect: &str) -> Result<(), JointError> {

@@ -12,7 +12,7 @@ mod combine;
 pub mod lacing;
 mod levels;
 pub mod modes;
-mod nonlinear;
+pub(crate) mod nonlinear;
 mod notes;
 pub mod single_angle;
 

@@ -56,8 +56,47 @@ pub struct Reached {
     pub mechanism: bool,
 }
 
-/// The multiplier λ at which each member reaches its resistance under
-/// `dead` + λ·`live`, the active set followed event by event.
+/// One stretch of the response to `dead` + λ·`live` with the set of slack
+/// members fixed: member forces N(λ) = `dead[m]` + λ·`live[m]` for
+/// `start` ≤ λ ≤ `end` (the first segment also below 0, where the dead load
+/// alone is beyond a resistance).
+#[derive(Clone, Debug)]
+pub struct Segment {
+    pub start: f64,
+    pub end: f64,
+    pub dead: Vec<f64>,
+    pub live: Vec<f64>,
+}
+
+/// The piecewise-linear response to `dead` + λ·`live`, λ from 0 to
+/// [`LAMBDA_MAX`], and the λ where the truss itself gives way, if it does.
+#[derive(Clone, Debug)]
+pub struct Path {
+    pub segments: Vec<Segment>,
+    pub mechanism: Option<f64>,
+}
+
+impl Path {
+    /// Member forces at `lambda` (on the segment holding it; the last one
+    /// beyond its end).
+    pub fn forces_at(&self, lambda: f64) -> Option<Vec<f64>> {
+        let seg = self
+            .segments
+            .iter()
+            .find(|s| lambda <= s.end)
+            .or(self.segments.last())?;
+        Some(
+            seg.dead
+                .iter()
+                .zip(&seg.live)
+                .map(|(d, l)| d + lambda * l)
+                .collect(),
+        )
+    }
+}
+
+/// The response to `dead` + λ·`live`, the active set followed event by
+/// event.
 ///
 /// With the set of slack members fixed the response is linear in λ:
 /// N(λ) = N_D + λ·N_L for a taut member, the trial force T(λ) = T_D + λ·T_L
@@ -65,52 +104,37 @@ pub struct Reached {
 /// The segment ends at the first event: a taut tension-only member's force
 /// falling to zero (it goes slack) or a slack member's trial force rising
 /// to zero (it takes up its slack); the member is flipped and the next
-/// segment solved. Within a segment a member reaches its resistance where
-/// N_D + λ·N_L = R (tension) or −R (compression). In the first segment a
-/// negative λ is kept (the dead load alone beyond the resistance, as the
-/// linear rating equation gives it). Members not reached by [`LAMBDA_MAX`]
-/// get None. Should a flip leave a mechanism that no slack member's
-/// take-up stops, the truss itself gives way at that λ: every member not yet
-/// reached gets that λ, marked `mechanism` (no rating above it is
-/// faithful). A set of slack members seen twice at one λ is cycling.
-pub fn trace(
-    solver: &Solver,
-    dead: &LoadCase,
-    live: &LoadCase,
-    limits: &[Limit],
-) -> Result<Vec<Option<Reached>>, AnalysisError> {
+/// segment solved. Should a flip leave a mechanism that no slack member's
+/// take-up stops, the truss itself gives way at that λ (`mechanism`). A set
+/// of slack members seen twice at one λ is cycling.
+pub fn path(solver: &Solver, dead: &LoadCase, live: &LoadCase) -> Result<Path, AnalysisError> {
     let model = solver.model();
-    let nm = limits.len();
-    let mut out: Vec<Option<Reached>> = vec![None; nm];
+    let nm = model.members.len();
     let first = solver.solve(dead, None)?;
     let mut slack = first.slack;
     let dead_s = solver.with_slack(dead);
     let mut lambda = 0.0f64;
     let mut seen_here: Vec<Vec<bool>> = Vec::new();
+    let mut out = Path {
+        segments: Vec::new(),
+        mechanism: None,
+    };
     for segment in 0..MAX_SEGMENTS {
         let p = match solver.prepared(&slack) {
             Ok(p) => p,
-            Err(e @ (AnalysisError::Mechanism { .. } | AnalysisError::RigidBody { .. })) => {
+            Err(AnalysisError::Mechanism { .. } | AnalysisError::RigidBody { .. }) => {
                 // A member let go at the event leaves the truss free to
                 // move until a slack member takes up its slack (at the same
-                // λ): take it up and go on.
+                // λ): take it up and go on; if none does, the truss itself
+                // gives way here (a panel whose shear reverses with no
+                // counter).
                 match solver.take_up(&slack, live) {
                     Some(next) => {
                         slack = next;
                         continue;
                     }
                     None => {
-                        // The truss itself gives way here (a panel whose
-                        // shear reverses with no counter): no member can
-                        // be rated above this λ.
-                        let _ = e;
-                        for o in out.iter_mut().filter(|o| o.is_none()) {
-                            *o = Some(Reached {
-                                lambda,
-                                tension: true,
-                                mechanism: true,
-                            });
-                        }
+                        out.mechanism = Some(lambda);
                         break;
                     }
                 }
@@ -140,33 +164,13 @@ pub fn trace(
             flips.push((m, at));
             next = next.min(at);
         }
-        for m in 0..nm {
-            if out[m].is_some() {
-                continue;
-            }
-            let (a, b) = (d.forces[m], l.forces[m]);
-            if b == 0.0 {
-                continue;
-            }
-            let (target, tension) = if b > 0.0 {
-                (limits[m].tension, true)
-            } else {
-                (-limits[m].compression, false)
-            };
-            if !target.is_finite() {
-                continue;
-            }
-            let at = (target - a) / b;
-            let within = at <= next && (segment == 0 || at >= lambda - eps);
-            if within && at <= LAMBDA_MAX {
-                out[m] = Some(Reached {
-                    lambda: at,
-                    tension,
-                    mechanism: false,
-                });
-            }
-        }
-        if !next.is_finite() || next > LAMBDA_MAX || out.iter().all(Option::is_some) {
+        out.segments.push(Segment {
+            start: lambda,
+            end: next.min(LAMBDA_MAX),
+            dead: d.forces.clone(),
+            live: l.forces.clone(),
+        });
+        if !next.is_finite() || next > LAMBDA_MAX {
             break;
         }
         if next > lambda + eps {
@@ -194,14 +198,71 @@ pub fn trace(
     Ok(out)
 }
 
+/// The multiplier λ at which each member reaches its resistance under
+/// `dead` + λ·`live`, along the [`path`]: within a segment a member reaches
+/// its resistance where N_D + λ·N_L = R (tension) or −R (compression). In
+/// the first segment a negative λ is kept (the dead load alone beyond the
+/// resistance, as the linear rating equation gives it). Members not reached
+/// by [`LAMBDA_MAX`] get None. Where the truss itself gives way, every
+/// member not yet reached gets that λ, marked `mechanism` (no rating above
+/// it is faithful).
+pub fn trace(
+    solver: &Solver,
+    dead: &LoadCase,
+    live: &LoadCase,
+    limits: &[Limit],
+) -> Result<Vec<Option<Reached>>, AnalysisError> {
+    let path = path(solver, dead, live)?;
+    let mut out: Vec<Option<Reached>> = vec![None; limits.len()];
+    for (si, seg) in path.segments.iter().enumerate() {
+        let eps = 1e-9 * seg.start.abs().max(1.0);
+        for (m, o) in out.iter_mut().enumerate() {
+            if o.is_some() {
+                continue;
+            }
+            let (a, b) = (seg.dead[m], seg.live[m]);
+            if b == 0.0 {
+                continue;
+            }
+            let (target, tension) = if b > 0.0 {
+                (limits[m].tension, true)
+            } else {
+                (-limits[m].compression, false)
+            };
+            if !target.is_finite() {
+                continue;
+            }
+            let at = (target - a) / b;
+            let within = at <= seg.end && (si == 0 || at >= seg.start - eps);
+            if within && at <= LAMBDA_MAX {
+                *o = Some(Reached {
+                    lambda: at,
+                    tension,
+                    mechanism: false,
+                });
+            }
+        }
+    }
+    if let Some(lambda) = path.mechanism {
+        for o in out.iter_mut().filter(|o| o.is_none()) {
+            *o = Some(Reached {
+                lambda,
+                tension: true,
+                mechanism: true,
+            });
+        }
+    }
+    Ok(out)
+}
+
 /// A live load to rate or envelope: every placement as a load state of its
 /// own (axle loads or case loads with the dynamic allowance, unfactored).
-struct Live {
-    id: String,
-    legal: bool,
+pub(crate) struct Live {
+    pub(crate) id: String,
+    pub(crate) legal: bool,
     /// Index into `model.live.moving` for a moving load.
-    moving: Option<usize>,
-    placements: Vec<(LoadCase, Option<Placement>)>,
+    pub(crate) moving: Option<usize>,
+    pub(crate) placements: Vec<(LoadCase, Option<Placement>)>,
 }
 
 /// The placements of moving load `k`: every train, direction and position
@@ -416,7 +477,7 @@ fn effects(
 }
 
 /// The dead state at a level's maximum or minimum permanent-load factors.
-fn factored_dead(model: &Model, level: &Level, max: bool) -> (LoadCase, f64, f64) {
+pub(crate) fn factored_dead(model: &Model, level: &Level, max: bool) -> (LoadCase, f64, f64) {
     let (dc, dw) = model.dead_cases_split();
     let (gdc, gdw) = if max {
         (level.dc.max, level.dw.max)
@@ -594,6 +655,13 @@ pub(super) fn rate(
         }
     }
     let mut rating = super::finish(model, method, members, effects, Vec::new(), ratings)?;
+    let set = crate::joint::all_checks(model);
+    if !set.checks.is_empty() {
+        rating.joints = Some(crate::joint::nonlinear::rate_joints(
+            model, &solver, &rating, &lives, set,
+        )?);
+        crate::joint::post_with_joints(&mut rating);
+    }
     for id in relieved {
         rating.notes.push(format!(
             "combination \"{id}\": solved also with its dead cases at the method's minimum factors (AASHTO LRFD 3.4.1 for LRFR), each member taking the more severe of the two states"
