@@ -655,11 +655,18 @@ fn boxed_chord_takes_the_closed_cell_for_e4() {
         .find(|m| m.kind == ModeKind::Torsional)
         .expect("E4-2 mode");
     let fe = G * j / (ix + iy);
-    assert!((tor.fe / KSI - fe).abs() < 1e-6 * fe, "{} vs {fe}", tor.fe / KSI);
+    assert!(
+        (tor.fe / KSI - fe).abs() < 1e-6 * fe,
+        "{} vs {fe}",
+        tor.fe / KSI
+    );
     let notes = cap.modes.notes.join("\n");
     assert!(notes.contains("Bredt"), "{notes}");
     // Laced: the open (cut) section, J = Σ b·t³/3 of every wall.
-    let laced = text.replace("y: 0.0, toes: PosX)])", "y: 0.0, toes: PosX)], lacing: (spacing: 16.0, connector: Riveted))");
+    let laced = text.replace(
+        "y: 0.0, toes: PosX)])",
+        "y: 0.0, toes: PosX)], lacing: (spacing: 16.0, connector: Riveted))",
+    );
     assert_ne!(laced, text);
     let ml = load(&laced);
     let tl = ml.sections[0].built_up.as_ref().unwrap().torsion.unwrap();
@@ -691,7 +698,10 @@ fn boxed_chord_takes_the_closed_cell_for_e4() {
     assert_eq!(v["sections"][0]["torsion_cell"], "closed");
     assert!((v["sections"][0]["j"].as_f64().unwrap() - j).abs() < 1e-9 * j);
     let (_, text_out, _) = run(&["section", path.to_str().unwrap()]);
-    assert!(text_out.contains("closed cell") && text_out.contains("Bredt"), "{text_out}");
+    assert!(
+        text_out.contains("closed cell") && text_out.contains("Bredt"),
+        "{text_out}"
+    );
     let pl = temp_model("boxed-laced.ron", &laced);
     let (_, out, _) = run(&["section", pl.to_str().unwrap(), "--format", "json"]);
     let v: serde_json::Value = serde_json::from_str(&out).unwrap();

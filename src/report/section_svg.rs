@@ -567,6 +567,27 @@ mod tests {
     }
 
     #[test]
+    fn shear_centre_is_marked_where_given() {
+        // The mark is the section's own shear centre (for a closed cell it
+        // comes from the closed-section coordinate, which the parts alone
+        // do not tell): drawn when given, not otherwise.
+        let parts = vec![PlacedPart::new(
+            Shape::Plate {
+                width: 4.0,
+                thickness: 1.0,
+            },
+            0.0,
+            0.0,
+        )];
+        let props = properties(&parts).unwrap();
+        let with = section_svg("p", &parts, &props, Some((0.0, 3.0)), "in");
+        assert!(with.contains("class=\"shear-centre\""));
+        assert!(with.contains("cy=\"-3.0000\""), "{with}");
+        let without = section_svg("p", &parts, &props, None, "in");
+        assert!(!without.contains("shear-centre"));
+    }
+
+    #[test]
     fn escape_covers_xml_specials() {
         assert_eq!(xml_escape("a<b>&\"c'"), "a&lt;b&gt;&amp;&quot;c&apos;");
     }

@@ -560,18 +560,8 @@ fn open_section(
     Some(out)
 }
 
-/// The joined section of `parts` (as inspected); where parts touch is
-/// decided on the as-built walls `built` (a ply thinned by corrosion is
-/// still riveted to the next). With `allow_cell` and one contact closing a
-/// cell, that contact is joined and the cell taken closed.
-fn joined(
-    parts: &[Vec<Wall>],
-    built: &[Vec<Wall>],
-    allow_cell: bool,
-) -> Option<TorsionProperties> {
-    let scale = parts.iter().flatten().map(|w| w.len()).fold(0.0, f64::max);
-    let touch = 1e-6 * scale;
-    // Candidate joints: the closest walls of every pair of parts.
+/// Candidate joints: the closest walls of every pair of parts (as built).
+fn candidate_joints(built: &[Vec<Wall>], touch: f64) -> Vec<Joint> {
     let mut joints = Vec::new();
     for p in 0..built.len() {
         for q in p + 1..built.len() {
@@ -597,6 +587,17 @@ fn joined(
             joints.extend(best);
         }
     }
+    joints
+}
+
+/// The joined section of `parts` (as inspected); where parts touch is
+/// decided on the as-built walls `built` (a ply thinned by corrosion is
+/// still riveted to the next). With `allow_cell` and one contact closing a
+/// cell, that contact is joined and the cell taken closed.
+fn joined(parts: &[Vec<Wall>], built: &[Vec<Wall>], allow_cell: bool) -> Option<TorsionProperties> {
+    let scale = parts.iter().flatten().map(|w| w.len()).fold(0.0, f64::max);
+    let touch = 1e-6 * scale;
+    let mut joints = candidate_joints(built, touch);
     joints.sort_by(|a, b| a.gap.total_cmp(&b.gap));
     let mut parent: Vec<usize> = (0..parts.len()).collect();
     let mut links = 0;
@@ -680,7 +681,10 @@ fn joined(
         }
     }
     for (&(a, b), jn) in joint_nodes.iter().zip(&used) {
-        let (wp, wq) = (&parts[jn.parts.0][jn.walls.0], &parts[jn.parts.1][jn.walls.1]);
+        let (wp, wq) = (
+            &parts[jn.parts.0][jn.walls.0],
+            &parts[jn.parts.1][jn.walls.1],
+        );
         elements.push(Element {
             i: a,
             j: b,
@@ -706,11 +710,7 @@ fn simpson(l: f64, ta: f64, tb: f64, f: impl Fn(f64) -> f64) -> f64 {
 /// by Bredt–Batho plus the branches' `Σ∫t³ds/3`, the shear centre from the
 /// closed-section sectorial coordinate, `Cw = 0`. Otherwise cycles are cut
 /// (their closing elements left out) and counted as closed cells.
-fn integrate(
-    nodes: &[(f64, f64)],
-    els: &[Element],
-    allow_cell: bool,
-) -> Option<TorsionProperties> {
+fn integrate(nodes: &[(f64, f64)], els: &[Element], allow_cell: bool) -> Option<TorsionProperties> {
     let lens: Vec<f64> = els
         .iter()
         .map(|e| (nodes[e.j].0 - nodes[e.i].0).hypot(nodes[e.j].1 - nodes[e.i].1))
@@ -719,32 +719,7 @@ fn integrate(
         let (a, b) = (nodes[e.i], nodes[e.j]);
         (a.0 + s * (b.0 - a.0), a.1 + s * (b.1 - a.1))
     };
-    // Area, centroid, thin-walled second moments.
-    let area: f64 = els
-        .iter()
-        .zip(&lens)
-        .map(|(e, &l)| l * (e.ta + e.tb) / 2.0)
-        .sum();
-    if area.is_nan() || area <= 0.0 {
-        return None;
-    }
-    let first = |k: usize| -> f64 {
-        els.iter()
-            .zip(&lens)
-            .map(|(e, &l)| {
-                simpson(l, e.ta, e.tb, |s| {
-                    let p = lerp(e, s);
-                    if k == 0 {
-                        p.0
-                    } else {
-                        p.1
-                    }
-                })
-            })
-            .sum::<f64>()
-            / area
-    };
-    let (cx, cy) = (first(0), first(1));
+    let (area, cx, cy) = centroid(els, &lens, &lerp)?;
     let (order, up) = spanning_tree(nodes.len(), els)?;
     // Elements not in the tree close a loop: their ω would be two-valued
     // unless the loop is taken as a closed cell.
@@ -843,6 +818,39 @@ fn integrate(
         .iter()
         .all(|v| v.is_finite())
         .then_some(out)
+}
+
+/// Thin-walled area and centroid of the elements; `None` without area.
+fn centroid(
+    els: &[Element],
+    lens: &[f64],
+    lerp: &dyn Fn(&Element, f64) -> (f64, f64),
+) -> Option<(f64, f64, f64)> {
+    let area: f64 = els
+        .iter()
+        .zip(lens)
+        .map(|(e, &l)| l * (e.ta + e.tb) / 2.0)
+        .sum();
+    if area.is_nan() || area <= 0.0 {
+        return None;
+    }
+    let first = |k: usize| -> f64 {
+        els.iter()
+            .zip(lens)
+            .map(|(e, &l)| {
+                simpson(l, e.ta, e.tb, |s| {
+                    let p = lerp(e, s);
+                    if k == 0 {
+                        p.0
+                    } else {
+                        p.1
+                    }
+                })
+            })
+            .sum::<f64>()
+            / area
+    };
+    Some((area, first(0), first(1)))
 }
 
 /// A spanning tree of the elements from node 0: the edges `(from, to,
@@ -1144,7 +1152,10 @@ mod tests {
         let bredt = 4.0 * (9.5f64 * 9.5).powi(2) * 0.5 / (4.0 * 9.5);
         assert_relative_eq!(bredt, 428.69, max_relative = 1e-4);
         assert_relative_eq!(t.j, bredt + 4.0 * 0.25 * 0.125 / 3.0, max_relative = 1e-12);
-        assert_eq!((t.cell, t.closed_cells, t.links), (TorsionCell::Closed, 1, 0));
+        assert_eq!(
+            (t.cell, t.closed_cells, t.links),
+            (TorsionCell::Closed, 1, 0)
+        );
         // Cw = 0 taken for the closed cell; doubly symmetric: shear centre
         // at the centroid.
         assert_eq!(t.cw, 0.0);
@@ -1219,8 +1230,15 @@ mod tests {
         // One cover plate (the other face laced): no cell, open.
         parts.push(plate(14.0, 0.5, 0.0, 6.25));
         let one_plate = torsion(&parts).unwrap().unwrap();
-        assert_eq!((one_plate.cell, one_plate.closed_cells), (TorsionCell::Open, 0));
-        assert_relative_eq!(one_plate.j, open_ch + 14.0 * 0.125 / 3.0, max_relative = 1e-12);
+        assert_eq!(
+            (one_plate.cell, one_plate.closed_cells),
+            (TorsionCell::Open, 0)
+        );
+        assert_relative_eq!(
+            one_plate.j,
+            open_ch + 14.0 * 0.125 / 3.0,
+            max_relative = 1e-12
+        );
     }
 
     #[test]
@@ -1247,9 +1265,7 @@ mod tests {
         let k = 1.0;
         let ix = (t1 + t2) * h.powi(3) / 12.0 + 2.0 * b * tf * (h / 2.0).powi(2);
         let qc = k * tf * h * b * (h / t2 + b / tf) / (2.0 * (2.0 * b / tf + h / t1 + h / t2));
-        let e = (-2.0 * h * b * qc
-            + 0.75 * k * tf * h * h * b * b
-            + k * t2 * b * h.powi(3) / 12.0)
+        let e = (-2.0 * h * b * qc + 0.75 * k * tf * h * h * b * b + k * t2 * b * h.powi(3) / 12.0)
             / (k * ix);
         assert!(e > b / 2.0, "toward the thicker web: {e}");
         assert_relative_eq!(t.shear_centre_x, e, max_relative = 1e-9);

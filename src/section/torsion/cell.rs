@@ -103,10 +103,7 @@ pub(super) fn find(
         .sum();
     let oint: f64 = flex.iter().sum();
     let scale = tol / 1e-9;
-    (two_a0.is_finite()
-        && two_a0.abs() > 1e-9 * scale * scale
-        && oint.is_finite()
-        && oint > 0.0)
+    (two_a0.is_finite() && two_a0.abs() > 1e-9 * scale * scale && oint.is_finite() && oint > 0.0)
         .then_some(Cell {
             dir,
             flex,
