@@ -619,3 +619,91 @@ fn given_section_with_j_cw_x0_y0_gets_the_same_e4_check() {
     assert_eq!(code, 2);
     assert!(err.contains("give all of j, cw, x0 and y0"), "{err}");
 }
+
+#[test]
+fn boxed_chord_takes_the_closed_cell_for_e4() {
+    // The chord above with a second 14 × 3/8 in cover plate under the
+    // flanges: the parts close one cell (a box), so J is by Bredt–Batho
+    // (checked against closed forms in the section tests) and Cw = 0. The
+    // box is doubly symmetric, so the shear centre is the centroid and §E4
+    // is the torsional mode, AISC 360-16 Eq. E4-2 with x0 = y0 = 0:
+    // Fe = (π²E·Cw/Lcz² + G·J)/(Ix + Iy) = G·J/(Ix + Iy).
+    // The same parts described as laced keep the open (cut) section, as
+    // before this change: J is far smaller and §E4's Fe with it; the
+    // capacity with the closed cell can only be the same or higher.
+    let boxed = chord(
+        "Plate(width: 14.0, thickness: 0.375, x: 0.0, y: 5.1875), \
+         Plate(width: 14.0, thickness: 0.375, x: 0.0, y: -5.1875)",
+    );
+    let text = strut(&boxed, 16.0);
+    let m = load(&text);
+    let b = m.sections[0].built_up.as_ref().unwrap();
+    let t = b.torsion.unwrap();
+    assert_eq!(t.cell, panelpoint::section::TorsionCell::Closed);
+    assert_eq!(t.cw, 0.0);
+    let p = &b.reduced;
+    let inch = 0.0254f64;
+    assert!((t.shear_centre_x - p.centroid_x).abs() < 1e-9 * inch);
+    assert!((t.shear_centre_y - p.centroid_y).abs() < 1e-9 * inch);
+    let (ix, iy) = (p.ix / inch.powi(4), p.iy / inch.powi(4));
+    let j = j_of(&t, inch);
+    let cap = member_capacity(&m, 0, &lrfd()).unwrap();
+    let tor = cap
+        .modes
+        .modes
+        .iter()
+        .find(|m| m.kind == ModeKind::Torsional)
+        .expect("E4-2 mode");
+    let fe = G * j / (ix + iy);
+    assert!(
+        (tor.fe / KSI - fe).abs() < 1e-6 * fe,
+        "{} vs {fe}",
+        tor.fe / KSI
+    );
+    let notes = cap.modes.notes.join("\n");
+    assert!(notes.contains("Bredt"), "{notes}");
+    // Laced: the open (cut) section, J = Σ b·t³/3 of every wall.
+    let laced = text.replace(
+        "y: 0.0, toes: PosX)])",
+        "y: 0.0, toes: PosX)], lacing: (spacing: 16.0, connector: Riveted))",
+    );
+    assert_ne!(laced, text);
+    let ml = load(&laced);
+    let tl = ml.sections[0].built_up.as_ref().unwrap().torsion.unwrap();
+    assert_eq!(tl.cell, panelpoint::section::TorsionCell::CutLaced);
+    assert!(j_of(&tl, inch) < j / 100.0);
+    let capl = member_capacity(&ml, 0, &lrfd()).unwrap();
+    // (cutting the cell moves the open section's shear centre off the
+    // centroid, so §E4 may be flexural-torsional there.)
+    let torl = capl
+        .modes
+        .modes
+        .iter()
+        .find(|m| {
+            matches!(
+                m.kind,
+                ModeKind::Torsional
+                    | ModeKind::FlexuralTorsionalSingly
+                    | ModeKind::FlexuralTorsional
+            )
+        })
+        .expect("E4 mode");
+    assert!(torl.fe < tor.fe);
+    assert!(cap.compression.capacity >= capl.compression.capacity * (1.0 - 1e-12));
+    // `section` says which was used, in text and JSON.
+    let path = temp_model("boxed.ron", &text);
+    let (code, out, err) = run(&["section", path.to_str().unwrap(), "--format", "json"]);
+    assert_eq!(code, 0, "{err}");
+    let v: serde_json::Value = serde_json::from_str(&out).unwrap();
+    assert_eq!(v["sections"][0]["torsion_cell"], "closed");
+    assert!((v["sections"][0]["j"].as_f64().unwrap() - j).abs() < 1e-9 * j);
+    let (_, text_out, _) = run(&["section", path.to_str().unwrap()]);
+    assert!(
+        text_out.contains("closed cell") && text_out.contains("Bredt"),
+        "{text_out}"
+    );
+    let pl = temp_model("boxed-laced.ron", &laced);
+    let (_, out, _) = run(&["section", pl.to_str().unwrap(), "--format", "json"]);
+    let v: serde_json::Value = serde_json::from_str(&out).unwrap();
+    assert_eq!(v["sections"][0]["torsion_cell"], "open");
+}

@@ -175,6 +175,7 @@ fn given_torsion(
                 shear_centre_y: y0,
                 closed_cells: 0,
                 links: 0,
+                cell: section::TorsionCell::Given,
             })
         }
         _ => {
@@ -222,7 +223,8 @@ fn built_up(ctx: &mut Ctx, s: &SectionFile, parts: &[PartFile], u: &DisplayUnits
             return fallback;
         }
     };
-    let torsion = match section::torsion(&placed) {
+    // Lacing or battens: a cell closed by the parts is kept cut (open).
+    let torsion = match section::torsion_with(&placed, s.lacing.is_some()) {
         Ok(t) => t,
         Err(e) => {
             ctx.error(format!("section \"{}\": {e}", s.id), at);

@@ -315,6 +315,12 @@ pub fn compression_modes(model: &Model, m: usize) -> Result<CompressionModes, Ra
                     } else {
                         notes.push("torsional buckling (AISC 360-16 §E4) not checked: the section has no torsional stiffness by thin-walled theory".into());
                     }
+                    match t.cell {
+                        crate::section::TorsionCell::Closed if t.closed_cells > 0 => notes.push("§E4: the parts close one cell: J by Bredt–Batho (4·A0²/∮ds/t over the wall centre lines) plus the open walls' Σ b·t³/3, Cw = 0 (conservative)".into()),
+                        crate::section::TorsionCell::CutLaced => notes.push("§E4: the parts close a cell but the member is laced or battened: J of the open (cut) section (conservative)".into()),
+                        crate::section::TorsionCell::CutCells => notes.push(format!("§E4: {} closed cell(s) taken as open (cut): J of the open section (conservative)", t.closed_cells)),
+                        _ => {}
+                    }
                 }
                 None => notes.push(
                     "torsional and flexural-torsional buckling (AISC 360-16 §E4) not checked: a part is given by table properties only (no J, Cw or shear centre)".into(),

@@ -174,11 +174,13 @@ fn dimension(
 /// dimensioned; the centroid after loss is a cross on the centroidal axes
 /// (the as-built centroid a small circle when it differs). The title line
 /// gives `id`, area, Ix and Iy in `unit`. Parts that cannot be outlined are
-/// skipped.
+/// skipped. `shear_centre` (in the parts' unit; the section's own torsion
+/// properties, which know whether a cell is taken closed) is marked S.
 pub fn section_svg(
     id: &str,
     parts: &[PlacedPart],
     props: &SectionProperties,
+    shear_centre: Option<(f64, f64)>,
     unit: &str,
 ) -> String {
     use crate::section::Loss;
@@ -211,11 +213,7 @@ pub fn section_svg(
         (xmin, xmax, ymin, ymax) = (cx, cx, cy, cy);
     }
     // Shear centre by thin-walled theory (None for table-only parts).
-    let sc = crate::section::torsion(parts)
-        .ok()
-        .flatten()
-        .map(|t| (t.shear_centre_x, t.shear_centre_y))
-        .filter(|(x, y)| x.is_finite() && y.is_finite());
+    let sc = shear_centre.filter(|(x, y)| x.is_finite() && y.is_finite());
     if let Some((x, y)) = sc {
         (xmin, xmax, ymin, ymax) = (xmin.min(x), xmax.max(x), ymin.min(y), ymax.max(y));
     }
@@ -531,7 +529,7 @@ mod tests {
     fn svg_has_parts_axes_title_and_escapes() {
         let parts = chord();
         let props = properties(&parts).unwrap();
-        let svg = section_svg("top chord \"A&B\" <L1>", &parts, &props, "in");
+        let svg = section_svg("top chord \"A&B\" <L1>", &parts, &props, None, "in");
         assert!(svg.starts_with("<svg xmlns=\"http://www.w3.org/2000/svg\""));
         assert!(svg.trim_end().ends_with("</svg>"));
         // Three present parts filled, one missing drawn as lost (vermilion, dashed).
@@ -564,8 +562,29 @@ mod tests {
             10.0,
         )];
         let props = properties(&parts).unwrap();
-        let svg = section_svg("p", &parts, &props, "in");
+        let svg = section_svg("p", &parts, &props, None, "in");
         assert!(svg.contains("M-2.0000,-9.5000"), "{svg}");
+    }
+
+    #[test]
+    fn shear_centre_is_marked_where_given() {
+        // The mark is the section's own shear centre (for a closed cell it
+        // comes from the closed-section coordinate, which the parts alone
+        // do not tell): drawn when given, not otherwise.
+        let parts = vec![PlacedPart::new(
+            Shape::Plate {
+                width: 4.0,
+                thickness: 1.0,
+            },
+            0.0,
+            0.0,
+        )];
+        let props = properties(&parts).unwrap();
+        let with = section_svg("p", &parts, &props, Some((0.0, 3.0)), "in");
+        assert!(with.contains("class=\"shear-centre\""));
+        assert!(with.contains("cy=\"-3.0000\""), "{with}");
+        let without = section_svg("p", &parts, &props, None, "in");
+        assert!(!without.contains("shear-centre"));
     }
 
     #[test]

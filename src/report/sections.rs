@@ -121,7 +121,12 @@ pub fn text(w: &mut dyn Write, model: &Model, id: Option<&str>) -> io::Result<()
                     Some(t) => {
                         writeln!(
                             w,
-                            "torsion (after loss, thin-walled centre lines): shear centre x = {} {unit}, y = {} {unit} (x0 = {}, y0 = {} from the centroid); J = {} {unit}4; Cw = {} {unit}6",
+                            "torsion (after loss, thin-walled centre lines, {}): shear centre x = {} {unit}, y = {} {unit} (x0 = {}, y0 = {} from the centroid); J = {} {unit}4; Cw = {} {unit}6",
+                            match t.cell {
+                                crate::section::TorsionCell::Closed => "closed cell",
+                                crate::section::TorsionCell::Solid => "solid bar",
+                                _ => "open section",
+                            },
                             sig(t.shear_centre_x / f, 4),
                             sig(t.shear_centre_y / f, 4),
                             sig((t.shear_centre_x - b.reduced.centroid_x) / f, 4),
@@ -132,8 +137,13 @@ pub fn text(w: &mut dyn Write, model: &Model, id: Option<&str>) -> io::Result<()
                         if t.links > 0 {
                             writeln!(w, "note: {} joint(s) between parts that do not touch are taken through the lacing or tie plates (warping continuous); the lacing adds nothing to J (conservative)", t.links)?;
                         }
-                        if t.closed_cells > 0 {
-                            writeln!(w, "note: {} closed cell(s) found; the section is taken as open (cut), which underestimates J (conservative)", t.closed_cells)?;
+                        match t.cell {
+                            crate::section::TorsionCell::Closed if t.closed_cells > 0 => writeln!(w, "note: the parts close one cell: J = 4·A0²/∮ds/t (Bredt–Batho, wall centre lines; riveted plies taken as fastened continuously) plus Σ b·t³/3 of the walls off the cell; Cw = 0 taken for the closed cell (conservative); shear centre by the closed-section sectorial coordinate")?,
+                            crate::section::TorsionCell::Closed => writeln!(w, "note: closed tube: J by closed form (Bredt–Batho for a rectangular tube), Cw = 0")?,
+                            crate::section::TorsionCell::CutLaced => writeln!(w, "note: the parts close a cell, but the section is described as laced or battened (lacing, batten and tie plates do not close a cell): taken as open (cut), which underestimates J (conservative)")?,
+                            crate::section::TorsionCell::CutCells if t.closed_cells > 1 => writeln!(w, "note: {} closed cells found; Bredt–Batho is applied to a single cell only, so the section is taken as open (cut), which underestimates J (conservative)", t.closed_cells)?,
+                            crate::section::TorsionCell::CutCells => writeln!(w, "note: a closed cell was found but encloses no area by the wall centre lines; taken as open (cut), which underestimates J (conservative)")?,
+                            _ => {}
                         }
                     }
                     None => writeln!(
@@ -268,8 +278,10 @@ pub fn json(w: &mut dyn Write, model: &Model, id: Option<&str>) -> io::Result<()
         if let Some(t) = t {
             write!(
                 w,
-                ",\"torsion_closed_cells\":{},\"torsion_links\":{}",
-                t.closed_cells, t.links
+                ",\"torsion_cell\":{},\"torsion_closed_cells\":{},\"torsion_links\":{}",
+                string(t.cell.name()),
+                t.closed_cells,
+                t.links
             )?;
         }
         if let Some(b) = &s.built_up {
@@ -333,8 +345,16 @@ pub fn svg(w: &mut dyn Write, model: &Model, section: &Section) -> io::Result<()
         .collect();
     let props = crate::section::properties(&parts).map_err(io::Error::other)?;
     w.write_all(
-        super::section_svg::section_svg(&section.id, &parts, &props, model.units.section.name)
-            .as_bytes(),
+        super::section_svg::section_svg(
+            &section.id,
+            &parts,
+            &props,
+            b.torsion
+                .as_ref()
+                .map(|t| (t.shear_centre_x / f, t.shear_centre_y / f)),
+            model.units.section.name,
+        )
+        .as_bytes(),
     )
 }
 

@@ -49,7 +49,7 @@ pub use part::{
     part_properties, part_properties_indexed, Direction, GivenKind, Orientation, PartProperties,
     PlacedPart, Quadrant, Shape,
 };
-pub use torsion::{torsion, TorsionProperties};
+pub use torsion::{torsion, torsion_with, TorsionCell, TorsionProperties};
 
 /// Everything that can be wrong with a section description.
 ///

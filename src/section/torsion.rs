@@ -20,11 +20,31 @@
 //!   thickness between the closest points of the centre lines; parts that do
 //!   not touch (channels tied only by lacing or tie plates) are joined the same
 //!   way at their closest points — the lacing plane is taken as keeping the
-//!   parts' warping continuous but adding nothing to `J` or to the area. A
-//!   contact that would close a cell (a box of two channels and two cover
-//!   plates) is not joined: the section is treated as open, which lowers `J`
-//!   (conservative), and [`TorsionProperties::closed_cells`] says how many.
+//!   parts' warping continuous but adding nothing to `J` or to the area.
 //!   The lacing's own contribution to torsion is ignored (conservative).
+//! * **Closed cell.** Parts that touch are plies fastened continuously along
+//!   the member (rivet lines at the usual pitch, as the section's area
+//!   already assumes); lacing, batten and tie plates are not parts, so they
+//!   never close a cell. When exactly one contact between touching parts
+//!   closes a cell (two channels with a cover plate on each flange side; four
+//!   plates in a box), the section is one closed cell with open branches:
+//!   `J = 4A₀²/∮ds/t + Σ∫t³ds/3` over the walls off the cell (flanges,
+//!   plate overhangs), `A₀` the area enclosed by the wall centre lines and
+//!   `∮ds/t` around them (Bredt–Batho; the cell walls' own `Σbt³/3` is not
+//!   added, as is usual). The short joint between the centre lines of two
+//!   riveted plies takes the least thickness of the walls it joins and of
+//!   the cell walls at its ends (see `torsion/cell.rs`). `Cw = 0` for the closed
+//!   cell (its true warping constant is small and positive: zero is
+//!   conservative for torsional buckling). The shear centre is found by the
+//!   same formulas with the closed-section sectorial coordinate
+//!   `ω̄ = ∫(r − ψ/t)ds` on the cell (`ψ = 2A₀/∮ds/t`, `∫r ds` on branches;
+//!   Kollbrunner & Basler, *Torsion in Structures*, from memory): the
+//!   centroid for a doubly symmetric box, off it for a singly symmetric one.
+//!   A section described as laced or battened ([`torsion_with`]) keeps such
+//!   a cell cut (the plates closing it may be tie or batten plates); more
+//!   than one cell is cut too: the section is treated as open (cut), which
+//!   lowers `J` (conservative), and [`TorsionProperties::cell`] and
+//!   [`TorsionProperties::closed_cells`] say so.
 //! * The shear centre is the pole about which the sectorial coordinate is
 //!   orthogonal to x and y: with `ω_B` the sectorial coordinate about a pole
 //!   B at the centroid, `Iωx = ∫ω_B x dA`, `Iωy = ∫ω_B y dA` (x, y
@@ -40,6 +60,8 @@
 //! parts, and for parts known only by table properties, the torsion
 //! properties are not computed ([`torsion`] returns `None`).
 
+mod cell;
+
 use super::part::{resolve, PlacedPart, Shape};
 use super::SectionError;
 use std::f64::consts::PI;
@@ -54,10 +76,44 @@ pub struct TorsionProperties {
     /// Shear centre in section coordinates (the same frame as the centroid).
     pub shear_centre_x: f64,
     pub shear_centre_y: f64,
-    /// Contacts between parts left unjoined because they would close a cell.
+    /// Closed cells found: the cell taken by Bredt–Batho (1 when
+    /// [`TorsionProperties::cell`] is `Closed`) or contacts left unjoined.
     pub closed_cells: usize,
     /// Joints between parts that do not touch (zero-thickness links).
     pub links: usize,
+    /// How `J` was found: open section, closed cell, or cells cut and why.
+    pub cell: TorsionCell,
+}
+
+/// How a section's `J` was found.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum TorsionCell {
+    /// Thin-walled open section (no closed cell): `J = Σ∫t³ds/3`.
+    Open,
+    /// One closed cell (or one closed tube): Bredt–Batho, `Cw = 0`.
+    Closed,
+    /// Closed cells found but cut (taken as open, conservative): more than
+    /// one cell, or a cell enclosing no area.
+    CutCells,
+    /// One cell closed by parts of a section described as laced or
+    /// battened: cut (the plates closing it may be tie or batten plates).
+    CutLaced,
+    /// A solid bar alone (closed form).
+    Solid,
+    /// Given with the section's properties.
+    Given,
+}
+
+impl TorsionCell {
+    /// The name used in JSON output (`torsion_cell`).
+    pub fn name(self) -> &'static str {
+        match self {
+            TorsionCell::Closed => "closed",
+            TorsionCell::Open | TorsionCell::CutCells | TorsionCell::CutLaced => "open",
+            TorsionCell::Solid => "solid",
+            TorsionCell::Given => "given",
+        }
+    }
 }
 
 /// A centre-line wall in section coordinates, thickness linear from `ta` to `tb`.
@@ -85,8 +141,18 @@ impl Wall {
 }
 
 /// Torsion properties of the section as inspected (loss applied, missing
-/// parts left out); `None` when a part's walls are unknown (see module docs).
+/// parts left out), a cell closed by the parts taken closed; `None` when a
+/// part's walls are unknown (see module docs).
 pub fn torsion(parts: &[PlacedPart]) -> Result<Option<TorsionProperties>, SectionError> {
+    torsion_with(parts, false)
+}
+
+/// As [`torsion`]; `laced` (the section is described as laced or
+/// battened) keeps a cell closed by the parts cut, as open.
+pub fn torsion_with(
+    parts: &[PlacedPart],
+    laced: bool,
+) -> Result<Option<TorsionProperties>, SectionError> {
     let mut walls: Vec<Vec<Wall>> = Vec::new();
     let mut built: Vec<Vec<Wall>> = Vec::new();
     let mut compact = Vec::new();
@@ -126,13 +192,16 @@ pub fn torsion(parts: &[PlacedPart]) -> Result<Option<TorsionProperties>, Sectio
                 walls.push(place(ws, factor, (sx, sy)));
                 built.push(place(original, 1.0, (0.0, 0.0)));
             }
-            (Shape3::Compact(j), _) => compact.push((r.props.centroid_x, r.props.centroid_y, j)),
+            (Shape3::Compact(j), _) => {
+                let tube = matches!(p.shape, Shape::Pipe { .. } | Shape::RectTube { .. });
+                compact.push((r.props.centroid_x, r.props.centroid_y, j, tube))
+            }
             _ => return Ok(None),
         }
     }
     match (walls.len(), compact.len()) {
         (0, 1) => {
-            let (x, y, j) = compact[0];
+            let (x, y, j, tube) = compact[0];
             Ok(Some(TorsionProperties {
                 j,
                 cw: 0.0,
@@ -140,10 +209,15 @@ pub fn torsion(parts: &[PlacedPart]) -> Result<Option<TorsionProperties>, Sectio
                 shear_centre_y: y,
                 closed_cells: 0,
                 links: 0,
+                cell: if tube {
+                    TorsionCell::Closed
+                } else {
+                    TorsionCell::Solid
+                },
             }))
         }
         (0, _) => Ok(None),
-        (_, 0) => Ok(open_section(&walls, &built)),
+        (_, 0) => Ok(open_section(&walls, &built, !laced)),
         _ => Ok(None),
     }
 }
@@ -451,21 +525,43 @@ fn find(parent: &mut [usize], i: usize) -> usize {
     r
 }
 
-/// One element of the joined section: node indices and end thicknesses.
+/// One element of the joined section: node indices and end thicknesses;
+/// for a joint between parts that touch, `jog` is the lesser thickness of
+/// the two walls it joins (the joint itself has no area).
 struct Element {
     i: usize,
     j: usize,
     ta: f64,
     tb: f64,
+    jog: Option<f64>,
 }
 
-/// The joined open section of `parts` (as inspected); where parts touch is
-/// decided on the as-built walls `built` (a ply thinned by corrosion is
-/// still riveted to the next).
-fn open_section(parts: &[Vec<Wall>], built: &[Vec<Wall>]) -> Option<TorsionProperties> {
-    let scale = parts.iter().flatten().map(|w| w.len()).fold(0.0, f64::max);
-    let touch = 1e-6 * scale;
-    // Candidate joints: the closest walls of every pair of parts.
+/// The joined section of `parts` (as inspected): with one closed cell and
+/// `allow_cell`, by Bredt–Batho; otherwise open, any closed cells cut, and
+/// [`TorsionProperties::cell`] says why.
+fn open_section(
+    parts: &[Vec<Wall>],
+    built: &[Vec<Wall>],
+    allow_cell: bool,
+) -> Option<TorsionProperties> {
+    if allow_cell {
+        if let Some(out) = joined(parts, built, true) {
+            if out.cell == TorsionCell::Closed {
+                return Some(out);
+            }
+        }
+    }
+    let mut out = joined(parts, built, false)?;
+    out.cell = match out.closed_cells {
+        0 => TorsionCell::Open,
+        1 if !allow_cell => TorsionCell::CutLaced,
+        _ => TorsionCell::CutCells,
+    };
+    Some(out)
+}
+
+/// Candidate joints: the closest walls of every pair of parts (as built).
+fn candidate_joints(built: &[Vec<Wall>], touch: f64) -> Vec<Joint> {
     let mut joints = Vec::new();
     for p in 0..built.len() {
         for q in p + 1..built.len() {
@@ -491,15 +587,27 @@ fn open_section(parts: &[Vec<Wall>], built: &[Vec<Wall>]) -> Option<TorsionPrope
             joints.extend(best);
         }
     }
+    joints
+}
+
+/// The joined section of `parts` (as inspected); where parts touch is
+/// decided on the as-built walls `built` (a ply thinned by corrosion is
+/// still riveted to the next). With `allow_cell` and one contact closing a
+/// cell, that contact is joined and the cell taken closed.
+fn joined(parts: &[Vec<Wall>], built: &[Vec<Wall>], allow_cell: bool) -> Option<TorsionProperties> {
+    let scale = parts.iter().flatten().map(|w| w.len()).fold(0.0, f64::max);
+    let touch = 1e-6 * scale;
+    let mut joints = candidate_joints(built, touch);
     joints.sort_by(|a, b| a.gap.total_cmp(&b.gap));
     let mut parent: Vec<usize> = (0..parts.len()).collect();
-    let (mut closed_cells, mut links) = (0, 0);
+    let mut links = 0;
     let mut used = Vec::new();
+    let mut closers = Vec::new();
     for jn in joints {
         let (a, b) = (find(&mut parent, jn.parts.0), find(&mut parent, jn.parts.1));
         if a == b {
             if jn.gap <= touch {
-                closed_cells += 1;
+                closers.push(jn);
             }
             continue;
         }
@@ -508,6 +616,14 @@ fn open_section(parts: &[Vec<Wall>], built: &[Vec<Wall>]) -> Option<TorsionPrope
             links += 1;
         }
         used.push(jn);
+    }
+    // One contact closing a cell of parts that touch: joined, and the cell
+    // kept (Bredt–Batho) when allowed; otherwise every such contact is left
+    // unjoined (cut) and counted.
+    let cell = allow_cell && closers.len() == 1;
+    let closing = if cell { 0 } else { closers.len() };
+    if cell {
+        used.extend(closers);
     }
     // Split walls at joints; nodes shared within a part by coordinates.
     let mut nodes: Vec<(f64, f64)> = Vec::new();
@@ -556,6 +672,7 @@ fn open_section(parts: &[Vec<Wall>], built: &[Vec<Wall>]) -> Option<TorsionPrope
                             j: k,
                             ta: t0,
                             tb: t,
+                            jog: None,
                         });
                     }
                 }
@@ -563,16 +680,21 @@ fn open_section(parts: &[Vec<Wall>], built: &[Vec<Wall>]) -> Option<TorsionPrope
             }
         }
     }
-    for &(a, b) in &joint_nodes {
+    for (&(a, b), jn) in joint_nodes.iter().zip(&used) {
+        let (wp, wq) = (
+            &parts[jn.parts.0][jn.walls.0],
+            &parts[jn.parts.1][jn.walls.1],
+        );
         elements.push(Element {
             i: a,
             j: b,
             ta: 0.0,
             tb: 0.0,
+            jog: (jn.gap <= touch).then(|| wp.at(jn.at.0).1.min(wq.at(jn.at.1).1)),
         });
     }
-    let mut out = integrate(&nodes, &elements)?;
-    out.closed_cells += closed_cells;
+    let mut out = integrate(&nodes, &elements, cell)?;
+    out.closed_cells += closing;
     out.links = links;
     Some(out)
 }
@@ -583,10 +705,12 @@ fn simpson(l: f64, ta: f64, tb: f64, f: impl Fn(f64) -> f64) -> f64 {
     l / 6.0 * (f(0.0) * ta + 4.0 * f(0.5) * tm + f(1.0) * tb)
 }
 
-/// Sectorial integrals over a connected set of elements (cycles are cut and
-/// counted as closed cells).
-fn integrate(nodes: &[(f64, f64)], els: &[Element]) -> Option<TorsionProperties> {
-    let n = nodes.len();
+/// Sectorial integrals over a connected set of elements. With `allow_cell`
+/// and exactly one cycle, the cycle is the closed cell (see `cell.rs`): `J`
+/// by Bredt–Batho plus the branches' `Σ∫t³ds/3`, the shear centre from the
+/// closed-section sectorial coordinate, `Cw = 0`. Otherwise cycles are cut
+/// (their closing elements left out) and counted as closed cells.
+fn integrate(nodes: &[(f64, f64)], els: &[Element], allow_cell: bool) -> Option<TorsionProperties> {
     let lens: Vec<f64> = els
         .iter()
         .map(|e| (nodes[e.j].0 - nodes[e.i].0).hypot(nodes[e.j].1 - nodes[e.i].1))
@@ -595,70 +719,42 @@ fn integrate(nodes: &[(f64, f64)], els: &[Element]) -> Option<TorsionProperties>
         let (a, b) = (nodes[e.i], nodes[e.j]);
         (a.0 + s * (b.0 - a.0), a.1 + s * (b.1 - a.1))
     };
-    // Area, centroid, thin-walled second moments.
-    let area: f64 = els
-        .iter()
-        .zip(&lens)
-        .map(|(e, &l)| l * (e.ta + e.tb) / 2.0)
-        .sum();
-    if area.is_nan() || area <= 0.0 {
-        return None;
-    }
-    let first = |k: usize| -> f64 {
-        els.iter()
-            .zip(&lens)
-            .map(|(e, &l)| {
-                simpson(l, e.ta, e.tb, |s| {
-                    let p = lerp(e, s);
-                    if k == 0 {
-                        p.0
-                    } else {
-                        p.1
-                    }
-                })
-            })
-            .sum::<f64>()
-            / area
+    let (area, cx, cy) = centroid(els, &lens, &lerp)?;
+    let (order, up) = spanning_tree(nodes.len(), els)?;
+    // Elements not in the tree close a loop: their ω would be two-valued
+    // unless the loop is taken as a closed cell.
+    let in_tree: Vec<bool> = {
+        let mut v = vec![false; els.len()];
+        for &(_, _, k) in &order {
+            v[k] = true;
+        }
+        v
     };
-    let (cx, cy) = (first(0), first(1));
-    // Sectorial coordinate about the centroid by walking the tree.
-    let mut adj = vec![Vec::new(); n];
-    for (k, e) in els.iter().enumerate() {
-        adj[e.i].push(k);
-        adj[e.j].push(k);
-    }
-    let mut omega = vec![f64::NAN; n];
-    let mut tree = vec![false; els.len()];
-    let mut cut = 0;
-    let mut stack = vec![0usize];
+    let cut: Vec<usize> = (0..els.len()).filter(|&k| !in_tree[k]).collect();
+    let closed = match cut.as_slice() {
+        [k] if allow_cell => cell::find(nodes, els, &lens, &up, *k),
+        _ => None,
+    };
+    let use_el: Vec<bool> = (0..els.len())
+        .map(|k| in_tree[k] || closed.is_some())
+        .collect();
+    // Sectorial coordinate about the centroid along the tree; on the cell's
+    // walls less ψ·∫ds/t, ψ = 2A₀/∮ds/t (the closed-section coordinate).
+    let psi = closed.as_ref().map_or(0.0, |c| c.two_a0 / c.oint);
+    let mut omega = vec![f64::NAN; nodes.len()];
     omega[0] = 0.0;
-    while let Some(a) = stack.pop() {
-        for &k in &adj[a] {
-            if tree[k] {
-                continue;
+    for &(a, b, k) in &order {
+        let (pa, pb) = (nodes[a], nodes[b]);
+        let (xa, ya, xb, yb) = (pa.0 - cx, pa.1 - cy, pb.0 - cx, pb.1 - cy);
+        let along = closed.as_ref().map_or(0.0, |c| {
+            let d = f64::from(c.dir[k]);
+            if a == els[k].i {
+                d * c.flex[k]
+            } else {
+                -d * c.flex[k]
             }
-            let e = &els[k];
-            let b = if e.i == a { e.j } else { e.i };
-            if !omega[b].is_nan() {
-                continue;
-            }
-            tree[k] = true;
-            let (pa, pb) = (nodes[a], nodes[b]);
-            let (xa, ya, xb, yb) = (pa.0 - cx, pa.1 - cy, pb.0 - cx, pb.1 - cy);
-            omega[b] = omega[a] + xa * yb - xb * ya;
-            stack.push(b);
-        }
-    }
-    if omega.iter().any(|w| w.is_nan()) {
-        return None;
-    }
-    // Elements not in the tree close a loop: their ω would be two-valued.
-    let mut use_el = vec![true; els.len()];
-    for k in 0..els.len() {
-        if !tree[k] {
-            cut += 1;
-            use_el[k] = false;
-        }
+        });
+        omega[b] = omega[a] + xa * yb - xb * ya - psi * along;
     }
     let sum = |f: &dyn Fn(f64, f64, f64) -> f64| -> f64 {
         els.iter()
@@ -687,29 +783,108 @@ fn integrate(nodes: &[(f64, f64)], els: &[Element]) -> Option<TorsionProperties>
     let ys = (ixy * iwy - ix * iwx) / det;
     let ws = |x: f64, y: f64, w: f64| w - xs * y + ys * x;
     let mean = sum(&|x, y, w| ws(x, y, w)) / area;
-    let cw = sum(&|x, y, w| (ws(x, y, w) - mean).powi(2));
-    let j: f64 = els
-        .iter()
-        .zip(&lens)
-        .map(|(e, &l)| {
-            // ∫t³ds for linear t: L·(ta³ + ta²tb + ta·tb² + tb³)/4.
-            l * (e.ta.powi(3) + e.ta.powi(2) * e.tb + e.ta * e.tb.powi(2) + e.tb.powi(3))
-                / 4.0
-                / 3.0
-        })
-        .sum();
+    // ∫t³ds/3 for linear t: L·(ta³ + ta²tb + ta·tb² + tb³)/12; on the cell
+    // only the branches count (the cell's walls are in Bredt's term).
+    let open_j = |k: usize| {
+        let (e, l) = (&els[k], lens[k]);
+        l * (e.ta.powi(3) + e.ta.powi(2) * e.tb + e.ta * e.tb.powi(2) + e.tb.powi(3)) / 12.0
+    };
+    let (j, cw, cell) = match &closed {
+        Some(c) => (
+            c.two_a0 * c.two_a0 / c.oint
+                + (0..els.len())
+                    .filter(|&k| c.dir[k] == 0)
+                    .map(open_j)
+                    .sum::<f64>(),
+            0.0,
+            TorsionCell::Closed,
+        ),
+        None => (
+            (0..els.len()).map(open_j).sum(),
+            sum(&|x, y, w| (ws(x, y, w) - mean).powi(2)).max(0.0),
+            TorsionCell::Open,
+        ),
+    };
     let out = TorsionProperties {
         j,
-        cw: cw.max(0.0),
+        cw,
         shear_centre_x: cx + xs,
         shear_centre_y: cy + ys,
-        closed_cells: cut,
+        closed_cells: cut.len(),
         links: 0,
+        cell,
     };
     [out.j, out.cw, out.shear_centre_x, out.shear_centre_y]
         .iter()
         .all(|v| v.is_finite())
         .then_some(out)
+}
+
+/// Thin-walled area and centroid of the elements; `None` without area.
+fn centroid(
+    els: &[Element],
+    lens: &[f64],
+    lerp: &dyn Fn(&Element, f64) -> (f64, f64),
+) -> Option<(f64, f64, f64)> {
+    let area: f64 = els
+        .iter()
+        .zip(lens)
+        .map(|(e, &l)| l * (e.ta + e.tb) / 2.0)
+        .sum();
+    if area.is_nan() || area <= 0.0 {
+        return None;
+    }
+    let first = |k: usize| -> f64 {
+        els.iter()
+            .zip(lens)
+            .map(|(e, &l)| {
+                simpson(l, e.ta, e.tb, |s| {
+                    let p = lerp(e, s);
+                    if k == 0 {
+                        p.0
+                    } else {
+                        p.1
+                    }
+                })
+            })
+            .sum::<f64>()
+            / area
+    };
+    Some((area, first(0), first(1)))
+}
+
+/// A spanning tree of the elements from node 0: the edges `(from, to,
+/// element)` in the order walked, and for every node the node and element
+/// it was reached from (`None` for node 0). `None` when a node is not reached.
+#[allow(clippy::type_complexity)]
+fn spanning_tree(
+    n: usize,
+    els: &[Element],
+) -> Option<(Vec<(usize, usize, usize)>, Vec<Option<(usize, usize)>>)> {
+    let mut adj = vec![Vec::new(); n];
+    for (k, e) in els.iter().enumerate() {
+        adj[e.i].push(k);
+        adj[e.j].push(k);
+    }
+    let mut seen = vec![false; n];
+    let mut up = vec![None; n];
+    let mut order = Vec::new();
+    let mut stack = vec![0usize];
+    seen[0] = true;
+    while let Some(a) = stack.pop() {
+        for &k in &adj[a] {
+            let e = &els[k];
+            let b = if e.i == a { e.j } else { e.i };
+            if seen[b] {
+                continue;
+            }
+            seen[b] = true;
+            up[b] = Some((a, k));
+            order.push((a, b, k));
+            stack.push(b);
+        }
+    }
+    seen.iter().all(|&s| s).then_some((order, up))
 }
 
 #[cfg(test)]
@@ -960,18 +1135,162 @@ mod tests {
     }
 
     #[test]
-    fn box_of_plates_is_reported_as_a_closed_cell() {
-        // Four plates touching at the corners close one cell: treated as
-        // open (cut), J = Σ b t³/3, one closed cell reported.
+    fn square_tube_of_plates_by_bredt() {
+        // Four plates 1/2 in thick making a 10 × 10 in (outside) square tube:
+        // top and bottom 10 × 1/2 at y = ±4.75, sides 9 × 1/2 between them
+        // at x = ±4.75. Centre-line cell 9.5 × 9.5 in: Bredt (closed form)
+        // J = 4A₀²t/p = 4·(9.5²)²·0.5/(4·9.5) = 428.69 in⁴, plus the four
+        // 0.25 in overhangs of the top and bottom plates past the side
+        // centre lines, 4·0.25·0.5³/3 = 0.042 in⁴.
         let parts = vec![
-            plate(10.0, 0.5, 0.0, 5.0),
-            plate(10.0, 0.5, 0.0, -5.0),
-            web(10.0, 0.5, 5.0, 0.0),
-            web(10.0, 0.5, -5.0, 0.0),
+            plate(10.0, 0.5, 0.0, 4.75),
+            plate(10.0, 0.5, 0.0, -4.75),
+            web(9.0, 0.5, 4.75, 0.0),
+            web(9.0, 0.5, -4.75, 0.0),
         ];
         let t = torsion(&parts).unwrap().unwrap();
-        assert_eq!(t.closed_cells, 1);
-        assert_relative_eq!(t.j, 4.0 * 10.0 * 0.125 / 3.0, max_relative = 1e-12);
+        let bredt = 4.0 * (9.5f64 * 9.5).powi(2) * 0.5 / (4.0 * 9.5);
+        assert_relative_eq!(bredt, 428.69, max_relative = 1e-4);
+        assert_relative_eq!(t.j, bredt + 4.0 * 0.25 * 0.125 / 3.0, max_relative = 1e-12);
+        assert_eq!(
+            (t.cell, t.closed_cells, t.links),
+            (TorsionCell::Closed, 1, 0)
+        );
+        // Cw = 0 taken for the closed cell; doubly symmetric: shear centre
+        // at the centroid.
+        assert_eq!(t.cw, 0.0);
+        assert!(t.shear_centre_x.abs() < 1e-9 && t.shear_centre_y.abs() < 1e-9);
+        // The rolled tube of the same size by the closed form used for
+        // `RectTube` (Bredt with the mid-wall rectangle, 2t(b−t)²(h−t)²/(b+h−2t)).
+        let tube = one(Shape::RectTube {
+            width: 10.0,
+            height: 10.0,
+            wall: 0.5,
+        });
+        assert_relative_eq!(tube.j, bredt, max_relative = 1e-12);
+        assert_eq!(tube.cell, TorsionCell::Closed);
+        // Described as laced or battened: cut, the open value Σ b t³/3 as
+        // before (2·10 + 2·9)·0.5³/3, and said so.
+        let laced = torsion_with(&parts, true).unwrap().unwrap();
+        assert_eq!((laced.cell, laced.closed_cells), (TorsionCell::CutLaced, 1));
+        assert_relative_eq!(laced.j, 38.0 * 0.125 / 3.0, max_relative = 1e-12);
+        assert!(laced.cw > 0.0);
+    }
+
+    #[test]
+    fn two_c12x20_7_toes_in_with_cover_plates_by_hand() {
+        // C12×20.7 (AISC Manual, from memory: d 12.00, bf 2.942, tw 0.282,
+        // tf 0.501), backs 12 in apart, toes in; cover plates 14 × 1/2 on
+        // the flanges top and bottom. Centre-line cell (hand):
+        //
+        //     y = +6.25  ┌──────────────────────┐   plate t 0.5
+        //                │                      │
+        //     webs at x = ±(6 − 0.282/2) = ±5.859, t 0.282, running from
+        //     the flange centre line ±5.7495 on to the plate centre line
+        //     (the jog through the riveted flange and plate taken at the
+        //     least thickness, the web's)
+        //                │                      │
+        //     y = −6.25  └──────────────────────┘
+        //
+        // A₀ = 11.718 × 12.5 = 146.48 in²; ∮ds/t = 2·11.718/0.5 + 2·12.5/0.282
+        // = 135.52; Bredt 4A₀²/∮ds/t = 633.2 in⁴; open branches: four flanges
+        // (2.942 − 0.141) = 2.801 × 0.501 and four plate overhangs
+        // (7 − 5.859) = 1.141 × 0.5, Σ b t³/3 = 0.660; J ≈ 633.9 in⁴.
+        let (d, bf, tw, tf) = (12.0, 2.942, 0.282, 0.501);
+        let ch = Shape::Channel {
+            depth: d,
+            flange_width: bf,
+            web_thickness: tw,
+            flange_thickness: tf,
+            flange_slope: 1.0 / 6.0,
+        };
+        let xbar = ch.local(0).unwrap().cx;
+        let mut parts = vec![
+            PlacedPart::new(ch.clone(), -6.0 + xbar, 0.0),
+            PlacedPart::new(ch, 6.0 - xbar, 0.0).oriented(Orientation::Toes(Direction::NegX)),
+            plate(14.0, 0.5, 0.0, 6.25),
+            plate(14.0, 0.5, 0.0, -6.25),
+        ];
+        let t = torsion(&parts).unwrap().unwrap();
+        let (b0, h0) = (2.0 * (6.0 - tw / 2.0), 12.5);
+        let bredt = 4.0 * (b0 * h0).powi(2) / (2.0 * b0 / 0.5 + 2.0 * h0 / tw);
+        let branches = (4.0 * (bf - tw / 2.0) * tf.powi(3) + 4.0 * (7.0 - b0 / 2.0) * 0.125) / 3.0;
+        assert_relative_eq!(t.j, bredt + branches, max_relative = 1e-9);
+        assert_relative_eq!(t.j, 633.9, max_relative = 2e-4);
+        assert_eq!((t.cell, t.closed_cells), (TorsionCell::Closed, 1));
+        assert_eq!(t.cw, 0.0);
+        assert!(t.shear_centre_x.abs() < 1e-9 && t.shear_centre_y.abs() < 1e-9);
+        // The same channels laced (no cover plates): open, as today,
+        // Σ b t³/3 of the channels' walls, and far below.
+        let open_ch = 2.0 * (2.0 * (bf - tw / 2.0) * tf.powi(3) + (d - tf) * tw.powi(3)) / 3.0;
+        parts.truncate(2);
+        let laced = torsion(&parts).unwrap().unwrap();
+        assert_eq!((laced.cell, laced.links), (TorsionCell::Open, 1));
+        assert_relative_eq!(laced.j, open_ch, max_relative = 1e-12);
+        // One cover plate (the other face laced): no cell, open.
+        parts.push(plate(14.0, 0.5, 0.0, 6.25));
+        let one_plate = torsion(&parts).unwrap().unwrap();
+        assert_eq!(
+            (one_plate.cell, one_plate.closed_cells),
+            (TorsionCell::Open, 0)
+        );
+        assert_relative_eq!(
+            one_plate.j,
+            open_ch + 14.0 * 0.125 / 3.0,
+            max_relative = 1e-12
+        );
+    }
+
+    #[test]
+    fn singly_symmetric_box_shear_centre_by_shear_flow() {
+        // Box of four plates meeting at their centre lines: b = 10 between
+        // web centre lines, h = 16 between flange centre lines, flanges
+        // tf = 0.5, left web t1 = 0.375 (x = 0), right web t2 = 0.75 (x = b).
+        // By hand, shear-flow method (closed form): vertical shear V,
+        // k = V/Ix, Ix = (t1 + t2)h³/12 + 2·b·tf·(h/2)²; the cell cut at the
+        // top-left corner with closing flow q_c, from zero twist
+        // ∮q/t ds = 0: q_c = k·tf·h·b·(h/t2 + b/tf)/(2(2b/tf + h/t1 + h/t2));
+        // moments about the left web:
+        // e·V = −2·h·b·q_c + ¾·k·tf·h²b² + k·t2·b·h³/12
+        // (e = b/2 when t1 = t2; the open channel's e' = b + 3b²tf/(6b·tf + h·t2)
+        // when t1 → 0). Bredt: J = 4(bh)²/(2b/tf + h/t1 + h/t2).
+        let (b, h, tf, t1, t2) = (10.0, 16.0, 0.5, 0.375, 0.75);
+        let parts = vec![
+            plate(b, tf, b / 2.0, h / 2.0),
+            plate(b, tf, b / 2.0, -h / 2.0),
+            web(h, t1, 0.0, 0.0),
+            web(h, t2, b, 0.0),
+        ];
+        let t = torsion(&parts).unwrap().unwrap();
+        let k = 1.0;
+        let ix = (t1 + t2) * h.powi(3) / 12.0 + 2.0 * b * tf * (h / 2.0).powi(2);
+        let qc = k * tf * h * b * (h / t2 + b / tf) / (2.0 * (2.0 * b / tf + h / t1 + h / t2));
+        let e = (-2.0 * h * b * qc + 0.75 * k * tf * h * h * b * b + k * t2 * b * h.powi(3) / 12.0)
+            / (k * ix);
+        assert!(e > b / 2.0, "toward the thicker web: {e}");
+        assert_relative_eq!(t.shear_centre_x, e, max_relative = 1e-9);
+        assert!(t.shear_centre_y.abs() < 1e-9);
+        let oint = 2.0 * b / tf + h / t1 + h / t2;
+        assert_relative_eq!(t.j, 4.0 * (b * h).powi(2) / oint, max_relative = 1e-12);
+        assert_eq!((t.cell, t.cw), (TorsionCell::Closed, 0.0));
+    }
+
+    #[test]
+    fn two_cells_are_cut_and_reported() {
+        // Plates 20 × 1/2 at y = ±5 and three 10 × 1/2 webs at x = −10, 0,
+        // 10: two cells. Bredt–Batho is taken for one cell only, so the
+        // section stays open (cut), J = Σ b t³/3 = (2·20 + 3·10)·0.5³/3.
+        let parts = vec![
+            plate(20.0, 0.5, 0.0, 5.0),
+            plate(20.0, 0.5, 0.0, -5.0),
+            web(10.0, 0.5, -10.0, 0.0),
+            web(10.0, 0.5, 0.0, 0.0),
+            web(10.0, 0.5, 10.0, 0.0),
+        ];
+        let t = torsion(&parts).unwrap().unwrap();
+        assert_eq!((t.cell, t.closed_cells), (TorsionCell::CutCells, 2));
+        assert_relative_eq!(t.j, 70.0 * 0.125 / 3.0, max_relative = 1e-12);
+        assert!(t.cw > 0.0);
     }
 
     #[test]
@@ -989,7 +1308,7 @@ mod tests {
             PlacedPart::new(ch, 4.0, 0.0).oriented(Orientation::Toes(Direction::NegX)),
         ];
         let t = torsion(&parts).unwrap().unwrap();
-        assert_eq!(t.links, 1);
+        assert_eq!((t.links, t.cell), (1, TorsionCell::Open));
         assert!(t.shear_centre_x.abs() < 1e-9);
         let given = vec![PlacedPart::new(Shape::given(8.2, 190.0, 6.3), 0.0, 0.0)];
         assert_eq!(torsion(&given).unwrap(), None);
