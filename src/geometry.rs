@@ -323,6 +323,7 @@ mod tests {
                     k_out: 1.0,
                     unbraced_in: None,
                     unbraced_out: None,
+                    bars: 1,
                 })
                 .collect(),
             supports: vec![],
@@ -332,6 +333,7 @@ mod tests {
             live: Default::default(),
             fatigue: None,
             stability: Default::default(),
+            pins: Vec::new(),
         }
     }
 

@@ -126,6 +126,10 @@ pub struct Member {
     /// Unbraced lengths in and out of plane, m (None: the member length).
     pub unbraced_in: Option<f64>,
     pub unbraced_out: Option<f64>,
+    /// Parallel eyebars (or bars) making up the member, 1 for an ordinary
+    /// member (`bars: N`; see `joint/pin/eyebar.rs` for the sharing and the
+    /// MBE system factor of multiple-eyebar members).
+    pub bars: u32,
 }
 
 /// How a support holds its node.
@@ -242,6 +246,8 @@ pub struct Model {
     pub fatigue: Option<crate::fatigue::Settings>,
     /// Rigid joints, U-frames and vibration data (defaults when not given).
     pub stability: crate::stability::Settings,
+    /// Pins of a pin-connected truss and their stacks of bars (`pins`).
+    pub pins: Vec<crate::joint::pin::Pin>,
 }
 
 /// A named linear combination of load cases: Σ factor × case (live cases

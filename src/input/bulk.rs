@@ -548,7 +548,7 @@ fn node(r: &mut Row) -> Option<NodeFile> {
 fn member(r: &mut Row) -> Option<MemberFile> {
     let (mut id, mut start, mut end, mut section, mut material) = (None, None, None, None, None);
     let (mut k_in, mut k_out, mut unbraced_in, mut unbraced_out) = (None, None, None, None);
-    let mut detail = None;
+    let (mut detail, mut bars) = (None, None);
     r.fields(|r, name| match name {
         b"id" => once(&mut id, r.id()),
         b"start" => once(&mut start, r.id()),
@@ -560,6 +560,7 @@ fn member(r: &mut Row) -> Option<MemberFile> {
         b"unbraced_in" => once(&mut unbraced_in, r.quantity()),
         b"unbraced_out" => once(&mut unbraced_out, r.quantity()),
         b"detail" => once(&mut detail, r.string()),
+        b"bars" => once(&mut bars, r.number(false).and_then(count)),
         _ => None,
     })?;
     Some(MemberFile {
@@ -573,7 +574,13 @@ fn member(r: &mut Row) -> Option<MemberFile> {
         unbraced_in,
         unbraced_out,
         detail,
+        bars,
     })
+}
+
+/// A whole number that fits a u32 (anything else goes to the RON parser).
+fn count(v: f64) -> Option<u32> {
+    (v.fract() == 0.0 && (0.0..=u32::MAX as f64).contains(&v)).then_some(v as u32)
 }
 
 #[cfg(test)]

@@ -54,6 +54,10 @@ pub struct ModelFile {
     /// `input/stability.rs`.
     #[serde(default)]
     pub stability: Option<super::stability::StabilityFile>,
+    /// Pins of a pin-connected truss and their stacks of bars; see
+    /// `input/pins.rs`.
+    #[serde(default)]
+    pub pins: Vec<super::pins::PinFile>,
     /// Fatigue vehicle, traffic and evaluation parameters; see
     /// `docs/fatigue.md` and `input/fatigue.rs`.
     #[serde(default)]
@@ -299,6 +303,10 @@ pub struct MemberFile {
     /// ("71"), or both ("D 71").
     #[serde(default)]
     pub detail: Option<String>,
+    /// Parallel eyebars making up the member (default 1); see
+    /// `joint/pin/eyebar.rs`.
+    #[serde(default)]
+    pub bars: Option<u32>,
 }
 
 #[derive(Debug, Deserialize)]

@@ -78,6 +78,7 @@ mod tests {
             k_out: 1.0,
             unbraced_in: None,
             unbraced_out: None,
+            bars: 1,
         }];
         let sections = vec![Section {
             id: "s".into(),
