@@ -59,7 +59,7 @@ fn rate_one(
             1.0,
         )
     };
-    let cs = method.condition_system(level);
+    let cs = method.condition_system_with(level, cap.phi_s);
     let capacity = cs * phi * nominal * rp;
     let gamma_dc = level.dc.applied(d.dc, s);
     let gamma_dw = level.dw.applied(d.dw, s);
@@ -86,7 +86,7 @@ fn rate_one(
         gamma_live: level.gamma_live,
         phi,
         phi_c: method.phi_c,
-        phi_s: method.phi_s,
+        phi_s: cap.phi_s,
         phi_cs: cs,
         rp,
         u,

@@ -10,7 +10,7 @@ use super::statics::diagram_unchecked;
 use super::strength::{self, Basis};
 use super::{Bar, BarKind, Carrier, Pin};
 use crate::joint::{Eval, JointCheck, JointSet};
-use crate::method::{lrfr, Family, Level, Method};
+use crate::method::{Family, Level, Method};
 use crate::model::Model;
 use crate::units::{plain, Dimension};
 use std::sync::Arc;
@@ -230,13 +230,7 @@ struct EyebarBody {
 
 impl EyebarBody {
     fn cs(&self, method: &Method, level: &Level) -> f64 {
-        if level.condition_system {
-            let phi_s =
-                eyebar::member_phi_s(method.phi_s, self.bars, method.family == Family::Lrfr);
-            (method.phi_c * phi_s).max(lrfr::PHI_CS_FLOOR)
-        } else {
-            1.0
-        }
+        method.condition_system_with(level, method.member_phi_s(self.bars))
     }
 }
 
