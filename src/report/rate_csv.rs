@@ -1,7 +1,8 @@
 //! `panelpoint rate --format csv`: one row per member and load case or
 //! combination, units in the headers; then, after a blank line, one row
 //! per member, live load and rating level with every factor; then, after
-//! another blank line, the postings of legal loads (when there are any).
+//! another blank line, the postings of legal loads (when there are any);
+//! then, after another, one row per joint check, live load and level.
 
 use super::csv::{field, num};
 use super::rate_rows::{by_rating, by_utilization, check_row, posting_view, rating_row};
@@ -85,7 +86,7 @@ pub fn rate(w: &mut dyn Write, model: &Model, rating: &Rating) -> io::Result<()>
             f = s.force_name
         )?;
         for p in &rating.postings {
-            let v = posting_view(model, p);
+            let v = posting_view(model, rating, p);
             writeln!(
                 w,
                 "{},{},{},{},{},{},{},{},{}",
@@ -93,13 +94,54 @@ pub fn rate(w: &mut dyn Write, model: &Model, rating: &Rating) -> io::Result<()>
                 num(v.weight),
                 num(v.weight_tons),
                 num(v.rf),
-                field(v.member),
+                field(&v.member),
                 v.posting.flatten().map_or(String::new(), num),
                 v.posting_tons.map_or(String::new(), num),
                 field(&super::rate_rows::posting_words(&v)),
                 field(v.clause)
             )?;
         }
+    }
+    joints(w, model, rating)
+}
+
+/// One row per joint check, live load and level: demand and resistance with
+/// the factored dead load and the live load at its factor.
+fn joints(w: &mut dyn Write, model: &Model, rating: &Rating) -> io::Result<()> {
+    let Some(j) = &rating.joints else {
+        return Ok(());
+    };
+    writeln!(
+        w,
+        "\nnode,check,member,part,live_load,level,rf,demand,resistance,unit,gamma_dc,gamma_dw,gamma_live,position,clause"
+    )?;
+    for r in &j.ratings {
+        let c = &j.checks[r.check];
+        let dim = c.dimension();
+        let (demand, unit) = super::joint_rows::shown(model, dim, r.factored.demand);
+        let (resistance, _) = super::joint_rows::shown(model, dim, r.factored.resistance);
+        writeln!(
+            w,
+            "{},{},{},{},{},{},{},{},{},{},{},{},{},{},{}",
+            field(&model.nodes[c.node()].id),
+            field(c.kind()),
+            field(
+                &c.member()
+                    .map_or(String::new(), |m| model.members[m].id.to_string())
+            ),
+            field(&c.part()),
+            field(&r.live_id),
+            r.level,
+            r.rf.map_or(String::new(), num),
+            num(demand),
+            num(resistance),
+            field(&unit),
+            num(r.gamma_dc),
+            num(r.gamma_dw),
+            num(r.gamma_live),
+            field(r.at.as_deref().unwrap_or("")),
+            field(c.clause(&rating.method))
+        )?;
     }
     Ok(())
 }
