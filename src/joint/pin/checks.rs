@@ -341,6 +341,7 @@ pub fn checks(model: &Model) -> JointSet {
         }
         proportion_notes(model, pin, &len, &mut out.notes);
     }
+    eyebar_notes(model, &len, &mut out.notes);
     if any_shared {
         out.notes.push(format!(
             "multiple-eyebar members: the pin's statics shares a member's force among its bars by thickness; each bar's bearing and body take the most loaded bar at k·F/N, k = {} (this program's choice for unequal sharing, overridable per pin as factors.sharing); lrfr rates these members and bars with φs = 0.90 (MBE Table 6A.4.2.4-1, from memory) unless the model's system factor is lower",
@@ -412,24 +413,8 @@ fn proportion_notes(
     let node = &model.nodes[pin.node].id;
     let mut plain_eyebars = Vec::new();
     for (i, bar) in pin.stack.iter().enumerate() {
-        match (&bar.kind, bar.fy) {
-            (BarKind::Eyebar(Some(head)), fy) => {
-                let p = eyebar::eyebar_proportions(
-                    head,
-                    bar.thickness,
-                    pin.diameter,
-                    fy.unwrap_or(0.0),
-                );
-                let text: Vec<String> = p.iter().map(|p| proportion_text(p, len, &area)).collect();
-                notes.push(format!(
-                    "pin at {node}, bar {} ({}): eyebar head, LRFD 6.8.6 (from memory): {}",
-                    i + 1,
-                    bar.name(),
-                    text.join("; ")
-                ));
-            }
-            (BarKind::Eyebar(None), _) => plain_eyebars.push(format!("{} ({})", i + 1, bar.name())),
-            _ => {}
+        if let BarKind::Eyebar(None) = bar.kind {
+            plain_eyebars.push(format!("{} ({})", i + 1, bar.name()));
         }
     }
     if !plain_eyebars.is_empty() {
@@ -487,6 +472,77 @@ fn proportion_notes(
             "pin at {node}, member \"{id}\": pin plates, LRFD 6.8.7.2 (from memory), An = {} the member's net area: {}",
             area(an),
             text.join("; ")
+        ));
+    }
+}
+
+/// One note per distinct eyebar (member, thickness, head, pin): LRFD 6.8.6
+/// proportions, the ones not met in full and the governing ratio.
+fn eyebar_notes(model: &Model, len: &dyn Fn(f64) -> String, notes: &mut Vec<String>) {
+    let sec = model.units.section;
+    let area = |v: f64| format!("{} {}2", plain(v / (sec.to_si * sec.to_si)), sec.name);
+    type Key = (String, [u64; 6]);
+    let mut seen: Vec<(Key, Vec<String>)> = Vec::new();
+    let mut found: Vec<(Key, Vec<Proportion>, f64)> = Vec::new();
+    for pin in &model.pins {
+        let node = &model.nodes[pin.node].id;
+        for (i, bar) in pin.stack.iter().enumerate() {
+            let BarKind::Eyebar(Some(head)) = &bar.kind else {
+                continue;
+            };
+            let key: Key = (
+                bar.label.clone(),
+                [
+                    head.body,
+                    head.head,
+                    head.beyond,
+                    head.hole,
+                    bar.thickness,
+                    pin.diameter,
+                ]
+                .map(f64::to_bits),
+            );
+            let at = format!("{node} bar {}", i + 1);
+            match seen.iter_mut().find(|(k, _)| *k == key) {
+                Some((_, v)) => v.push(at),
+                None => {
+                    seen.push((key.clone(), vec![at]));
+                    let p = eyebar::eyebar_proportions(
+                        head,
+                        bar.thickness,
+                        pin.diameter,
+                        bar.fy.unwrap_or(0.0),
+                    );
+                    found.push((key, p, head.body * bar.thickness));
+                }
+            }
+        }
+    }
+    for ((key, p, ab), (_, at)) in found.iter().zip(&seen) {
+        let [b, h, a, d, t, pin] = key.1.map(f64::from_bits);
+        let net = (h - d) * t;
+        let failed: Vec<String> = p
+            .iter()
+            .filter(|x| !x.met())
+            .map(|x| proportion_text(x, len, &area))
+            .collect();
+        let verdict = if failed.is_empty() {
+            format!("all {} met", p.len())
+        } else {
+            format!("NOT MET: {}", failed.join("; "))
+        };
+        notes.push(format!(
+            "eyebars of \"{}\" ({} × {}, head {} across a {} hole, {} beyond, on a {} pin; at {}): head proportions, LRFD 6.8.6 (from memory): {verdict}; net section across the hole {} = {}·Ab (1.35 to 1.60)",
+            key.0,
+            len(b),
+            len(t),
+            len(h),
+            len(d),
+            len(a),
+            len(pin),
+            at.join(", "),
+            area(net),
+            plain(net / ab),
         ));
     }
 }
