@@ -183,7 +183,10 @@ fn stacks_are_validated_in_model_terms() {
         1,
     );
     let e = errors(&triangle("", &one_bar));
-    assert!(e.contains("has bars: 2 but 1 eyebars"), "{e}");
+    assert!(
+        e.contains("has bars: 2 but the stack holds 1 of its eyebars"),
+        "{e}"
+    );
     // A member that does not meet the node; overlapping bars.
     let e = errors(&triangle(
         r#", (node: "C", diameter: "4 in", fy: "36 ksi", stack: [(member: "A-B", thickness: 1.0), (load: "x", thickness: 1.0, position: 0.2)])"#,

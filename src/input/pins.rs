@@ -530,7 +530,7 @@ fn check_members(ctx: &mut Ctx, c: &Context, stack: &[Bar], id: &str, node: usiz
         if want >= 2 && eyebars != want {
             ctx.error(
                 format!(
-                    "pin at node \"{id}\": member \"{}\" has bars: {want} but {eyebars} eyebars in the stack ({n} bars of it in all)",
+                    "pin at node \"{id}\": member \"{}\" has bars: {want} but the stack holds {eyebars} of its eyebars ({n} of its bars in all)",
                     c.members[m].id
                 ),
                 None,
