@@ -249,3 +249,23 @@ fn demo_rates_its_pins() {
     let chord = model.members.iter().position(|m| m.id == "L2-L3").unwrap();
     assert_eq!(rating.members[chord].phi_s, 0.90);
 }
+
+mod common;
+
+/// `panelpoint pin`: the SVG of a pin on standard output; an unknown pin
+/// node or a combination with a moving load is refused with exit 2.
+#[test]
+fn pin_command_draws_and_refuses() {
+    let model = concat!(env!("CARGO_MANIFEST_DIR"), "/models/alder-mill-pins.ron");
+    let (code, out, err) = common::run(&["pin", model, "--node", "L2", "--case", "deck"]);
+    assert_eq!(code, 0, "{err}");
+    assert!(out.starts_with("<svg") && out.contains("3 U1-L2 eyebar"));
+    let (code, out, err) = common::run(&["pin", model, "--node", "U2"]);
+    assert_eq!(code, 2);
+    assert!(
+        out.is_empty() && err.contains("no pin at that node") && err.contains("\"L0\""),
+        "{err}"
+    );
+    let (code, _, err) = common::run(&["pin", model, "--node", "L2", "--case", "strength-truck"]);
+    assert_eq!(code, 2, "{err}");
+}
