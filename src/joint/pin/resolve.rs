@@ -89,9 +89,9 @@ impl Resolved {
             sum[1] += f[1];
             out.push(f);
         }
-        for i in 0..self.share.len() {
-            if self.member[i].is_none() {
-                out[i] = [-sum[0] * self.share[i], -sum[1] * self.share[i]];
+        for ((f, m), share) in out.iter_mut().zip(&self.member).zip(&self.share) {
+            if m.is_none() {
+                *f = [-sum[0] * share, -sum[1] * share];
             }
         }
         out
