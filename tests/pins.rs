@@ -269,3 +269,37 @@ fn pin_command_draws_and_refuses() {
     let (code, _, err) = common::run(&["pin", model, "--node", "L2", "--case", "strength-truck"]);
     assert_eq!(code, 2, "{err}");
 }
+
+/// A member removed (sweeps, the redundancy scan) leaves the pins' stacks
+/// naming the same members: its own bars go, later indices move down.
+#[test]
+fn removing_a_member_keeps_the_stacks() {
+    let dir = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("models");
+    let text = std::fs::read_to_string(dir.join("alder-mill-pins.ron")).unwrap();
+    let model = panelpoint::input::load_str_in(&text, Some(&dir))
+        .unwrap()
+        .model;
+    let names = |m: &Model| -> Vec<Vec<String>> {
+        m.pins
+            .iter()
+            .map(|p| {
+                p.stack
+                    .iter()
+                    .map(|b| match b.carrier {
+                        panelpoint::joint::pin::Carrier::Member(k) => m.members[k].id.to_string(),
+                        panelpoint::joint::pin::Carrier::Load => b.label.clone(),
+                    })
+                    .collect()
+            })
+            .collect()
+    };
+    let before = names(&model);
+    let j = model.members.iter().position(|m| m.id == "L2-U2").unwrap();
+    let after = panelpoint::sweep::variant::without_member(&model, j).unwrap();
+    let expected: Vec<Vec<String>> = before
+        .iter()
+        .map(|s| s.iter().filter(|n| *n != "L2-U2").cloned().collect())
+        .collect();
+    assert_eq!(names(&after), expected);
+    assert_eq!(after.pins[2].stack.len(), 7); // L2: 11 bars less the post's 4
+}
