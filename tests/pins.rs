@@ -303,3 +303,13 @@ fn removing_a_member_keeps_the_stacks() {
     assert_eq!(names(&after), expected);
     assert_eq!(after.pins[2].stack.len(), 7); // L2: 11 bars less the post's 4
 }
+
+/// Eyebars are drawn as their own kind of part in the section drawing.
+#[test]
+fn eyebars_have_their_own_look_in_section_drawings() {
+    let model = concat!(env!("CARGO_MANIFEST_DIR"), "/models/alder-mill-pins.ron");
+    let (code, out, err) = common::run(&["section", model, "--id", "chord-5x1", "--format", "svg"]);
+    assert_eq!(code, 0, "{err}");
+    assert_eq!(out.matches(r#"class="part eyebar""#).count(), 2);
+    assert!(out.contains("1 south bar: eyebar"));
+}
