@@ -313,3 +313,44 @@ fn eyebars_have_their_own_look_in_section_drawings() {
     assert_eq!(out.matches(r#"class="part eyebar""#).count(), 2);
     assert!(out.contains("1 south bar: eyebar"));
 }
+
+/// Allowable stress rating (`asr`): the heel pin's bending stress
+/// M/(π·D³/32) = 50.173/6.2832 = 7.985 ksi against 0.80·36 = 28.8 ksi
+/// (0.2773) and its shear V/(π·D²/4) = 33.33/12.566 = 2.653 ksi against
+/// 0.40·36 = 14.4 ksi (0.1842): the check is the larger ratio, 0.2773
+/// (Standard Specifications Table 10.32.1A pin allowables, from memory).
+/// Bearing of a tie bar: 0.80·33·1·4 = 105.6 kip against 1.10 × 33.33.
+#[test]
+fn heel_pin_allowable_stresses_by_hand() {
+    let model = load(&triangle("", STACK));
+    let analysis = panelpoint::analysis::analyse(&model).unwrap();
+    let method = panelpoint::rate::choose_method(&model, Some("asr")).unwrap();
+    let rating = panelpoint::rate::rate(&model, &analysis, method).unwrap();
+    let joints = rating.joints.as_ref().unwrap();
+    let dead = rating.effects.iter().position(|e| e.id == "dead").unwrap();
+    let row = |kind: &str, member: Option<usize>| {
+        joints
+            .rows
+            .iter()
+            .find(|r| {
+                r.effect == dead
+                    && joints.checks[r.check].kind() == kind
+                    && joints.checks[r.check].member() == member
+            })
+            .unwrap()
+            .eval
+    };
+    let pin = row("pin moment and shear", None);
+    let m = (100.0f64 / 3.0).hypot(37.5);
+    let fb = m / (std::f64::consts::PI * 64.0 / 32.0) / (0.8 * 36.0);
+    let fv = (100.0 / 3.0) / (std::f64::consts::PI * 4.0) / (0.4 * 36.0);
+    assert!(fb > fv);
+    assert!(
+        (pin.demand - fb).abs() < 1e-6 && pin.resistance == 1.0,
+        "{pin:?}"
+    );
+    let kip = 4448.2216152605;
+    let tie = row("pin bearing", Some(0));
+    assert!((tie.resistance / kip - 105.6).abs() < 1e-6);
+    assert!((tie.demand / kip - 1.1 * 100.0 / 3.0).abs() < 1e-6);
+}
