@@ -62,6 +62,19 @@ pub struct BuiltUp {
     /// Shear centre, J and Cw of the section as inspected (SI, section
     /// coordinates); `None` when a part is known only by table properties.
     pub torsion: Option<crate::section::TorsionProperties>,
+    /// For a single angle: the leg its end connections go through (AISC
+    /// 360-16 §E5); `None` when not said (the leg giving the larger
+    /// §E5 slenderness is assumed).
+    pub connected_leg: Option<ConnectedLeg>,
+}
+
+/// The leg through which a single-angle member is connected at its ends.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum ConnectedLeg {
+    Long,
+    Short,
+    /// Connected through both legs: no eccentricity of §E5 to allow for.
+    Both,
 }
 
 /// Lacing or battens of a built-up member (AISC 360-16 §E6).

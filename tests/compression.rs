@@ -64,11 +64,17 @@ fn single_angle_strut_is_rated_on_its_minor_principal_axis() {
     //   KL/rz = 120/0.78227 = 153.40; Fe = π²·29000/153.40² = 12.16 ksi;
     //   Fy/Fe > 2.25 → Fcr = 0.877·Fe = 10.67 ksi; φPn = 0.9·10.67·3.75 = 36.0 kip
     //   (against 72.3 kip on the geometric axis: KL/r 98.5, Fcr 21.4 ksi).
+    // Connected through both legs, so that §E5 (one leg) does not apply.
     let text = strut(
-        "(id: \"s\", parts: [Angle(leg_x: 4.0, leg_y: 4.0, thickness: 0.5, x: 0.0, y: 0.0)])",
+        "(id: \"s\", parts: [Angle(leg_x: 4.0, leg_y: 4.0, thickness: 0.5, x: 0.0, y: 0.0)], connected_leg: Both)",
         10.0,
     );
     let (cap, phi_pn) = capacity_kip(&text);
+    assert!(!cap
+        .modes
+        .modes
+        .iter()
+        .any(|m| matches!(m.kind, ModeKind::SingleAngle(_))));
     let i_minor = 5.561458333333333 - 3.2666666666666666;
     let rz = (i_minor / 3.75f64).sqrt();
     assert!((rz - 0.78227).abs() < 1e-5);
@@ -90,6 +96,145 @@ fn single_angle_strut_is_rated_on_its_minor_principal_axis() {
     // (b/t = 8 < 0.45·√(E/Fy) = 12.8, Table B4.1a case 3).
     assert!(cap.modes.modes.iter().any(|m| !m.kind.is_flexural()));
     assert_eq!(cap.effective_area.governing, None);
+}
+
+const L4X4: &str =
+    "(id: \"s\", parts: [Angle(leg_x: 4.0, leg_y: 4.0, thickness: 0.5, x: 0.0, y: 0.0)])";
+
+#[test]
+fn single_angle_through_one_leg_by_e5() {
+    // L4×4×½, 10 ft, Fy 36 ksi, the connected leg not given (AISC 360-16
+    // §E5(a), planar truss). Geometric r = √(5.561458/3.75) = 1.21781 (by
+    // hand above; AISC Manual rx = 1.21 with fillets, from memory).
+    //   L/ra = 120/1.21781 = 98.54 > 80 → Lc/r = 32 + 1.25·98.54 = 155.17
+    //   (Eq. E5-2) — above KL/rz = 153.40, so §E5 governs;
+    //   Fe = π²·29000/155.17² = 11.89 ksi; Fy/Fe > 2.25 → Fcr = 0.877·Fe
+    //   = 10.42 ksi; φPn = 0.9·10.42·3.75 = 35.2 kip (below the 36.0 kip of
+    //   the minor principal axis: never more than the general check).
+    let (cap, phi_pn) = capacity_kip(&strut(L4X4, 10.0));
+    let ra = (5.561458333333333f64 / 3.75).sqrt();
+    let lc_r = 32.0 + 1.25 * 120.0 / ra;
+    let g = cap.modes.governing();
+    assert!(matches!(g.kind, ModeKind::SingleAngle(_)), "{:?}", g.kind);
+    assert!(g.kind.clause().contains("E5-2") && g.kind.clause().contains("6.9.4.4"));
+    assert!(
+        (g.slenderness - lc_r).abs() < 1e-6 * lc_r,
+        "{}",
+        g.slenderness
+    );
+    assert!((lc_r - 155.17).abs() < 0.01);
+    let hand = 0.9 * fcr(PI * PI * E / (lc_r * lc_r)) * 3.75;
+    assert!((phi_pn - hand).abs() < 1e-6 * hand, "{phi_pn} vs {hand}");
+    assert!((phi_pn - 35.2).abs() < 0.05, "{phi_pn}");
+    // The assumption is said.
+    assert!(cap
+        .modes
+        .notes
+        .iter()
+        .any(|n| n.contains("connected leg is not given")));
+
+    // 5 ft: L/ra = 49.27 ≤ 80 → Lc/r = 72 + 0.75·49.27 = 108.95 (Eq. E5-1),
+    // against KL/rz = 76.70: the eccentricity makes §E5 govern by far.
+    //   Fe = π²·29000/108.95² = 24.11 ksi; Fy/Fe = 1.493 ≤ 2.25 →
+    //   Fcr = 0.658^1.493·36 = 19.28 ksi; φPn = 0.9·19.28·3.75 = 65.1 kip.
+    let (cap, phi_pn) = capacity_kip(&strut(L4X4, 5.0));
+    let lc_r = 72.0 + 0.75 * 60.0 / ra;
+    assert!((cap.slenderness() - lc_r).abs() < 1e-6 * lc_r);
+    assert!(cap.modes.governing().kind.clause().contains("E5-1"));
+    let hand = 0.9 * fcr(PI * PI * E / (lc_r * lc_r)) * 3.75;
+    assert!(
+        (phi_pn - hand).abs() < 1e-6 * hand && (phi_pn - 65.1).abs() < 0.1,
+        "{phi_pn}"
+    );
+}
+
+#[test]
+fn single_angle_unequal_legs_by_e5() {
+    // L5×3×½ without fillets, the 5 in leg along x, 6 ft. By hand:
+    //   A = 2.5 + 1.25 = 3.75; ȳ = (2.5·0.25 + 1.25·1.75)/3.75 = 0.75,
+    //   x̄ = (2.5·2.5 + 1.25·0.25)/3.75 = 1.75;
+    //   Ix = 5·0.5³/12 + 2.5·0.5² + 0.5·2.5³/12 + 1.25·1² = 2.578125,
+    //   Iy = 0.5·5³/12 + 2.5·0.75² + 2.5·0.5³/12 + 1.25·1.5² = 9.453125,
+    //   Ixy = 2.5·0.75·(−0.5) + 1.25·(−1.5)·1.0 = −2.8125;
+    //   I_minor = 6.015625 − √(3.4375² + 2.8125²) = 1.574156, rz = 0.64790.
+    // Through the long leg (along x): ra = √(Ix/A) = 0.82916, L/ra = 86.83,
+    //   Lc/r = 32 + 1.25·86.83 = 140.54 (Eq. E5-2).
+    // Through the short leg (along y): ra = √(Iy/A) = 1.58771, L/ra = 45.35,
+    //   72 + 0.75·45.35 + 4·((5/3)² − 1) = 106.01 + 7.11 = 113.12 (Eq. E5-1
+    //   with §E5(a)(2)); 0.95·72/0.64790 = 105.57 does not govern.
+    // Not given: the larger, 140.54, through the long leg.
+    let sec = |leg: &str| {
+        format!("(id: \"s\", parts: [Angle(leg_x: 5.0, leg_y: 3.0, thickness: 0.5, x: 0.0, y: 0.0)]{leg})")
+    };
+    let e5 = |leg: &str| {
+        let (cap, _) = capacity_kip(&strut(&sec(leg), 6.0));
+        cap.modes
+            .modes
+            .iter()
+            .find(|m| matches!(m.kind, ModeKind::SingleAngle(_)))
+            .map(|m| m.slenderness)
+            .expect("an E5 mode")
+    };
+    let (rx, ry) = ((2.578125f64 / 3.75).sqrt(), (9.453125f64 / 3.75).sqrt());
+    let long = 32.0 + 1.25 * 72.0 / rx;
+    let short = 72.0 + 0.75 * 72.0 / ry + 4.0 * (25.0 / 9.0 - 1.0);
+    assert!((long - 140.54).abs() < 0.01 && (short - 113.12).abs() < 0.01);
+    assert!((e5(", connected_leg: Long") - long).abs() < 1e-6 * long);
+    assert!((e5(", connected_leg: Short") - short).abs() < 1e-6 * short);
+    assert!((e5("") - long).abs() < 1e-6 * long);
+    // Turned a quarter (the 5 in leg along y): the same radii follow the leg.
+    let turned = "(id: \"s\", parts: [Angle(leg_x: 5.0, leg_y: 3.0, thickness: 0.5, x: 0.0, y: 0.0, rotated: true)], connected_leg: Long)";
+    let (cap, _) = capacity_kip(&strut(turned, 6.0));
+    let m = cap
+        .modes
+        .modes
+        .iter()
+        .find(|m| matches!(m.kind, ModeKind::SingleAngle(_)))
+        .unwrap();
+    assert!(
+        (m.slenderness - long).abs() < 1e-6 * long,
+        "{}",
+        m.slenderness
+    );
+}
+
+#[test]
+fn single_angle_outside_e5_conditions_is_said() {
+    // L6×3×½: legs 2.0 ≥ 1.7 (AISC 360-16 §E5 condition 5): no §E5 mode,
+    // the note names Chapter H.
+    let (cap, _) = capacity_kip(&strut(
+        "(id: \"s\", parts: [Angle(leg_x: 6.0, leg_y: 3.0, thickness: 0.5, x: 0.0, y: 0.0)])",
+        6.0,
+    ));
+    assert!(!cap
+        .modes
+        .modes
+        .iter()
+        .any(|m| matches!(m.kind, ModeKind::SingleAngle(_))));
+    assert!(cap
+        .modes
+        .notes
+        .iter()
+        .any(|n| n.contains("Chapter H") && n.contains("condition 5")));
+    // L4×4×½ at 14 ft: L/ra = 137.9, 32 + 1.25·137.9 = 204.4 > 200
+    // (condition 4): no §E5 mode, said.
+    let (cap, _) = capacity_kip(&strut(L4X4, 14.0));
+    assert!(!cap
+        .modes
+        .modes
+        .iter()
+        .any(|m| matches!(m.kind, ModeKind::SingleAngle(_))));
+    assert!(cap.modes.notes.iter().any(|n| n.contains("condition 4")));
+    // connected_leg on a section that is not one angle is refused.
+    let bad = strut("(id: \"s\", parts: [Plate(width: 8.0, thickness: 0.5, x: 0.0, y: 0.0)], connected_leg: Long)", 6.0);
+    let err = match panelpoint::input::load_str(&bad) {
+        Err(d) => d.to_string(),
+        Ok(_) => panic!("accepted"),
+    };
+    assert!(
+        err.contains("connected_leg applies to a section of one angle part"),
+        "{err}"
+    );
 }
 
 /// WT4×15.5-like tee (no fillets): d 4, bf 7.995, tf 0.435, tw 0.285.

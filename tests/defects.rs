@@ -370,6 +370,84 @@ fn a_sweep_scales_a_moving_load_and_changes_its_impact() {
     );
 }
 
+/// Issue 18: a sweep axis over vehicles. H10 is H5 doubled axle by axle
+/// (2 + 8 kip and 4 + 16 kip at 14 ft: the H truck of W tons puts 0.2·W on
+/// the front axle and 0.8·W on the rear, 14 ft apart; AASHTO Standard
+/// Specifications 3.7.6, from memory — and by the designation, common
+/// practice), with the same impact (the model gives 0.15), so every live
+/// force doubles and the rating factor RF = (φC − γD·D)/(γL·L(1 + I))
+/// (AASHTO MBE 6A.4.2.1) halves, for the same governing member.
+#[test]
+fn a_sweep_varies_the_vehicle_of_a_moving_load() {
+    let model = temp_model("m.ron", &demo_text());
+    let sweep_path = model.with_file_name("v.ron");
+    std::fs::write(
+        &sweep_path,
+        r#"(axes: [(name: "vehicle", vehicle: "truck", values: ["h5", "h10", "maintenance-truck"])])"#,
+    )
+    .unwrap();
+    let (code, out, err) = run(&[
+        "sweep",
+        model.to_str().unwrap(),
+        sweep_path.to_str().unwrap(),
+        "--format",
+        "json",
+    ]);
+    assert_eq!(code, 0, "{err}");
+    let v: serde_json::Value = serde_json::from_str(&out).unwrap();
+    let rows = v["variants"].as_array().unwrap_or_else(|| panic!("{v}"));
+    assert_eq!(rows.len(), 4);
+    let rf = |i: usize| rows[i]["lowest_rating_factor"].as_f64().unwrap();
+    for (i, name) in [(1, "h5"), (2, "h10"), (3, "maintenance-truck")] {
+        assert_eq!(rows[i]["name"], name, "{}", rows[i]);
+        assert_eq!(rows[i]["kind"], "loads");
+        assert_eq!(rows[i]["rating_member"], "L3-U4", "{}", rows[i]);
+        assert_eq!(rows[i]["rating_case"], "truck", "{}", rows[i]);
+    }
+    assert!(
+        close(rf(1), 2.0 * rf(2), 1e-9, 0.0),
+        "{} vs 2 × {}",
+        rf(1),
+        rf(2)
+    );
+    // The model's own vehicle by name gives the base model back.
+    assert!(close(rf(3), rf(0), 1e-12, 0.0), "{} vs {}", rf(3), rf(0));
+    // An unknown name is an error naming the axis, before anything runs.
+    std::fs::write(
+        &sweep_path,
+        r#"(axes: [(name: "vehicle", vehicle: "truck", values: ["h5", "h7"])])"#,
+    )
+    .unwrap();
+    let (code, out, err) = run(&[
+        "sweep",
+        model.to_str().unwrap(),
+        sweep_path.to_str().unwrap(),
+    ]);
+    assert_eq!(code, 2, "{err}");
+    assert!(out.is_empty(), "{out}");
+    assert!(
+        err.contains(r#"axis "vehicle": vehicle "h7" for moving load "truck" is neither a vehicle of the model nor a library model"#),
+        "{err}"
+    );
+    // A list entry too, naming its variant; and an unknown moving load.
+    std::fs::write(
+        &sweep_path,
+        r#"(variants: [(name: "heavy", vehicles: [("truck", "cooper-e99x")]), (vehicles: [("lorry", "h10")])])"#,
+    )
+    .unwrap();
+    let (code, _, err) = run(&[
+        "sweep",
+        model.to_str().unwrap(),
+        sweep_path.to_str().unwrap(),
+    ]);
+    assert_eq!(code, 2, "{err}");
+    assert!(
+        err.contains(r#"variant "heavy": vehicle "cooper-e99x""#),
+        "{err}"
+    );
+    assert!(err.contains(r#"no moving load "lorry""#), "{err}");
+}
+
 /// Utilization of the check (member, effect id) of a model rated as `rate` does.
 fn utilization_of(m: &panelpoint::model::Model, member: usize, effect: &str) -> f64 {
     let a = panelpoint::analysis::analyse(m).unwrap();

@@ -23,7 +23,15 @@ const FT: f64 = 0.3048;
 /// lengths in ft and forces in kip. `deck` is the deck entry, `moving`
 /// the moving loads.
 fn king_post(l: f64, x1: f64, h: f64, deck: &str, moving: &str) -> Model {
-    let text = format!(
+    let text = king_post_text(l, x1, h, deck, moving);
+    match load_str(&text) {
+        Ok(c) => c.model,
+        Err(d) => panic!("{d:?}"),
+    }
+}
+
+fn king_post_text(l: f64, x1: f64, h: f64, deck: &str, moving: &str) -> String {
+    format!(
         "(title: \"king post\", units: (length: \"ft\", force: \"kip\", section: \"in\", stress: \"ksi\"),
          materials: [(id: \"s\", e: 29000.0)],
          sections: [(id: \"a\", area: 20.0, i_in: 300.0, i_out: 300.0)],
@@ -39,11 +47,7 @@ fn king_post(l: f64, x1: f64, h: f64, deck: &str, moving: &str) -> Model {
          deck: {deck},
          moving_loads: [{moving}],
         )"
-    );
-    match load_str(&text) {
-        Ok(c) => c.model,
-        Err(d) => panic!("{d:?}"),
-    }
+    )
 }
 
 fn envelopes(m: &Model) -> Vec<MovingEnvelope> {
@@ -555,5 +559,66 @@ fn millrace_demo_with_h5_rates_from_the_command_line() {
         list.contains("2 -14- 8 (kip, spacings in ft)") && list.contains("Pedestrian Bridges"),
         "{list}"
     );
+    std::fs::remove_dir_all(&dir).ok();
+}
+
+/// `panelpoint envelope` names the train that governed each extreme and
+/// the variable spacing that gave it (issue 18): on a 30 ft king-post
+/// truss the design tandem governs the midspan chord, on a 100 ft one the
+/// design truck with its rear spacing at the least, 14 ft (the hand
+/// figures of `hl93_tandem_governs_short_spans_and_the_truck_long_spans`:
+/// 325 > 276 kip-ft and 1520 > 1200 kip-ft; AASHTO LRFD 3.6.1.2, from
+/// memory; the shortest rear spacing gives the greatest simple-span moment,
+/// common practice).
+#[test]
+fn envelope_names_the_governing_train_and_spacing() {
+    let dir = std::env::temp_dir().join(format!("pp-train-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let hl = "(id: \"hl\", vehicle: \"hl93\", step: \"1 ft\")";
+    let run = |l: f64, format: &str| {
+        let path = dir.join(format!("kp{l}.ron"));
+        std::fs::write(&path, king_post_text(l, l / 2.0, 8.0, DECK, hl)).unwrap();
+        let out = std::process::Command::new(env!("CARGO_BIN_EXE_panelpoint"))
+            .args(["envelope", path.to_str().unwrap(), "--format", format])
+            .output()
+            .unwrap();
+        assert_eq!(
+            out.status.code(),
+            Some(0),
+            "{}",
+            String::from_utf8_lossy(&out.stderr)
+        );
+        String::from_utf8(out.stdout).unwrap()
+    };
+    let chord = |text: &str| {
+        let v: serde_json::Value = serde_json::from_str(text).unwrap();
+        v["envelopes"][0]["members"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .find(|m| m["id"] == "L0-L1")
+            .unwrap()["tension"]
+            .clone()
+    };
+    let short = chord(&run(30.0, "json"));
+    assert_eq!(short["train"], "design tandem", "{short}");
+    assert!(short["variable_spacing"].is_null(), "{short}");
+    let long = chord(&run(100.0, "json"));
+    assert_eq!(long["train"], "design truck", "{long}");
+    assert!(
+        (long["variable_spacing"].as_f64().unwrap() - 14.0).abs() < 1e-9,
+        "{long}"
+    );
+    let text = run(100.0, "text");
+    assert!(text.contains("design truck, spacing 14"), "{text}");
+    let csv = run(30.0, "csv");
+    assert!(
+        csv.lines()
+            .next()
+            .unwrap()
+            .ends_with("min_variable_spacing_ft"),
+        "{csv}"
+    );
+    assert!(csv.contains("design tandem"), "{csv}");
     std::fs::remove_dir_all(&dir).ok();
 }

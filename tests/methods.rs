@@ -354,3 +354,48 @@ fn lacing_bars_have_rows_of_their_own() {
         assert_eq!(r["clause"], "AISC 360-16 §E6.2");
     }
 }
+
+/// The owner's report shows the same lacing-bar checks as `rate` (AISC
+/// 360-16 §E6.2), with the clause in each row: V, the bar force and the
+/// bar strength equal the JSON rows to the 4 significant digits shown.
+#[test]
+fn lacing_bars_in_the_html_report() {
+    let path =
+        std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("models/millrace-footbridge.ron");
+    let text = std::fs::read_to_string(&path).unwrap();
+    let v = rate_json_with(&text, &[]);
+    let dir = temp_model("lacing.ron", &text);
+    let out = dir.with_file_name("lacing.html");
+    let (code, _, err) = run(&["report", dir.to_str().unwrap(), "-o", out.to_str().unwrap()]);
+    assert_eq!(code, 0, "{err}");
+    let html = std::fs::read_to_string(out).unwrap();
+    let start = html
+        .find("<h3>Lacing bars</h3>")
+        .expect("a lacing-bar table");
+    let table = &html[start..start + html[start..].find("</table>").unwrap()];
+    let body = &table[table.find("<tbody>").unwrap()..];
+    let rows: Vec<&str> = body.split("<tr").skip(1).collect();
+    let json = v["lacing_bars"].as_array().unwrap();
+    assert_eq!(rows.len(), json.len());
+    assert_eq!(rows.len(), 6, "top chords and end posts");
+    for (row, r) in rows.iter().zip(json) {
+        let cells: Vec<&str> = row
+            .split("<td")
+            .skip(1)
+            .map(|c| {
+                let c = &c[c.find('>').unwrap() + 1..];
+                &c[..c.find("</td>").unwrap()]
+            })
+            .collect();
+        assert_eq!(cells[0], r["member"].as_str().unwrap());
+        for (i, k) in [(1, "shear"), (2, "bar_force"), (3, "bar_strength")] {
+            let shown: f64 = cells[i].parse().unwrap();
+            let want = f(r, k);
+            assert!(
+                (shown - want).abs() <= 1e-3 * want.abs(),
+                "{k}: {shown} vs {want}"
+            );
+        }
+        assert!(cells[10].contains("AISC 360-16 §E6.2"), "{}", cells[10]);
+    }
+}

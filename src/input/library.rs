@@ -5,8 +5,7 @@
 
 use super::convert::{positive, value, Ctx};
 use super::schema::{DeckFile, MovingLoadFile};
-use crate::loads::distribution::{lanes_share, wheel_lines_share};
-use crate::loads::library::{self, Dynamic, Presence};
+use crate::loads::library::{self, Dynamic};
 use crate::loads::{ImpactRule, Vehicle};
 use crate::units::{Dimension, DisplayUnits};
 
@@ -15,31 +14,7 @@ use crate::units::{Dimension, DisplayUnits};
 /// gives no width.
 pub const GAUGE: f64 = 56.5 * 0.0254;
 
-/// The deck's transverse layout, SI.
-pub(super) struct Layout {
-    pub width: Option<f64>,
-    pub lanes: Vec<f64>,
-    pub wheel_lines: Vec<f64>,
-    pub tributary: Option<f64>,
-}
-
-impl Layout {
-    /// Share of one vehicle per lane (or of the vehicle on its wheel lines)
-    /// this truss carries and the number of lanes loaded; (1, 0) when the
-    /// deck gives neither lanes nor wheel lines.
-    pub fn vehicle_share(&self, presence: Presence) -> (f64, usize) {
-        match self.width {
-            Some(w) if !self.lanes.is_empty() => lanes_share(w, &self.lanes, presence),
-            Some(w) if !self.wheel_lines.is_empty() => (wheel_lines_share(w, &self.wheel_lines), 1),
-            _ => (1.0, 0),
-        }
-    }
-
-    /// Width of deck whose area load this truss carries, m.
-    pub fn area_width(&self) -> Option<f64> {
-        self.tributary.or(self.width.map(|w| 0.5 * w))
-    }
-}
+pub(crate) use crate::loads::distribution::DeckLayout as Layout;
 
 /// The layout of a `deck: (nodes, width, …)`; None for the list form.
 pub(super) fn layout(ctx: &mut Ctx, deck: &DeckFile, u: &DisplayUnits) -> Option<Layout> {
@@ -99,7 +74,7 @@ pub(super) fn scale(ctx: &mut Ctx, ml: &MovingLoadFile, at: Option<(usize, usize
 }
 
 /// A library model made ready for one moving load.
-pub(super) struct Resolved {
+pub(crate) struct Resolved {
     pub name: String,
     /// Loads × scale × share, SI.
     pub vehicle: Vehicle,
@@ -122,29 +97,50 @@ pub(super) fn resolve(
     deck_length: Option<f64>,
     at: Option<(usize, usize)>,
 ) -> Option<Resolved> {
-    let m = library::lookup(&ml.vehicle)?;
-    let who = format!("moving load \"{}\"", ml.id);
     let scale = scale(ctx, ml, at)?;
+    let who = format!("moving load \"{}\"", ml.id);
+    match resolve_named(&ml.vehicle, &who, scale, layout.as_ref(), deck_length) {
+        Some(Ok((r, warnings))) => {
+            for w in warnings {
+                ctx.warn(w, at);
+            }
+            Some(r)
+        }
+        Some(Err(e)) => {
+            ctx.error(e, at);
+            None
+        }
+        None => None,
+    }
+}
+
+/// The library model `name` times `scale`, shared for this truss by
+/// `layout`, with its standard's allowance on a deck `deck_length` long:
+/// `None` when `name` is not a library model, an error for a load the
+/// layout cannot place; warnings beside the result. `who` names the
+/// moving load in messages.
+pub(crate) fn resolve_named(
+    name: &str,
+    who: &str,
+    scale: f64,
+    layout: Option<&Layout>,
+    deck_length: Option<f64>,
+) -> Option<Result<(Resolved, Vec<String>), String>> {
+    let m = library::lookup(name)?;
+    let mut warnings = Vec::new();
     let (mut vehicle, share) = if m.is_area() {
-        let Some(width) = layout.as_ref().and_then(Layout::area_width) else {
-            ctx.error(
-                format!("{who}: the area load \"{}\" needs the width of deck this truss carries: give `deck: (nodes: [...], width: ...)` (half the width is taken) or `tributary: ...`", m.name),
-                at,
-            );
-            return None;
+        let Some(width) = layout.and_then(Layout::area_width) else {
+            return Some(Err(format!("{who}: the area load \"{}\" needs the width of deck this truss carries: give `deck: (nodes: [...], width: ...)` (half the width is taken) or `tributary: ...`", m.name)));
         };
         let mut v = m.vehicle.scaled(scale * width);
         v.lane = m.area.map(|q| q * width * scale);
         (v, width)
     } else {
-        let share = layout
-            .as_ref()
-            .map_or(1.0, |l| l.vehicle_share(m.presence).0);
+        let share = layout.map_or(1.0, |l| l.vehicle_share(m.presence).0);
         if share <= 0.0 {
-            ctx.warn(
-                format!("{who}: no lane or wheel line loads this truss (lever-rule share 0)"),
-                at,
-            );
+            warnings.push(format!(
+                "{who}: no lane or wheel line loads this truss (lever-rule share 0)"
+            ));
         }
         (m.vehicle.scaled(scale * share), share)
     };
@@ -162,11 +158,8 @@ pub(super) fn resolve(
             (r, r.allowance(0.0, span))
         }
         Dynamic::Arema => {
-            let spacing = layout.as_ref().and_then(|l| l.width).unwrap_or_else(|| {
-                ctx.warn(
-                    format!("{who}: the railway rocking effect 100/S needs the truss spacing S; without a deck width the rail gauge 4 ft 8.5 in is taken (conservative): give `deck: (nodes: [...], width: ...)`"),
-                    at,
-                );
+            let spacing = layout.and_then(|l| l.width).unwrap_or_else(|| {
+                warnings.push(format!("{who}: the railway rocking effect 100/S needs the truss spacing S; without a deck width the rail gauge 4 ft 8.5 in is taken (conservative): give `deck: (nodes: [...], width: ...)`"));
                 GAUGE
             });
             let r = ImpactRule::Arema { span, spacing };
@@ -177,13 +170,16 @@ pub(super) fn resolve(
             (r, r.allowance(0.0, span))
         }
     };
-    Some(Resolved {
-        name: m.name,
-        vehicle,
-        impact,
-        impact_on_lane: m.impact_on_lane,
-        rule,
-        share,
-        legal: m.legal,
-    })
+    Some(Ok((
+        Resolved {
+            name: m.name,
+            vehicle,
+            impact,
+            impact_on_lane: m.impact_on_lane,
+            rule,
+            share,
+            legal: m.legal,
+        },
+        warnings,
+    )))
 }

@@ -311,6 +311,9 @@ pub(super) fn live_loads(
         });
     }
 
+    live.user_vehicles = live.vehicles.len();
+    live.layout = layout.clone();
+
     // Moving loads.
     let mut seen: HashMap<&str, ()> = HashMap::new();
     for ml in &file.moving_loads {
@@ -413,6 +416,8 @@ pub(super) fn live_loads(
                 legal: ml
                     .legal
                     .unwrap_or_else(|| resolved.as_ref().is_some_and(|r| r.legal)),
+                scale: ml.scale.unwrap_or(1.0),
+                impact_given: ml.impact.is_some(),
             });
         }
     }

@@ -256,6 +256,17 @@ pub struct SectionFile {
     /// Holes punched full size (Rp = 0.90).
     #[serde(default)]
     pub holes_punched: Option<bool>,
+    /// A single angle's connected leg (AISC 360-16 §E5): `Long`, `Short`
+    /// or `Both`; not given: the leg with the larger §E5 slenderness.
+    #[serde(default)]
+    pub connected_leg: Option<ConnectedLegFile>,
+}
+
+#[derive(Debug, Deserialize, Clone, Copy, PartialEq, Eq)]
+pub enum ConnectedLegFile {
+    Long,
+    Short,
+    Both,
 }
 
 /// The shear-lag factor U given directly or from the connection.

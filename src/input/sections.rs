@@ -2,8 +2,8 @@
 
 use super::convert::{positive, value, Ctx};
 use super::parts::{self, convert_parts, LacedAxisFile, PartFile, PlaneAxisFile};
-use super::schema::{SectionFile, ShearLagFile};
-use crate::model::{BuiltUp, Lacing, Section};
+use super::schema::{ConnectedLegFile, SectionFile, ShearLagFile};
+use crate::model::{BuiltUp, ConnectedLeg, Lacing, Section};
 use crate::section;
 use crate::units::{Dimension, DisplayUnits};
 
@@ -52,6 +52,15 @@ fn properties(ctx: &mut Ctx, s: &SectionFile, u: &DisplayUnits) -> Section {
         ctx.error(
             format!(
                 "section \"{}\": lacing and truss_plane apply to sections with parts",
+                s.id
+            ),
+            at,
+        );
+    }
+    if s.connected_leg.is_some() {
+        ctx.error(
+            format!(
+                "section \"{}\": connected_leg applies to a section of one angle part",
                 s.id
             ),
             at,
@@ -363,6 +372,24 @@ fn built_up(ctx: &mut Ctx, s: &SectionFile, parts: &[PartFile], u: &DisplayUnits
             tie_plates: l.tie_plates,
         }
     });
+    let connected_leg = s.connected_leg.map(|c| match c {
+        ConnectedLegFile::Long => ConnectedLeg::Long,
+        ConnectedLegFile::Short => ConnectedLeg::Short,
+        ConnectedLegFile::Both => ConnectedLeg::Both,
+    });
+    let angles = placed
+        .iter()
+        .filter(|p| matches!(p.shape, section::Shape::Angle { .. }))
+        .count();
+    if connected_leg.is_some() && (angles != 1 || placed.len() != 1) {
+        ctx.error(
+            format!(
+                "section \"{}\": connected_leg applies to a section of one angle part",
+                s.id
+            ),
+            at,
+        );
+    }
     Section {
         id: s.id.clone(),
         area: r.area,
@@ -376,6 +403,7 @@ fn built_up(ctx: &mut Ctx, s: &SectionFile, parts: &[PartFile], u: &DisplayUnits
             x_in_plane,
             lacing,
             torsion,
+            connected_leg,
         }),
         shear_lag: 1.0,
         shear_lag_given: false,

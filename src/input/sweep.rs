@@ -6,9 +6,10 @@
 use super::diagnostics::{Diagnostic, Diagnostics, Severity};
 use super::quantity::Quantity;
 use super::schema::{CaseKindFile, NodalLoadFile};
+use crate::loads::ImpactRule;
 use crate::model::{CaseKind, Model};
 use crate::sweep::{
-    AddedCase, Axis, Change, DepthNodes, MaterialProps, SectionProps, Sweep, Variant,
+    AddedCase, Axis, Change, DepthNodes, MaterialProps, SectionProps, Sweep, Variant, VehicleChoice,
 };
 use crate::units::Dimension;
 use serde::Deserialize;
@@ -42,6 +43,9 @@ pub struct ChangesFile {
     /// `[("truck", 0.33)]`: the dynamic allowance of a moving load or live case.
     #[serde(default)]
     pub impact: Vec<(String, f64)>,
+    /// `[("truck", "h10")]`: another vehicle (library model or the model's own) for a moving load.
+    #[serde(default)]
+    pub vehicles: Vec<(String, String)>,
     #[serde(default)]
     pub add_cases: Vec<AddCaseFile>,
     #[serde(default)]
@@ -142,6 +146,10 @@ pub struct AxisFile {
     pub impact: Option<String>,
     #[serde(default)]
     pub depth: Option<String>,
+    /// Shorthand: the vehicle of this moving load, with values naming
+    /// vehicles (`["h5", "h10"]`).
+    #[serde(default)]
+    pub vehicle: Option<String>,
     #[serde(default)]
     pub values: Vec<Quantity>,
 }
@@ -226,6 +234,66 @@ impl Ctx<'_> {
         }
     }
 
+    /// Moving load `moving` given vehicle `name`: a vehicle of the model
+    /// (the first `user_vehicles`, as the model file's names take
+    /// precedence) or a library model, placed as the model file would
+    /// place it (the moving load's scale, the deck layout's share, the
+    /// standard's allowance unless the model gave `impact`).
+    fn vehicle(&mut self, moving: &str, name: &str, at: &str) -> Option<Change> {
+        let live = &self.model.live;
+        let Some(ml) = live.moving.iter().find(|x| x.id == moving) else {
+            self.error(format!("{at}: no moving load \"{moving}\" in the model"));
+            return None;
+        };
+        let layout = live.layout.as_ref();
+        let keep = ml.impact_given.then_some(());
+        let choice = if let Some(v) = live.vehicles[..live.user_vehicles]
+            .iter()
+            .find(|v| v.id == name)
+        {
+            let share = layout.map_or(1.0, |l| {
+                l.vehicle_share(crate::loads::library::Presence::None).0
+            });
+            VehicleChoice {
+                name: name.to_string(),
+                vehicle: v.scaled(ml.scale * share),
+                impact: keep.map_or(Some((0.0, ImpactRule::Fixed, false)), |_| None),
+                model: None,
+                share,
+                legal: None,
+            }
+        } else {
+            let deck_length = crate::loads::Deck::from_nodes(&self.model.nodes, &live.deck)
+                .ok()
+                .map(|d| d.length());
+            let who = format!("{at}: moving load \"{moving}\"");
+            match super::library::resolve_named(name, &who, ml.scale, layout, deck_length) {
+                Some(Ok((r, _warnings))) => VehicleChoice {
+                    name: name.to_string(),
+                    vehicle: r.vehicle,
+                    impact: keep.map_or(Some((r.impact, r.rule, r.impact_on_lane)), |_| None),
+                    model: Some(r.name),
+                    share: r.share,
+                    legal: Some(r.legal),
+                },
+                Some(Err(e)) => {
+                    self.error(e);
+                    return None;
+                }
+                None => {
+                    self.error(format!(
+                        "{at}: vehicle \"{name}\" for moving load \"{moving}\" is neither a vehicle of the model nor a library model (`panelpoint vehicles` lists them)"
+                    ));
+                    return None;
+                }
+            }
+        };
+        Some(Change::Vehicle {
+            moving: moving.to_string(),
+            choice: Box::new(choice),
+        })
+    }
+
     /// Scaling a case or a moving load.
     fn scale(&mut self, id: &str, factor: f64, at: &str) -> Change {
         if self.case_or_moving(id, at) {
@@ -272,6 +340,10 @@ fn changes(ctx: &mut Ctx, f: &ChangesFile, at: &str) -> (Vec<Change>, Vec<(Strin
     for (load, impact) in &f.impact {
         out.push(ctx.impact(load, *impact, at));
         params.push((format!("impact {load}"), format!("{impact}")));
+    }
+    for (moving, name) in &f.vehicles {
+        out.extend(ctx.vehicle(moving, name, at));
+        params.push((format!("vehicle {moving}"), name.clone()));
     }
     for add in &f.add_cases {
         let mut loads = Vec::new();
@@ -415,20 +487,21 @@ fn axis_steps(ctx: &mut Ctx, a: &AxisFile) -> Vec<(String, Vec<Change>)> {
         a.scale.is_some(),
         a.impact.is_some(),
         a.depth.is_some(),
+        a.vehicle.is_some(),
     ]
     .iter()
     .filter(|b| **b)
     .count();
     if forms != 1 {
         ctx.error(format!(
-            "{at}: give exactly one of steps, scale, impact or depth (the last three with values)"
+            "{at}: give exactly one of steps, scale, impact, depth or vehicle (the last four with values)"
         ));
         return vec![];
     }
     if !a.steps.is_empty() {
         if !a.values.is_empty() {
             ctx.error(format!(
-                "{at}: values go with scale, impact or depth, not with steps"
+                "{at}: values go with scale, impact, depth or vehicle, not with steps"
             ));
         }
         return a
@@ -454,6 +527,26 @@ fn axis_steps(ctx: &mut Ctx, a: &AxisFile) -> Vec<(String, Vec<Change>)> {
     if a.values.is_empty() {
         ctx.error(format!("{at}: values is empty"));
         return vec![];
+    }
+    if let Some(moving) = &a.vehicle {
+        return a
+            .values
+            .iter()
+            .map(|v| {
+                match v {
+                    Quantity::Text(name) => {
+                        let change = ctx.vehicle(moving, name, &at).into_iter().collect();
+                        (name.clone(), change)
+                    }
+                    Quantity::Number(x) => {
+                        ctx.error(format!(
+                            "{at}: vehicle {x} must be a vehicle's name in quotes (\"h10\", or a vehicle id of the model)"
+                        ));
+                        (x.to_string(), vec![])
+                    }
+                }
+            })
+            .collect();
     }
     for (id, what, is_scale) in [
         (&a.scale, "scale factor", true),

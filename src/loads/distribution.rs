@@ -18,6 +18,38 @@
 
 use super::library::Presence;
 
+/// The deck's transverse layout as the model gives it (SI), kept with the
+/// live loads so that a sweep can place another vehicle the same way.
+#[derive(Clone, Debug, PartialEq, Default)]
+pub struct DeckLayout {
+    /// Truss spacing (the floor beam's span), m.
+    pub width: Option<f64>,
+    /// Lane centre offsets from the truss analysed, m.
+    pub lanes: Vec<f64>,
+    /// Wheel-line offsets, m.
+    pub wheel_lines: Vec<f64>,
+    /// Width of deck whose area load this truss carries, m.
+    pub tributary: Option<f64>,
+}
+
+impl DeckLayout {
+    /// Share of one vehicle per lane (or of the vehicle on its wheel lines)
+    /// this truss carries and the number of lanes loaded; (1, 0) when the
+    /// deck gives neither lanes nor wheel lines.
+    pub fn vehicle_share(&self, presence: Presence) -> (f64, usize) {
+        match self.width {
+            Some(w) if !self.lanes.is_empty() => lanes_share(w, &self.lanes, presence),
+            Some(w) if !self.wheel_lines.is_empty() => (wheel_lines_share(w, &self.wheel_lines), 1),
+            _ => (1.0, 0),
+        }
+    }
+
+    /// Width of deck whose area load this truss carries, m.
+    pub fn area_width(&self) -> Option<f64> {
+        self.tributary.or(self.width.map(|w| 0.5 * w))
+    }
+}
+
 /// Lever-rule share of a unit load at `offset` from the truss analysed.
 pub fn lever_share(width: f64, offset: f64) -> f64 {
     (width - offset) / width

@@ -83,6 +83,32 @@ impl Vehicle {
     }
 }
 
+impl Vehicle {
+    /// Whether the vehicle has placement rules that choose among trains or
+    /// spacings (alternatives or a variable axle spacing).
+    pub fn chooses_train(&self) -> bool {
+        !self.rules.alternatives.is_empty()
+            || self.rules.variable_gap.is_some()
+            || self
+                .rules
+                .alternatives
+                .iter()
+                .any(|t| t.variable_gap.is_some())
+    }
+
+    /// The name of train `train` (0 the vehicle's own, 1… its alternatives).
+    pub fn train_label(&self, train: usize) -> &str {
+        match train {
+            0 => self.rules.label.as_deref().unwrap_or(&self.id),
+            k => self
+                .rules
+                .alternatives
+                .get(k - 1)
+                .map_or(self.id.as_str(), |t| t.label.as_str()),
+        }
+    }
+}
+
 /// An axle spacing that varies: the spacing between axle `axle − 1` and
 /// `axle` runs from `min` to `max` (m) and the one giving the greatest
 /// effect governs (the HS truck's rear axle, 14 to 30 ft). The axle
@@ -146,6 +172,9 @@ pub struct Rules {
     pub variable_gap: Option<VariableGap>,
     /// Other axle trains, the greatest effect governing.
     pub alternatives: Vec<Train>,
+    /// The name of the vehicle's own train beside its alternatives
+    /// ("design truck"); the vehicle's id when not given.
+    pub label: Option<String>,
     pub trailing: Option<Trailing>,
     pub crowd: Option<Crowd>,
     /// Leave off axles whose effect relieves the one sought (AASHTO LRFD
@@ -245,6 +274,10 @@ pub struct MovingLoad {
     /// Transverse share of the vehicle this truss carries (already in the
     /// vehicle's loads), with any multiple-presence factor and scale.
     pub share: f64,
+    /// The moving load's own `scale` (already in the vehicle's loads).
+    pub scale: f64,
+    /// Whether the model gave `impact` (kept when a sweep changes the vehicle).
+    pub impact_given: bool,
 }
 
 impl Default for MovingLoad {
@@ -260,6 +293,8 @@ impl Default for MovingLoad {
             model: None,
             share: 1.0,
             legal: false,
+            scale: 1.0,
+            impact_given: false,
         }
     }
 }
@@ -273,6 +308,10 @@ pub struct LiveLoads {
     pub moving: Vec<MovingLoad>,
     /// Load cases (indices into `model.cases`) summed as the dead load.
     pub dead_cases: Vec<usize>,
+    /// The first `user_vehicles` of `vehicles` are the model's own, as given.
+    pub user_vehicles: usize,
+    /// The deck's transverse layout, when the model gives one.
+    pub layout: Option<distribution::DeckLayout>,
 }
 
 /// What can go wrong computing influence lines and envelopes.

@@ -13,6 +13,7 @@ pub mod lacing;
 mod levels;
 pub mod modes;
 mod notes;
+pub mod single_angle;
 
 pub use checks::{member_capacity, Axis, LacingEffect, MemberCapacity, RP_PUNCHED};
 pub use combine::{load_effects, moving_effects, LoadEffect, Relief, Side};

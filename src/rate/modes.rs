@@ -27,10 +27,10 @@
 //! column curve written in slenderness (every curve in `capacity`) can be
 //! entered with the governing mode (§E3 with `Fe` of §E4, as §E4(a) directs).
 //!
-//! Not covered here: the single-angle rules of §E5 (the model does not say
-//! which leg is connected; a member that is one angle connected by one leg
-//! gets a note, and its principal-axis and §E4 checks are reported instead),
-//! and the effect of lacing on torsion (ignored: conservative).
+//! A single angle connected through one leg also gets the equivalent
+//! slenderness of §E5 as a mode of its own (`single_angle`: added beside the
+//! principal-axis and §E4 modes, the lowest governs). Not covered here: the
+//! effect of lacing on torsion (ignored: conservative).
 
 use super::RateError;
 use crate::model::Model;
@@ -58,6 +58,9 @@ pub enum ModeKind {
     FlexuralTorsionalSingly,
     /// Flexural-torsional, unsymmetric section, Eq. E4-4.
     FlexuralTorsional,
+    /// A single angle connected through one leg: the equivalent slenderness
+    /// of §E5 (`rate::single_angle`).
+    SingleAngle(super::single_angle::E5Equation),
 }
 
 impl ModeKind {
@@ -69,6 +72,7 @@ impl ModeKind {
             ModeKind::FlexuralMinor => "flexural, minor principal axis",
             ModeKind::Torsional => "torsional",
             ModeKind::FlexuralTorsionalSingly | ModeKind::FlexuralTorsional => "flexural-torsional",
+            ModeKind::SingleAngle(_) => "single angle through one leg, equivalent slenderness",
         }
     }
     pub fn clause(self) -> &'static str {
@@ -80,6 +84,7 @@ impl ModeKind {
             ModeKind::Torsional => "AISC 360-16 §E4, Eq. E4-2",
             ModeKind::FlexuralTorsionalSingly => "AISC 360-16 §E4, Eq. E4-3",
             ModeKind::FlexuralTorsional => "AISC 360-16 §E4, Eq. E4-4",
+            ModeKind::SingleAngle(eq) => eq.clause(),
         }
     }
     pub fn is_flexural(self) -> bool {
@@ -89,6 +94,7 @@ impl ModeKind {
                 | ModeKind::FlexuralOut
                 | ModeKind::FlexuralMajor
                 | ModeKind::FlexuralMinor
+                | ModeKind::SingleAngle(_)
         )
     }
 }
@@ -316,14 +322,10 @@ pub fn compression_modes(model: &Model, m: usize) -> Result<CompressionModes, Ra
             }
             modes.insert(0, f2);
             modes.insert(0, f1);
-            let present: Vec<_> = b
-                .parts
-                .iter()
-                .filter(|q| !matches!(q.loss, Some(section::Loss::Missing)))
-                .collect();
-            if present.len() == 1 && matches!(present[0].shape, Shape::Angle { .. }) {
-                notes.push("single angle: if it is connected by one leg, AISC 360-16 §E5 applies and is not checked here; the principal-axis and §E4 checks are reported".into());
-            }
+            // AISC 360-16 §E5: a single angle through one leg.
+            let (sa, sa_notes) = super::single_angle::single_angle_mode(model, m, b, e);
+            modes.extend(sa);
+            notes.extend(sa_notes);
             // The parts were validated on input; an error here is reported, not fatal.
             elements = plate_elements(&b.parts, e, fy).unwrap_or_else(|err| {
                 notes.push(format!(

@@ -900,6 +900,7 @@ fn checks(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: &S
         h,
         r#"<p class="note">Fe = π²E/(KL/r)² (Euler). Fcr is the curve's nominal critical stress; the design capacity applies the curve's resistance or safety factor to Fcr·A. Tension: min(yield on gross area, fracture on net area), with the factors of the clause shown. Capacities include the condition and system factors where the method applies them (LRFR: φc·φs ≥ 0.85).</p>"#
     );
+    super::html_lacing::lacing_bars(h, model, r, s);
 
     h.push_str("</section>\n");
 }

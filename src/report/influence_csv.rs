@@ -56,6 +56,18 @@ fn cells(e: &Extreme, s: &Scale) -> String {
     )
 }
 
+/// The train that gave `e` and its variable spacing (empty when none).
+fn train_cells(e: &Extreme, v: Option<&crate::loads::Vehicle>, s: &Scale) -> String {
+    match (e.at, v) {
+        (Some(_), Some(v)) => format!(
+            "{},{}",
+            field(v.train_label(e.train)),
+            e.gap.map_or(String::new(), |g| num(g / s.length))
+        ),
+        _ => ",".into(),
+    }
+}
+
 /// `panelpoint envelope --format csv`: one row per moving load and member
 /// (kind `member`) or support vertical reaction (kind `reaction_y`; the
 /// "max" columns are then up, the "min" columns down).
@@ -63,7 +75,7 @@ pub fn envelopes(w: &mut dyn Write, model: &Model, envelopes: &[MovingEnvelope])
     let s = Scale::of(model);
     writeln!(
         w,
-        "moving_load,vehicle,impact,kind,id,dead_{f},max_{f},max_axles_{f},max_lane_{f},max_position_{l},max_direction,min_{f},min_axles_{f},min_lane_{f},min_position_{l},min_direction",
+        "moving_load,vehicle,impact,kind,id,dead_{f},max_{f},max_axles_{f},max_lane_{f},max_position_{l},max_direction,min_{f},min_axles_{f},min_lane_{f},min_position_{l},min_direction,max_train,max_variable_spacing_{l},min_train,min_variable_spacing_{l}",
         f = s.force_name,
         l = s.length_name
     )?;
@@ -74,24 +86,34 @@ pub fn envelopes(w: &mut dyn Write, model: &Model, envelopes: &[MovingEnvelope])
             field(&env.vehicle),
             num(env.impact)
         );
+        let v = model
+            .live
+            .moving
+            .iter()
+            .find(|m| m.id == env.moving_load)
+            .map(|m| &model.live.vehicles[m.vehicle]);
         for m in &env.per_member {
             writeln!(
                 w,
-                "{head},member,{},{},{},{}",
+                "{head},member,{},{},{},{},{},{}",
                 field(&m.id),
                 num(m.dead / s.force),
                 cells(&m.tension, &s),
-                cells(&m.compression, &s)
+                cells(&m.compression, &s),
+                train_cells(&m.tension, v, &s),
+                train_cells(&m.compression, v, &s)
             )?;
         }
         for r in &env.per_support {
             writeln!(
                 w,
-                "{head},reaction_y,{},{},{},{}",
+                "{head},reaction_y,{},{},{},{},{},{}",
                 field(&r.node),
                 num(r.dead / s.force),
                 cells(&r.up, &s),
-                cells(&r.down, &s)
+                cells(&r.down, &s),
+                train_cells(&r.up, v, &s),
+                train_cells(&r.down, v, &s)
             )?;
         }
     }

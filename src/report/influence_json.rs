@@ -86,14 +86,28 @@ pub fn influence(
     w.write_all(b"]}\n")
 }
 
-fn extreme(w: &mut dyn Write, name: &str, e: &Extreme, s: &Scale) -> io::Result<()> {
+fn extreme(
+    w: &mut dyn Write,
+    name: &str,
+    e: &Extreme,
+    v: Option<&crate::loads::Vehicle>,
+    s: &Scale,
+) -> io::Result<()> {
     let (position, direction) = match e.at {
         Some(p) => (num(p.position / s.length), string(p.direction.name())),
         None => ("null".into(), "null".into()),
     };
+    // The train that governed (its name) and the variable spacing used.
+    let (train, spacing) = match (e.at, v) {
+        (Some(_), Some(v)) => (
+            string(v.train_label(e.train)),
+            e.gap.map_or("null".into(), |g| num(g / s.length)),
+        ),
+        _ => ("null".into(), "null".into()),
+    };
     write!(
         w,
-        "\"{name}\":{{\"force\":{},\"axles\":{},\"lane\":{},\"position\":{position},\"direction\":{direction}}}",
+        "\"{name}\":{{\"force\":{},\"axles\":{},\"lane\":{},\"position\":{position},\"direction\":{direction},\"train\":{train},\"variable_spacing\":{spacing}}}",
         num(e.force / s.force),
         num(e.axles / s.force),
         num(e.lane / s.force)
@@ -102,7 +116,8 @@ fn extreme(w: &mut dyn Write, name: &str, e: &Extreme, s: &Scale) -> io::Result<
 
 /// `panelpoint envelope --format json`: `{..header.., "envelopes":
 /// [{"moving_load","vehicle","impact","impact_on_lane","members": [{"id",
-/// "dead","tension": {"force","axles","lane","position","direction"},
+/// "dead","tension": {"force","axles","lane","position","direction","train",
+/// "variable_spacing"},
 /// "compression": {..}}], "supports": [{"node","dead","up","down"}]}]}`.
 pub fn envelopes(
     w: &mut dyn Write,
@@ -117,6 +132,12 @@ pub fn envelopes(
         if i > 0 {
             w.write_all(b",")?;
         }
+        let v = model
+            .live
+            .moving
+            .iter()
+            .find(|m| m.id == env.moving_load)
+            .map(|m| &model.live.vehicles[m.vehicle]);
         write!(
             w,
             "{{\"moving_load\":{},\"vehicle\":{},\"impact\":{},\"impact_on_lane\":{},\"members\":[",
@@ -135,9 +156,9 @@ pub fn envelopes(
                 string(&m.id),
                 num(m.dead / s.force)
             )?;
-            extreme(w, "tension", &m.tension, &s)?;
+            extreme(w, "tension", &m.tension, v, &s)?;
             w.write_all(b",")?;
-            extreme(w, "compression", &m.compression, &s)?;
+            extreme(w, "compression", &m.compression, v, &s)?;
             w.write_all(b"}")?;
         }
         w.write_all(b"],\"supports\":[")?;
@@ -151,9 +172,9 @@ pub fn envelopes(
                 string(&r.node),
                 num(r.dead / s.force)
             )?;
-            extreme(w, "up", &r.up, &s)?;
+            extreme(w, "up", &r.up, v, &s)?;
             w.write_all(b",")?;
-            extreme(w, "down", &r.down, &s)?;
+            extreme(w, "down", &r.down, v, &s)?;
             w.write_all(b"}")?;
         }
         w.write_all(b"]}")?;

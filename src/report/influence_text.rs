@@ -137,6 +137,19 @@ fn at(e: &Extreme, s: &Scale) -> (String, String) {
     }
 }
 
+/// Which train (and variable spacing, in the model's length unit) gave
+/// extreme `e` of vehicle `v`; empty when no position gave it.
+pub(super) fn governed_by(e: &Extreme, v: &crate::loads::Vehicle, s: &Scale) -> String {
+    if e.at.is_none() {
+        return "-".into();
+    }
+    let label = v.train_label(e.train);
+    match e.gap {
+        Some(g) => format!("{label}, spacing {}", sig(g / s.length, 4)),
+        None => label.to_string(),
+    }
+}
+
 fn force(v: f64, s: &Scale) -> String {
     if v.abs() < 1e-9 {
         "0".into()
@@ -193,55 +206,77 @@ pub fn envelopes(
             }
         }
         let (fl, ll) = (s.force_name, s.length_name);
-        let mut t = Table::new(&[
-            "member",
-            &format!("dead {fl}"),
-            &format!("max tension {fl}"),
-            &format!("at {ll}"),
-            "dir",
-            &format!("max compression {fl}"),
-            &format!("at {ll}"),
-            "dir",
+        // A vehicle that chooses among trains or spacings names the one
+        // that gave each extreme (design truck or tandem, rear spacing).
+        let vehicle = model
+            .live
+            .moving
+            .iter()
+            .find(|m| m.id == env.moving_load)
+            .map(|m| &model.live.vehicles[m.vehicle])
+            .filter(|v| v.chooses_train());
+        if vehicle.is_some() {
+            writeln!(
+                w,
+                "Each extreme names the train that governed and, where the axle spacing varies, the spacing ({ll}) that gave it."
+            )?;
+        }
+        let by = format!("train, spacing {ll}");
+        let with_by = |mut head: Vec<String>| {
+            if vehicle.is_some() {
+                head.insert(5, by.clone());
+                head.push(by.clone());
+            }
+            head
+        };
+        let heads = with_by(vec![
+            "member".into(),
+            format!("dead {fl}"),
+            format!("max tension {fl}"),
+            format!("at {ll}"),
+            "dir".into(),
+            format!("max compression {fl}"),
+            format!("at {ll}"),
+            "dir".into(),
         ]);
-        for m in &env.per_member {
-            let (tp, td) = at(&m.tension, &s);
-            let (cp, cd) = at(&m.compression, &s);
-            t.row(vec![
-                m.id.clone(),
-                force(m.dead, &s),
-                force(m.tension.force, &s),
+        let mut t = Table::new(&heads.iter().map(String::as_str).collect::<Vec<_>>());
+        let row = |id: &str, dead: f64, a: &Extreme, b: &Extreme| {
+            let (tp, td) = at(a, &s);
+            let (cp, cd) = at(b, &s);
+            let mut r = vec![
+                id.to_string(),
+                force(dead, &s),
+                force(a.force, &s),
                 tp,
                 td,
-                force(m.compression.force, &s),
+                force(b.force, &s),
                 cp,
                 cd,
-            ]);
+            ];
+            if let Some(v) = vehicle {
+                r.insert(5, governed_by(a, v, &s));
+                r.push(governed_by(b, v, &s));
+            }
+            r
+        };
+        for m in &env.per_member {
+            t.row(row(&m.id, m.dead, &m.tension, &m.compression));
         }
         write!(w, "{}", t.render())?;
         writeln!(w)?;
-        let mut t = Table::new(&[
-            "support",
-            &format!("dead ry {fl}"),
-            &format!("max up {fl}"),
-            &format!("at {ll}"),
-            "dir",
-            &format!("max down {fl}"),
-            &format!("at {ll}"),
-            "dir",
+        let heads = with_by(vec![
+            "support".into(),
+            format!("dead ry {fl}"),
+            format!("max up {fl}"),
+            format!("at {ll}"),
+            "dir".into(),
+            format!("max down {fl}"),
+            format!("at {ll}"),
+            "dir".into(),
         ]);
+        let mut t = Table::new(&heads.iter().map(String::as_str).collect::<Vec<_>>());
         for r in &env.per_support {
-            let (tp, td) = at(&r.up, &s);
-            let (cp, cd) = at(&r.down, &s);
-            t.row(vec![
-                r.node.clone(),
-                force(r.dead, &s),
-                force(r.up.force, &s),
-                tp,
-                td,
-                force(r.down.force, &s),
-                cp,
-                cd,
-            ]);
+            t.row(row(&r.node, r.dead, &r.up, &r.down));
         }
         write!(w, "{}", t.render())?;
     }

@@ -1,5 +1,5 @@
 //! What-if sweeps: many variants of one model (load scale factors, moving
-//! loads scaled or given another impact, added cases, node moves, a deeper or shallower truss, section and material
+//! loads scaled, given another impact or another vehicle, added cases, node moves, a deeper or shallower truss, section and material
 //! substitutions, members removed), each analysed and rated, one summary
 //! row per variant. The types here are format-free; `input::sweep` reads
 //! them from RON and `report::sweep_out` writes the rows.
@@ -162,6 +162,32 @@ pub enum Change {
     /// Set the dynamic allowance (a fraction) of a moving load or of a
     /// live load case.
     Impact { load: String, impact: f64 },
+    /// Give a moving load another vehicle (applied before every other
+    /// change of its variant, so a scale or impact of the same variant acts
+    /// on the new vehicle).
+    Vehicle {
+        moving: String,
+        choice: Box<VehicleChoice>,
+    },
+}
+
+/// A moving load's new vehicle, made ready by the sweep reader as the
+/// model file would have it: a library model with its standard's rules,
+/// the moving load's `scale` and the deck layout's lever-rule share; or one
+/// of the model's own vehicles with the same scale and share (SI).
+#[derive(Clone, Debug, PartialEq)]
+pub struct VehicleChoice {
+    /// The name given (`"h10"`, or a vehicle id of the model).
+    pub name: String,
+    pub vehicle: crate::loads::Vehicle,
+    /// New allowance, its rule and whether it acts on the lane load;
+    /// `None` keeps the moving load's (its `impact` was given in the model).
+    pub impact: Option<(f64, crate::loads::ImpactRule, bool)>,
+    /// The library model's name, `None` for a vehicle of the model.
+    pub model: Option<String>,
+    pub share: f64,
+    /// A legal load of its standard; `None` keeps the moving load's flag.
+    pub legal: Option<bool>,
 }
 
 impl Change {
@@ -171,7 +197,8 @@ impl Change {
             Change::ScaleCase { .. }
             | Change::AddCase(_)
             | Change::ScaleMoving { .. }
-            | Change::Impact { .. } => Kind::LoadsOnly,
+            | Change::Impact { .. }
+            | Change::Vehicle { .. } => Kind::LoadsOnly,
             Change::MoveNode { .. }
             | Change::Depth { .. }
             | Change::MemberSection { .. }

@@ -60,7 +60,13 @@ fn positive(what: &str, v: Option<f64>) -> Result<(), VariantError> {
 /// The base model with the variant's changes applied in order.
 pub fn apply(base: &Model, variant: &Variant) -> Result<Model, VariantError> {
     let mut m = base.clone();
-    for change in &variant.changes {
+    // A new vehicle first, so that a scale or impact of the same variant
+    // acts on it whatever the order of the axes.
+    let (vehicles, others): (Vec<&Change>, Vec<&Change>) = variant
+        .changes
+        .iter()
+        .partition(|c| matches!(c, Change::Vehicle { .. }));
+    for change in vehicles.into_iter().chain(others) {
         apply_one(&mut m, change)?;
     }
     check_geometry(&m)?;
@@ -96,6 +102,22 @@ fn apply_one(m: &mut Model, change: &Change) -> Result<(), VariantError> {
             m.live.vehicles.push(vehicle);
             m.live.moving[k].vehicle = m.live.vehicles.len() - 1;
         }
+        Change::Vehicle { moving, choice } => {
+            let k = find(&m.live.moving, moving, "moving load", |x| &x.id)?;
+            m.live.vehicles.push(choice.vehicle.clone());
+            let ml = &mut m.live.moving[k];
+            ml.vehicle = m.live.vehicles.len() - 1;
+            if let Some((impact, rule, on_lane)) = choice.impact {
+                ml.impact = impact;
+                ml.impact_rule = rule;
+                ml.impact_on_lane = on_lane;
+            }
+            ml.model = choice.model.clone();
+            ml.share = choice.share;
+            if let Some(legal) = choice.legal {
+                ml.legal = legal;
+            }
+        }
         Change::Impact { load, impact } => {
             if !(impact.is_finite() && *impact >= 0.0) {
                 return Err(VariantError::Invalid(format!(
@@ -103,7 +125,10 @@ fn apply_one(m: &mut Model, change: &Change) -> Result<(), VariantError> {
                 )));
             }
             if let Some(k) = m.live.moving.iter().position(|x| &x.id == load) {
+                // A given allowance replaces the standard's rule, as `impact`
+                // in the model file does.
                 m.live.moving[k].impact = *impact;
+                m.live.moving[k].impact_rule = crate::loads::ImpactRule::Fixed;
             } else {
                 let c = find(&m.cases, load, "load case or moving load", |c| &c.id)?;
                 m.cases[c].impact = *impact;

@@ -152,6 +152,7 @@ pub fn lookup(name: &str) -> Option<LoadModel> {
             let mut v = hs_truck(20.0);
             v.lane = Some(0.64 * KLF);
             v.rules.ignore_relieving = true;
+            v.rules.label = Some("design truck".into());
             v.rules.alternatives.push(Train {
                 label: "design tandem".into(),
                 axles: axles_kip_ft(&[25.0, 25.0], &[4.0]),
