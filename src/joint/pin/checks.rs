@@ -295,6 +295,7 @@ pub fn checks(model: &Model) -> JointSet {
     let len = |v: f64| format!("{} {}", plain(v / sec.to_si), sec.name);
     let mut any_shared = false;
     let mut no_fy = Vec::new();
+    let mut bodies: Vec<(Carrier, u64, u64)> = Vec::new();
     for pin in &model.pins {
         let node = &model.nodes[pin.node].id;
         let resolved = Resolved::new(pin, &model.nodes, &model.members);
@@ -305,15 +306,36 @@ pub fn checks(model: &Model) -> JointSet {
         });
         out.checks.push(Box::new(PinStrength(data.clone())));
         out.notes.push(stack_note(model, pin, &len));
+        // Bars alike (one member, thickness, form and steel) carry the same
+        // share and resist alike: one check for them, naming them all.
+        let mut classes: Vec<Vec<usize>> = Vec::new();
         for (i, bar) in pin.stack.iter().enumerate() {
+            let alike = |c: &&mut Vec<usize>| {
+                let o = &pin.stack[c[0]];
+                o.carrier == bar.carrier
+                    && o.thickness == bar.thickness
+                    && o.kind == bar.kind
+                    && o.fy == bar.fy
+                    && matches!(bar.carrier, Carrier::Member(_))
+            };
+            match classes.iter_mut().find(alike) {
+                Some(c) => c.push(i),
+                None => classes.push(vec![i]),
+            }
+        }
+        for class in &classes {
+            let i = class[0];
+            let bar = &pin.stack[i];
             let bars = match bar.carrier {
                 Carrier::Member(m) => model.members[m].bars,
                 Carrier::Load => 1,
             };
             any_shared |= bars >= 2;
+            let numbers: Vec<String> = class.iter().map(|k| (k + 1).to_string()).collect();
             let part = format!(
-                "bar {} ({}, {}) on pin at {node}",
-                i + 1,
+                "{} {} ({}, {}) on pin at {node}",
+                if class.len() == 1 { "bar" } else { "bars" },
+                numbers.join(" and "),
                 bar.name(),
                 len(bar.thickness)
             );
@@ -328,7 +350,13 @@ pub fn checks(model: &Model) -> JointSet {
                 fy: fy.min(pin.fy),
                 part: part.clone(),
             }));
+            // The body once per member and bar size (at its first pin).
+            let body_key = |b: f64| (bar.carrier.clone(), b.to_bits(), bar.thickness.to_bits());
             if let (BarKind::Eyebar(Some(head)), true) = (&bar.kind, bars >= 2) {
+                if bodies.contains(&body_key(head.body)) {
+                    continue;
+                }
+                bodies.push(body_key(head.body));
                 out.checks.push(Box::new(EyebarBody {
                     data: data.clone(),
                     bar: i,
