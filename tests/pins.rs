@@ -354,3 +354,22 @@ fn heel_pin_allowable_stresses_by_hand() {
     assert!((tie.resistance / kip - 105.6).abs() < 1e-6);
     assert!((tie.demand / kip - 1.1 * 100.0 / 3.0).abs() < 1e-6);
 }
+
+#[test]
+fn bars_and_load_only_stacks_are_refused() {
+    let e = errors(&triangle("", STACK).replace("bars: 2", "bars: 0"));
+    assert!(
+        e.contains(
+            "member \\\"A-B\\\" bars must be a count of parallel eyebars from 1 to 64, not 0"
+        ),
+        "{e}"
+    );
+    let e = errors(&triangle(
+        r#", (node: "C", diameter: "4 in", fy: "36 ksi", stack: [(load: "x", thickness: 1.0)])"#,
+        STACK,
+    ));
+    assert!(
+        e.contains("pin at node \\\"C\\\": the stack has no member's bar"),
+        "{e}"
+    );
+}

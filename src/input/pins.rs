@@ -491,6 +491,15 @@ fn one(ctx: &mut Ctx, p: &PinFile, node: usize, c: &Context) -> Option<Pin> {
             );
         }
     }
+    if !stack
+        .iter()
+        .any(|b| matches!(b.carrier, Carrier::Member(_)))
+    {
+        ctx.error(
+            format!("pin at node \"{id}\": the stack has no member's bar"),
+            None,
+        );
+    }
     check_members(ctx, c, &stack, id, node);
     check_balance(ctx, &stack, id, tol, &sec);
     if ctx.errors.len() > errors {
