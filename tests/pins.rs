@@ -373,3 +373,20 @@ fn bars_and_load_only_stacks_are_refused() {
         "{e}"
     );
 }
+
+/// Per-pin factors override the defaults; a sharing factor below 1 is refused.
+#[test]
+fn factors_override_and_are_checked() {
+    let text = triangle("", STACK).replace(
+        r#"stack: ["#,
+        r#"factors: (sharing: 1.25, interaction_limit: 0.9), stack: ["#,
+    );
+    let model = load(&text);
+    assert_eq!(model.pins[0].factors.sharing, 1.25);
+    assert_eq!(model.pins[0].factors.interaction_limit, 0.9);
+    assert_eq!(model.pins[0].factors.phi_flexure, 1.0);
+    let e = errors(&text.replace("sharing: 1.25", "sharing: 0.9"));
+    assert!(e.contains("factors.sharing must be at least 1"), "{e}");
+    let e = errors(&text.replace("sharing: 1.25", "shearing: 1.25"));
+    assert!(e.contains("shearing"), "{e}");
+}
