@@ -257,6 +257,30 @@ fn bar(
             return None;
         }
     };
+    let kind = bar_kind(ctx, s, &carrier, u, &what)?;
+    Some((
+        Bar {
+            carrier,
+            label,
+            kind,
+            thickness: t?,
+            position: 0.0,
+            fy,
+        },
+        position,
+        gap,
+    ))
+}
+
+/// The form of a stack entry: an eyebar (its head all given or none), a
+/// plate of a member with its geometry at the hole, or a plain bar.
+fn bar_kind(
+    ctx: &mut Ctx,
+    s: &StackFile,
+    carrier: &Carrier,
+    u: &DisplayUnits,
+    what: &dyn Fn(&str) -> String,
+) -> Option<BarKind> {
     let opt = |ctx: &mut Ctx, q: &Option<Quantity>, f: &str| {
         q.as_ref().and_then(|q| length(ctx, q, u, &what(f), false))
     };
@@ -350,18 +374,7 @@ fn bar(
             BarKind::Plain
         }
     };
-    Some((
-        Bar {
-            carrier,
-            label,
-            kind,
-            thickness: t?,
-            position: 0.0,
-            fy,
-        },
-        position,
-        gap,
-    ))
+    Some(kind)
 }
 
 /// The pins of the model, validated.
@@ -462,7 +475,33 @@ fn one(ctx: &mut Ctx, p: &PinFile, node: usize, c: &Context) -> Option<Pin> {
     }
     let sec = |v: f64| format!("{} {}", plain(v / u.section.to_si), u.section.name);
     let (diameter, fy) = (diameter?, fy?);
-    // Overlaps, in order along the pin.
+    let tol = check_overlaps(ctx, &stack, id, &sec);
+    if !stack
+        .iter()
+        .any(|b| matches!(b.carrier, Carrier::Member(_)))
+    {
+        ctx.error(
+            format!("pin at node \"{id}\": the stack has no member's bar"),
+            None,
+        );
+    }
+    check_members(ctx, c, &stack, id, node);
+    check_balance(ctx, &stack, id, tol, &sec);
+    if ctx.errors.len() > errors {
+        return None;
+    }
+    Some(Pin {
+        node,
+        diameter,
+        fy,
+        stack,
+        factors,
+    })
+}
+
+/// Bars overlapping along the pin, each pair named; the length tolerance
+/// of the stack (1e-4 of its length) is returned for the balance check.
+fn check_overlaps(ctx: &mut Ctx, stack: &[Bar], id: &str, sec: &dyn Fn(f64) -> String) -> f64 {
     let mut order: Vec<usize> = (0..stack.len()).collect();
     order.sort_by(|&a, &b| stack[a].position.total_cmp(&stack[b].position));
     let span = stack
@@ -491,27 +530,7 @@ fn one(ctx: &mut Ctx, p: &PinFile, node: usize, c: &Context) -> Option<Pin> {
             );
         }
     }
-    if !stack
-        .iter()
-        .any(|b| matches!(b.carrier, Carrier::Member(_)))
-    {
-        ctx.error(
-            format!("pin at node \"{id}\": the stack has no member's bar"),
-            None,
-        );
-    }
-    check_members(ctx, c, &stack, id, node);
-    check_balance(ctx, &stack, id, tol, &sec);
-    if ctx.errors.len() > errors {
-        return None;
-    }
-    Some(Pin {
-        node,
-        diameter,
-        fy,
-        stack,
-        factors,
-    })
+    tol
 }
 
 /// Bars per member against `bars: N`; a load bar where the node takes loads.

@@ -84,42 +84,7 @@ pub fn pin_svg(model: &Model, pin: &Pin, forces: &[f64], state: &str) -> String 
         palette::TENSION_CORE,
         palette::STRUCTURE
     );
-    for (i, bar) in pin.stack.iter().enumerate() {
-        let f = bar_forces[i];
-        let (xa, xb) = (
-            x(bar.position - bar.thickness / 2.0),
-            x(bar.position + bar.thickness / 2.0),
-        );
-        let colour = match bar.carrier {
-            Carrier::Load => palette::FAINT,
-            Carrier::Member(m) if forces[m] >= 0.0 => palette::TENSION,
-            Carrier::Member(_) => palette::COMPRESSION,
-        };
-        let _ = write!(
-            s,
-            r#"<rect x="{xa:.2}" y="150" width="{:.2}" height="100" fill="{colour}" fill-opacity="0.85" stroke="{}"/>"#,
-            (xb - xa).max(1.0),
-            palette::INK
-        );
-        let xm = 0.5 * (xa + xb);
-        let label = format!("{} {}", i + 1, bar.name());
-        let _ = write!(
-            s,
-            r#"<text transform="translate({:.2},142) rotate(-60)" fill="{}">{}</text>"#,
-            xm + 3.0,
-            palette::INK,
-            esc(&label)
-        );
-        let mag = f[0].hypot(f[1]) / force.to_si;
-        let angle = f[1].atan2(f[0]).to_degrees();
-        let _ = write!(
-            s,
-            r#"<text transform="translate({:.2},262) rotate(60)" fill="{}">{}</text>"#,
-            xm - 3.0,
-            palette::INK,
-            esc(&format!("{} {} at {:.0}°", plain(mag), force.name, angle))
-        );
-    }
+    draw_bars(&mut s, pin, forces, &bar_forces, &x, force);
     // Moment and shear along the pin.
     plot(
         &mut s,
@@ -160,6 +125,54 @@ pub fn pin_svg(model: &Model, pin: &Pin, forces: &[f64], state: &str) -> String 
     );
     s.push_str("</svg>\n");
     s
+}
+
+/// Each bar across the pin to scale, its number and name above, its force
+/// on the pin below (tension blue, compression amber, load bars grey).
+fn draw_bars(
+    s: &mut String,
+    pin: &Pin,
+    forces: &[f64],
+    bar_forces: &[[f64; 2]],
+    x: &dyn Fn(f64) -> f64,
+    force: crate::units::Unit,
+) {
+    for (i, bar) in pin.stack.iter().enumerate() {
+        let f = bar_forces[i];
+        let (xa, xb) = (
+            x(bar.position - bar.thickness / 2.0),
+            x(bar.position + bar.thickness / 2.0),
+        );
+        let colour = match bar.carrier {
+            Carrier::Load => palette::FAINT,
+            Carrier::Member(m) if forces[m] >= 0.0 => palette::TENSION,
+            Carrier::Member(_) => palette::COMPRESSION,
+        };
+        let _ = write!(
+            s,
+            r#"<rect x="{xa:.2}" y="150" width="{:.2}" height="100" fill="{colour}" fill-opacity="0.85" stroke="{}"/>"#,
+            (xb - xa).max(1.0),
+            palette::INK
+        );
+        let xm = 0.5 * (xa + xb);
+        let label = format!("{} {}", i + 1, bar.name());
+        let _ = write!(
+            s,
+            r#"<text transform="translate({:.2},142) rotate(-60)" fill="{}">{}</text>"#,
+            xm + 3.0,
+            palette::INK,
+            esc(&label)
+        );
+        let mag = f[0].hypot(f[1]) / force.to_si;
+        let angle = f[1].atan2(f[0]).to_degrees();
+        let _ = write!(
+            s,
+            r#"<text transform="translate({:.2},262) rotate(60)" fill="{}">{}</text>"#,
+            xm - 3.0,
+            palette::INK,
+            esc(&format!("{} {} at {:.0}°", plain(mag), force.name, angle))
+        );
+    }
 }
 
 /// |M| (sampled between loads, where it is the length of a linear vector)
