@@ -324,6 +324,7 @@ mod tests {
                     unbraced_in: None,
                     unbraced_out: None,
                     tension_only: false,
+                    bars: 1,
                 })
                 .collect(),
             supports: vec![],
@@ -334,6 +335,7 @@ mod tests {
             fatigue: None,
             stability: Default::default(),
             slack: Vec::new(),
+            pins: Vec::new(),
         }
     }
 

@@ -142,6 +142,10 @@ pub struct Member {
     /// Carries tension only: slack when it would be compressed (eyebars,
     /// rods, counters; `analysis::active_set`).
     pub tension_only: bool,
+    /// Parallel eyebars (or bars) making up the member, 1 for an ordinary
+    /// member (`bars: N`; see `joint/pin/eyebar.rs` for the sharing and the
+    /// MBE system factor of multiple-eyebar members).
+    pub bars: u32,
 }
 
 /// How a support holds its node.
@@ -262,6 +266,8 @@ pub struct Model {
     /// stress-free elongation e₀, m). Positive: longer than the distance
     /// between its nodes (slack); negative: drawn up (initial tension).
     pub slack: Vec<(usize, f64)>,
+    /// Pins of a pin-connected truss and their stacks of bars (`pins`).
+    pub pins: Vec<crate::joint::pin::Pin>,
 }
 
 /// A named linear combination of load cases: Σ factor × case (live cases

@@ -217,6 +217,20 @@ pub enum Command {
         #[arg(short = 'o', long = "out")]
         out: Option<PathBuf>,
     },
+    /// Draw one pin as SVG: its stack of bars in order with their forces,
+    /// and the moment and shear along it (the model's `pins`).
+    Pin {
+        model: PathBuf,
+        /// The pin's node.
+        #[arg(long)]
+        node: String,
+        /// Load case or combination without a moving load (default: the first load case).
+        #[arg(long)]
+        case: Option<String>,
+        /// Write to this file (atomically) instead of standard output.
+        #[arg(short = 'o', long = "out")]
+        out: Option<PathBuf>,
+    },
     /// Draw the truss as SVG: geometry to scale with labels, supports and
     /// loads, and member forces, utilization or the deflected shape.
     Draw {

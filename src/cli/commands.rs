@@ -454,6 +454,63 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             write(&out, |w| w.write_all(svg.as_bytes()))?;
             Ok(0)
         }
+        Command::Pin {
+            model,
+            node,
+            case,
+            out,
+        } => {
+            let c = load(&model)?;
+            let m = &c.model;
+            let pin = m
+                .pins
+                .iter()
+                .find(|p| m.nodes[p.node].id == node)
+                .ok_or_else(|| {
+                    let ids: Vec<String> = m
+                        .pins
+                        .iter()
+                        .map(|p| format!("\"{}\"", m.nodes[p.node].id))
+                        .collect();
+                    Error::Usage(format!(
+                        "--node \"{node}\": no pin at that node in {}; pins are at: {}",
+                        model.display(),
+                        if ids.is_empty() {
+                            "none".into()
+                        } else {
+                            ids.join(", ")
+                        }
+                    ))
+                })?;
+            let a = analysis::analyse(m).map_err(|source| Error::Analysis {
+                path: model.clone(),
+                source,
+            })?;
+            // Whole states only: a combination with a moving load is an
+            // envelope, member by member, not one state of the pin.
+            let effects: Vec<_> = report::svg::effects(m, &a)
+                .into_iter()
+                .filter(|e| {
+                    !m.combinations
+                        .iter()
+                        .any(|c| c.id == e.id && !c.moving.is_empty())
+                })
+                .collect();
+            let effect = match &case {
+                None => effects.first(),
+                Some(id) => effects.iter().find(|e| &e.id == id),
+            }
+            .ok_or_else(|| {
+                Error::Usage(format!(
+                    "--case \"{}\": no load case or combination (without a moving load) of that id in {}",
+                    case.as_deref().unwrap_or(""),
+                    model.display()
+                ))
+            })?;
+            let svg = report::pin_svg::pin_svg(m, pin, &effect.forces, &effect.id);
+            write(&out, |w| w.write_all(svg.as_bytes()))?;
+            Ok(0)
+        }
         Command::Report { model, out, method } => {
             let c = load(&model)?;
             let m = &c.model;

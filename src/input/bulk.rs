@@ -568,7 +568,7 @@ fn node(r: &mut Row) -> Option<NodeFile> {
 fn member(r: &mut Row) -> Option<MemberFile> {
     let (mut id, mut start, mut end, mut section, mut material) = (None, None, None, None, None);
     let (mut k_in, mut k_out, mut unbraced_in, mut unbraced_out) = (None, None, None, None);
-    let (mut detail, mut tension_only, mut slack) = (None, None, None);
+    let (mut detail, mut tension_only, mut slack, mut bars) = (None, None, None, None);
     r.fields(|r, name| match name {
         b"id" => once(&mut id, r.id()),
         b"start" => once(&mut start, r.id()),
@@ -582,6 +582,7 @@ fn member(r: &mut Row) -> Option<MemberFile> {
         b"detail" => once(&mut detail, r.string()),
         b"tension_only" => once(&mut tension_only, r.boolean()),
         b"slack" => once(&mut slack, r.quantity()),
+        b"bars" => once(&mut bars, r.number(false).and_then(count)),
         _ => None,
     })?;
     Some(MemberFile {
@@ -597,7 +598,13 @@ fn member(r: &mut Row) -> Option<MemberFile> {
         detail,
         tension_only: tension_only.unwrap_or(false),
         slack,
+        bars,
     })
+}
+
+/// A whole number that fits a u32 (anything else goes to the RON parser).
+fn count(v: f64) -> Option<u32> {
+    (v.fract() == 0.0 && (0.0..=u32::MAX as f64).contains(&v)).then_some(v as u32)
 }
 
 #[cfg(test)]

@@ -190,6 +190,9 @@ pub(super) fn shown(name: &str) -> String {
 /// inside the range where squared lengths stay accurate.
 pub const MAX_COORDINATE: f64 = 1e8;
 
+/// Most parallel eyebars in one member: old chords had up to a dozen or so.
+pub const MAX_BARS: u32 = 64;
+
 /// Longest id accepted, in characters: ids head table columns.
 pub const MAX_ID_CHARS: usize = 256;
 
@@ -362,6 +365,11 @@ impl PlainRefs<'_, '_> {
         if m.unbraced_in.is_some() || m.unbraced_out.is_some() || m.slack.is_some() {
             return None;
         }
+        let bars = match m.bars {
+            None => 1,
+            Some(n) if (1..=MAX_BARS).contains(&n) => n,
+            Some(_) => return None,
+        };
         Some(Member {
             id: m.id.clone(),
             start,
@@ -373,6 +381,7 @@ impl PlainRefs<'_, '_> {
             unbraced_in: None,
             unbraced_out: None,
             tension_only: m.tension_only,
+            bars,
         })
     }
 }
@@ -733,6 +742,18 @@ pub fn convert_deferred(
                     }
                 }
             }
+            let bars = match m.bars {
+                None => 1,
+                Some(n) if (1..=MAX_BARS).contains(&n) => n,
+                Some(n) => {
+                    let at = ctx.locate("id", &m.id, 0);
+                    ctx.error(
+                        format!("{owner} bars must be a count of parallel eyebars from 1 to {MAX_BARS}, not {n}"),
+                        at,
+                    );
+                    1
+                }
+            };
             members.push(Member {
                 id: m.id.clone(),
                 start: s,
@@ -744,6 +765,7 @@ pub fn convert_deferred(
                 unbraced_in,
                 unbraced_out,
                 tension_only: m.tension_only,
+                bars,
             });
         }
     }
@@ -930,6 +952,22 @@ pub fn convert_deferred(
     let live = super::loads::live_loads(&mut ctx, &file, &parts, &node_ids, &carries);
     let fatigue = super::fatigue::settings(&mut ctx, &file, &live);
     let stability = super::stability::convert(&mut ctx, &file.stability, &node_ids, u, &materials);
+    let pins = if file.pins.is_empty() || members.len() != file.members.len() {
+        Vec::new()
+    } else {
+        let lookup = |id: &str| member_ids.get(id);
+        let pc = super::pins::Context {
+            units: u,
+            node_ids: &node_ids,
+            member_ids: &lookup,
+            members: &members,
+            materials: &materials,
+            cases: &cases,
+            supported: &supported,
+            deck: &live.deck,
+        };
+        super::pins::convert(&mut ctx, &file.pins, &pc)
+    };
 
     // Combinations.
     let _ = intern(&mut ctx, "combination", &file.combinations, |c| &c.id);
@@ -1040,6 +1078,7 @@ pub fn convert_deferred(
         fatigue,
         stability,
         slack,
+        pins,
     };
     lap.mark("isolated nodes");
     Ok((

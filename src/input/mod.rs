@@ -10,6 +10,7 @@ pub mod file;
 mod library;
 mod loads;
 pub mod parts;
+mod pins;
 mod plausible;
 pub mod quantity;
 mod rating;

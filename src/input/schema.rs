@@ -54,6 +54,10 @@ pub struct ModelFile {
     /// `input/stability.rs`.
     #[serde(default)]
     pub stability: Option<super::stability::StabilityFile>,
+    /// Pins of a pin-connected truss and their stacks of bars; see
+    /// `input/pins.rs`.
+    #[serde(default)]
+    pub pins: Vec<super::pins::PinFile>,
     /// Fatigue vehicle, traffic and evaluation parameters; see
     /// `docs/fatigue.md` and `input/fatigue.rs`.
     #[serde(default)]
@@ -319,6 +323,10 @@ pub struct MemberFile {
     /// turnbuckle (an initial tension, as a lack of fit).
     #[serde(default)]
     pub slack: Option<Quantity>,
+    /// Parallel eyebars making up the member (default 1); see
+    /// `joint/pin/eyebar.rs`.
+    #[serde(default)]
+    pub bars: Option<u32>,
 }
 
 #[derive(Debug, Deserialize)]

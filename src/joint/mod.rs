@@ -25,6 +25,7 @@
 //! Everything in SI; the report layer converts.
 
 pub(crate) mod nonlinear;
+pub mod pin;
 pub mod solve_rf;
 pub mod states;
 
@@ -92,7 +93,7 @@ pub struct JointSet {
 /// Every joint type's checks of `model`, in a fixed order. A new joint type
 /// adds one line here.
 pub fn all_checks(model: &Model) -> JointSet {
-    let builders: [fn(&Model) -> JointSet; 0] = [];
+    let builders: [fn(&Model) -> JointSet; 1] = [pin::checks];
     let mut all = JointSet::default();
     for build in builders {
         let set = build(model);

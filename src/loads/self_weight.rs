@@ -79,6 +79,7 @@ mod tests {
             unbraced_in: None,
             unbraced_out: None,
             tension_only: false,
+            bars: 1,
         }];
         let sections = vec![Section {
             id: "s".into(),

@@ -216,11 +216,24 @@ impl Method {
     /// φc·φs as applied, with the MBE Eq. 6A.4.2.1-3 floor of 0.85; 1.0 for
     /// levels without condition and system factors.
     pub fn condition_system(&self, level: &Level) -> f64 {
+        self.condition_system_with(level, self.phi_s)
+    }
+
+    /// As [`Method::condition_system`] with a member's own system factor
+    /// `phi_s` (a multiple-eyebar member's 0.90, MBE Table 6A.4.2.4-1).
+    pub fn condition_system_with(&self, level: &Level, phi_s: f64) -> f64 {
         if level.condition_system {
-            (self.phi_c * self.phi_s).max(lrfr::PHI_CS_FLOOR)
+            (self.phi_c * phi_s).max(lrfr::PHI_CS_FLOOR)
         } else {
             1.0
         }
+    }
+
+    /// The system factor φs of member with `bars` parallel eyebars: the
+    /// model's, or 0.90 for a multiple-eyebar member where `lrfr` rates
+    /// (MBE Table 6A.4.2.4-1, from memory) if that is lower.
+    pub fn member_phi_s(&self, bars: u32) -> f64 {
+        crate::joint::pin::eyebar::member_phi_s(self.phi_s, bars, self.family == Family::Lrfr)
     }
 
     /// Whether checks of unfactored effects (single cases, service

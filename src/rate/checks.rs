@@ -32,6 +32,9 @@ impl Axis {
 
 #[derive(Clone, Debug, PartialEq)]
 pub struct MemberCapacity {
+    /// The member's system factor φs (the model's, or 0.90 for a
+    /// multiple-eyebar member under lrfr).
+    pub phi_s: f64,
     /// K·L/r in and out of plane.
     pub slenderness_in: f64,
     pub slenderness_out: f64,
@@ -191,11 +194,13 @@ pub fn member_capacity(
         1.0
     };
     // The check level: the method's check factors and, for LRFR, φc·φs.
+    let phi_s = method.member_phi_s(mem.bars);
     let cs = method
         .design_levels
         .first()
-        .map_or(1.0, |l| method.condition_system(l));
+        .map_or(1.0, |l| method.condition_system_with(l, phi_s));
     let mut cap = MemberCapacity {
+        phi_s,
         slenderness_in,
         slenderness_out,
         slenderness_tension: l / r_in.min(r_out),

@@ -65,7 +65,7 @@ pub(super) fn side_capacity(
             1.0,
         )
     };
-    let cs = method.condition_system(level);
+    let cs = method.condition_system_with(level, cap.phi_s);
     SideCapacity {
         nominal,
         phi,
@@ -121,8 +121,8 @@ fn rate_one(
         gamma_live: level.gamma_live,
         phi,
         phi_c: method.phi_c,
-        phi_s: method.phi_s,
-        phi_cs: method.condition_system(level),
+        phi_s: cap.phi_s,
+        phi_cs: method.condition_system_with(level, cap.phi_s),
         rp,
         u,
         clause: level.clause,

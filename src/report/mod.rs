@@ -20,6 +20,7 @@ pub mod influence_text;
 pub mod joint_rows;
 pub mod joint_text;
 pub mod json;
+pub mod pin_svg;
 pub mod rate_csv;
 pub mod rate_json;
 pub mod rate_rows;

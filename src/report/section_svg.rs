@@ -52,6 +52,9 @@ fn part_note(i: usize, p: &PlacedPart, unit: &str) -> String {
         t.push_str(l);
     }
     let mut extra = Vec::new();
+    if matches!(p.shape, crate::section::Shape::EyeBar { .. }) {
+        extra.push("eyebar".to_string());
+    }
     if !crate::section::outline_to_shape(p) {
         extra.push("outline not to shape".to_string());
     }
@@ -336,11 +339,18 @@ pub fn section_svg(
             .map(|l| format!(" data-label=\"{}\"", xml_escape(l)))
             .unwrap_or_default();
         let to_shape = crate::section::outline_to_shape(&parts[i]);
+        // Eyebars in a blue-grey of their own (issue 16), named in the notes.
+        let eyebar = matches!(parts[i].shape, crate::section::Shape::EyeBar { .. });
         let _ = writeln!(
             s,
-            r##"<path d="{}" fill="{}" fill-rule="evenodd" stroke="#333333" stroke-width="{stroke:.4}" class="part"{label}{}/>"##,
+            r##"<path d="{}" fill="{}" fill-rule="evenodd" stroke="#333333" stroke-width="{stroke:.4}" class="{}"{label}{}/>"##,
             path_d(now),
-            if to_shape { "#b3b3b3" } else { "#d9d9d9" },
+            match (eyebar, to_shape) {
+                (true, _) => "#a9b8c8",
+                (false, true) => "#b3b3b3",
+                (false, false) => "#d9d9d9",
+            },
+            if eyebar { "part eyebar" } else { "part" },
             if to_shape {
                 ""
             } else {

@@ -263,6 +263,24 @@ pub fn without_member(m: &Model, j: usize) -> Result<Model, VariantError> {
             }
         }
     }
+    // Pins: the removed member's bars leave the stacks (a pin left with no
+    // member's bar goes too); later members move down by one.
+    use crate::joint::pin::Carrier;
+    for pin in &mut out.pins {
+        pin.stack.retain(|b| b.carrier != Carrier::Member(j));
+        for b in &mut pin.stack {
+            if let Carrier::Member(k) = &mut b.carrier {
+                if *k > j {
+                    *k -= 1;
+                }
+            }
+        }
+    }
+    out.pins.retain(|p| {
+        p.stack
+            .iter()
+            .any(|b| matches!(b.carrier, Carrier::Member(_)))
+    });
     let mut connected = vec![false; out.nodes.len()];
     for mem in &out.members {
         connected[mem.start] = true;
