@@ -15,6 +15,7 @@ pub mod fatigue;
 pub mod generate;
 pub mod geometry;
 pub mod input;
+pub mod joint;
 pub mod loads;
 pub mod method;
 pub mod model;
