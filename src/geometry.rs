@@ -332,6 +332,7 @@ mod tests {
             live: Default::default(),
             fatigue: None,
             stability: Default::default(),
+            gussets: Vec::new(),
         }
     }
 

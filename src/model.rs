@@ -242,6 +242,8 @@ pub struct Model {
     pub fatigue: Option<crate::fatigue::Settings>,
     /// Rigid joints, U-frames and vibration data (defaults when not given).
     pub stability: crate::stability::Settings,
+    /// Riveted or bolted gusset-plate joints (`joint::gusset`; empty when not given).
+    pub gussets: Vec<crate::joint::gusset::GussetJoint>,
 }
 
 /// A named linear combination of load cases: Σ factor × case (live cases

@@ -901,6 +901,7 @@ pub fn convert_deferred(
     let live = super::loads::live_loads(&mut ctx, &file, &parts, &node_ids, &carries);
     let fatigue = super::fatigue::settings(&mut ctx, &file, &live);
     let stability = super::stability::convert(&mut ctx, &file.stability, &node_ids, u, &materials);
+    let gussets = super::joints::convert(&mut ctx, &file.gusset_joints, &node_ids, &parts);
 
     // Combinations.
     let _ = intern(&mut ctx, "combination", &file.combinations, |c| &c.id);
@@ -1010,6 +1011,7 @@ pub fn convert_deferred(
         live,
         fatigue,
         stability,
+        gussets,
     };
     lap.mark("isolated nodes");
     Ok((
