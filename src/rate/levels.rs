@@ -259,6 +259,7 @@ pub(super) fn postings(
                 member: low.member,
                 posting: posting::posting(method.family, rf, weight),
                 clause: posting::clause(method.family),
+                joint: None,
             })
         })
         .collect()

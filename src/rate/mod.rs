@@ -34,6 +34,8 @@ pub enum RateError {
     /// A combined or enveloped force overflowed (issue 22, item 12).
     #[error("load case or combination \"{effect}\": the force of member \"{member}\" is not a finite number (overflow); the loads or factors are out of range")]
     NonFinite { effect: String, member: String },
+    #[error("{0}")]
+    Joint(#[from] crate::joint::JointError),
     #[error("member \"{member}\": {source}")]
     Capacity {
         member: String,
@@ -130,6 +132,9 @@ pub struct PostingRow {
     pub member: usize,
     pub posting: crate::method::posting::Posting,
     pub clause: &'static str,
+    /// Where a joint check governs the posting: index into the joints'
+    /// ratings (the member above is then the lowest member only).
+    pub joint: Option<usize>,
 }
 
 /// All checks of a model under one rating method.
@@ -154,6 +159,9 @@ pub struct Rating {
     pub postings: Vec<PostingRow>,
     /// Notes for the report: stated defaults, slenderness limits, σe > Fy.
     pub notes: Vec<String>,
+    /// Joint checks (pins, gusset plates, fastener groups) where the model
+    /// describes joints.
+    pub joints: Option<crate::joint::Joints>,
 }
 
 impl Rating {
@@ -185,7 +193,10 @@ pub fn choose_method(model: &Model, cli: Option<&str>) -> Result<Method, String>
 /// Check every member under every case and combination, and rate it.
 pub fn rate(model: &Model, analysis: &Analysis, method: Method) -> Result<Rating, RateError> {
     let envelopes = moving_envelopes(model, &analysis.prepared)?;
-    rate_results(model, &analysis.cases, method, &envelopes)
+    let mut rating = rate_results(model, &analysis.cases, method, &envelopes)?;
+    rating.joints = crate::joint::rate_joints(model, analysis, &rating, &envelopes)?;
+    crate::joint::post_with_joints(&mut rating);
+    Ok(rating)
 }
 
 /// The moving-load envelopes of a model (none when it has no moving loads).
@@ -256,6 +267,7 @@ pub fn rate_results(
         lowest_by_level,
         postings,
         notes,
+        joints: None,
     })
 }
 

@@ -273,7 +273,7 @@ fn summary(
                 );
             }
             for p in &r.postings {
-                let v = super::rate_rows::posting_view(model, p);
+                let v = super::rate_rows::posting_view(model, r, p);
                 let _ = write!(
                     h,
                     "<dt>Posting, “{}”</dt><dd>W = {} {} ({} {}); lowest legal RF {} at member {}: <strong>{}</strong> <span class=\"note\">({})</span></dd>",
@@ -283,7 +283,7 @@ fn summary(
                     esc(&sig(v.weight_tons, 3)),
                     v.ton_name,
                     esc(&sig(v.rf, 3)),
-                    esc(v.member),
+                    esc(&v.member),
                     esc(&super::rate_rows::posting_words(&v)),
                     esc(v.clause)
                 );

@@ -16,6 +16,8 @@ mod html_table;
 pub mod influence_csv;
 pub mod influence_json;
 pub mod influence_text;
+pub mod joint_rows;
+pub mod joint_text;
 pub mod json;
 pub mod rate_csv;
 pub mod rate_json;

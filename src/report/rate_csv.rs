@@ -85,7 +85,7 @@ pub fn rate(w: &mut dyn Write, model: &Model, rating: &Rating) -> io::Result<()>
             f = s.force_name
         )?;
         for p in &rating.postings {
-            let v = posting_view(model, p);
+            let v = posting_view(model, rating, p);
             writeln!(
                 w,
                 "{},{},{},{},{},{},{},{},{}",
@@ -93,7 +93,7 @@ pub fn rate(w: &mut dyn Write, model: &Model, rating: &Rating) -> io::Result<()>
                 num(v.weight),
                 num(v.weight_tons),
                 num(v.rf),
-                field(v.member),
+                field(&v.member),
                 v.posting.flatten().map_or(String::new(), num),
                 v.posting_tons.map_or(String::new(), num),
                 field(&super::rate_rows::posting_words(&v)),

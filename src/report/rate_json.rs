@@ -176,7 +176,7 @@ pub fn rate(
         if k > 0 {
             w.write_all(b",")?;
         }
-        let v = super::rate_rows::posting_view(model, p);
+        let v = super::rate_rows::posting_view(model, rating, p);
         write!(
             w,
             "{{\"vehicle\":{},\"weight\":{},\"weight_tons\":{},\"rf\":{},\"member\":{},\"posting\":{},\"posting_tons\":{},\"restrict_or_close\":{},\"clause\":{}}}",
@@ -184,7 +184,7 @@ pub fn rate(
             num(v.weight),
             num(v.weight_tons),
             num(v.rf),
-            string(v.member),
+            string(&v.member),
             opt(v.posting.flatten()),
             opt(v.posting_tons),
             v.posting == Some(None),
@@ -215,12 +215,101 @@ pub fn rate(
         )?;
     }
     w.write_all(b"]")?;
+    write_joints(w, model, rating)?;
     w.write_all(b",\"notes\":[")?;
-    for (i, n) in rating.notes.iter().enumerate() {
+    let joint_notes = rating.joints.iter().flat_map(|j| j.notes.iter());
+    for (i, n) in rating.notes.iter().chain(joint_notes).enumerate() {
         if i > 0 {
             w.write_all(b",")?;
         }
         w.write_all(string(n).as_bytes())?;
     }
     w.write_all(b"]}\n")
+}
+
+/// `"joints": [{"node", "checks": [{"kind", "member", "demand", "resistance",
+/// "rf", "clause", …}]}]`, nodes in the order their first check comes; each
+/// check's demand and resistance where its lowest first-level factor was
+/// found, and its factor at every level and live load.
+fn write_joints(w: &mut dyn Write, model: &Model, rating: &Rating) -> io::Result<()> {
+    w.write_all(b",\"joints\":[")?;
+    let Some(j) = &rating.joints else {
+        return w.write_all(b"]");
+    };
+    let views = super::joint_rows::joint_views(model, rating);
+    let mut nodes: Vec<usize> = Vec::new();
+    for c in &j.checks {
+        if !nodes.contains(&c.node()) {
+            nodes.push(c.node());
+        }
+    }
+    for (k, &node) in nodes.iter().enumerate() {
+        if k > 0 {
+            w.write_all(b",")?;
+        }
+        write!(
+            w,
+            "{{\"node\":{},\"checks\":[",
+            string(&model.nodes[node].id)
+        )?;
+        let mut first = true;
+        for (ci, v) in views.iter().enumerate() {
+            if j.checks[ci].node() != node {
+                continue;
+            }
+            if !first {
+                w.write_all(b",")?;
+            }
+            first = false;
+            write!(
+                w,
+                "{{\"kind\":{},\"member\":{},\"part\":{},\"demand\":{},\"resistance\":{},\"unit\":{},\"rf\":{},\"level\":{},\"live_case\":{},\"at\":{},\"clause\":{},\"equation\":{},\"inputs\":{{",
+                string(v.kind),
+                v.member.as_deref().map_or("null".into(), string),
+                string(&v.part),
+                num(v.demand),
+                num(v.resistance),
+                string(&v.unit),
+                opt(v.rf),
+                v.level.map_or("null".into(), string),
+                v.live.as_deref().map_or("null".into(), string),
+                v.at.as_deref().map_or("null".into(), string),
+                string(v.clause),
+                string(&v.equation),
+            )?;
+            for (i, (name, x, u)) in v.inputs.iter().enumerate() {
+                if i > 0 {
+                    w.write_all(b",")?;
+                }
+                write!(
+                    w,
+                    "{}:{{\"value\":{},\"unit\":{}}}",
+                    string(name),
+                    num(*x),
+                    string(u)
+                )?;
+            }
+            w.write_all(b"},\"ratings\":[")?;
+            let mut f = true;
+            for r in j.ratings.iter().filter(|r| r.check == ci) {
+                if !f {
+                    w.write_all(b",")?;
+                }
+                f = false;
+                write!(
+                    w,
+                    "{{\"level\":{},\"live_case\":{},\"rf\":{},\"gamma_dc\":{},\"gamma_dw\":{},\"gamma_live\":{}}}",
+                    string(r.level),
+                    string(&r.live_id),
+                    opt(r.rf),
+                    num(r.gamma_dc),
+                    num(r.gamma_dw),
+                    num(r.gamma_live)
+                )?;
+            }
+            w.write_all(b"]}")?;
+        }
+        w.write_all(b"]}")?;
+    }
+    w.write_all(b"]")
 }

@@ -159,7 +159,8 @@ pub fn rating_row<'a>(model: &'a Model, r: &'a Rating, mr: &'a MemberRating) -> 
 /// 9.80665 kN otherwise).
 pub struct PostingView<'a> {
     pub vehicle: &'a str,
-    pub member: &'a str,
+    /// The governing element: a member id, or a joint check described.
+    pub member: String,
     pub rf: f64,
     pub weight: f64,
     pub weight_tons: f64,
@@ -170,7 +171,11 @@ pub struct PostingView<'a> {
     pub clause: &'static str,
 }
 
-pub fn posting_view<'a>(model: &'a Model, p: &'a crate::rate::PostingRow) -> PostingView<'a> {
+pub fn posting_view<'a>(
+    model: &'a Model,
+    rating: &Rating,
+    p: &'a crate::rate::PostingRow,
+) -> PostingView<'a> {
     use crate::method::posting::Posting;
     let s = Scale::of(model);
     let us = matches!(model.units.force.name, "kip" | "lbf" | "lb");
@@ -186,7 +191,10 @@ pub fn posting_view<'a>(model: &'a Model, p: &'a crate::rate::PostingRow) -> Pos
     };
     PostingView {
         vehicle: &p.vehicle,
-        member: &model.members[p.member].id,
+        member: match p.joint {
+            None => model.members[p.member].id.to_string(),
+            Some(i) => rating_joint_words(model, rating, i),
+        },
         rf: p.rf,
         weight: p.weight / s.force,
         weight_tons: p.weight / ton,
@@ -195,6 +203,25 @@ pub fn posting_view<'a>(model: &'a Model, p: &'a crate::rate::PostingRow) -> Pos
         ton_name,
         clause: p.clause,
     }
+}
+
+/// A joint rating row described for a sentence: "joint L3, fastener shear
+/// of U2-L3 (2 gusset plates)".
+pub fn rating_joint_words(model: &Model, rating: &Rating, i: usize) -> String {
+    let Some(j) = &rating.joints else {
+        return String::new();
+    };
+    let check = &j.checks[j.ratings[i].check];
+    let member = check
+        .member()
+        .map_or(String::new(), |m| format!(" of {}", model.members[m].id));
+    format!(
+        "joint {}, {}{} ({})",
+        model.nodes[check.node()].id,
+        check.kind(),
+        member,
+        check.part()
+    )
 }
 
 /// The posting's verdict as words.

@@ -99,8 +99,9 @@ pub fn rate_term(
             r.factors
         )?;
     }
+    super::joint_text::summary(w, model, rating)?;
     for p in &rating.postings {
-        let v = super::rate_rows::posting_view(model, p);
+        let v = super::rate_rows::posting_view(model, rating, p);
         writeln!(
             w,
             "Legal load \"{}\" (W = {} {}, {} {}): lowest RF {} at member {}: {} [{}]",
@@ -279,9 +280,11 @@ pub fn rate_term(
             "(V = 2 % of the member's available compressive strength C; K·L/r limit 140 single, 200 double lacing)"
         )?;
     }
-    if !rating.notes.is_empty() {
+    super::joint_text::table(w, model, rating, term)?;
+    let joint_notes: Vec<&String> = rating.joints.iter().flat_map(|j| j.notes.iter()).collect();
+    if !rating.notes.is_empty() || !joint_notes.is_empty() {
         writeln!(w, "\nNotes:")?;
-        for n in &rating.notes {
+        for n in rating.notes.iter().chain(joint_notes) {
             writeln!(w, "- {n}")?;
         }
     }

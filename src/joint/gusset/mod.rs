@@ -21,3 +21,29 @@ pub mod types;
 pub mod whitmore;
 
 pub use types::GussetJoint;
+
+pub mod joint_check;
+
+use crate::joint::JointSet;
+use crate::model::Model;
+
+/// Every gusset-plate check of `model`, with the joints' notes.
+pub fn checks(model: &Model) -> JointSet {
+    let mut set = JointSet::default();
+    if model.gussets.is_empty() {
+        return set;
+    }
+    for j in &model.gussets {
+        for c in checks::of_joint(j) {
+            set.checks.push(Box::new(joint_check::GussetCheck(c)));
+        }
+        let id = &model.nodes[j.node].id;
+        set.notes.extend(j.notes.iter().map(|n| format!("gusset joint {id}: {n}")));
+    }
+    set.notes.push(format!(
+        "gusset plates: member forces shared equally by a concentric fastener group; under LRFR φc·φs with φs ≤ {:.2} for gusset plates (MBE 6A.6.12.1, from memory); LFR takes the LRFR φ (conservative), ASR 0.55/0.75·Fy and 0.50 fractions; rivet strengths of MBE Table 6A.6.12.5.1-1 from memory (override with shear_strength)",
+        joint_check::GUSSET_PHI_S
+    ));
+    set.notes.push("gusset plates: the chord splice is checked without the eccentricity of the splice plates; block shear only for the block a tension member pulls out toward the plate edge".into());
+    set
+}
