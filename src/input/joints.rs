@@ -280,10 +280,6 @@ fn joint(ctx: &mut Ctx, j: &GussetJointFile, node: usize, p: &Parts) -> Option<G
             PlaneFile::Vertical(q) => (PlaneDir::Vertical, q),
         };
         let Some(at) = r.signed_length(q, &format!("shear_planes[{i}]")) else { continue };
-        if at == 0.0 {
-            r.err(format!("shear_planes[{i}] passes through the work point; place it beside the chord (not 0)"));
-            continue;
-        }
         planes.push(ShearPlane { dir, at });
     }
     if j.shear_planes.is_empty() {
@@ -291,6 +287,7 @@ fn joint(ctx: &mut Ctx, j: &GussetJointFile, node: usize, p: &Parts) -> Option<G
     }
     let splice = j.splice.as_ref().and_then(|s| splice(&mut r, s, node, &groups, plates.as_ref()));
     let (plates, outline) = (plates?, outline?);
+    derive_defaults(&r, &mut groups, &outline, &mut notes);
     let joint = GussetJoint { node, plates, outline, groups, planes, splice, notes };
     geometry_checks(&mut r, &joint);
     Some(joint)
@@ -456,26 +453,16 @@ fn group(r: &mut R, g: &GroupFile, i: usize, node: usize, notes: &mut Vec<String
         None => Some(0.0),
     };
     let edge = match &g.edge {
-        Some(q) => r.length(q, &format!("{at}.edge")),
-        None => diameter.map(|d| {
-            if members.len() == 1 {
-                notes.push(format!("{at}: edge distance not given: 1.5·d taken (conservative)"));
-            }
-            1.5 * d
-        }),
+        Some(q) => r.length(q, &format!("{at}.edge")).map(Some),
+        None => Some(None), // from the outline, once the joint is read
     };
     let planes = r.count(g.planes.unwrap_or(1), &format!("{at}.planes"));
     if g.planes.is_none() {
         notes.push(format!("{at}: shear planes per fastener not given: single shear taken (conservative)"));
     }
     let lmid = match &g.lmid {
-        Some(q) => r.length(q, &format!("{at}.lmid")),
-        None => {
-            if members.len() == 1 {
-                notes.push(format!("{at}: Lmid not given: the distance from the Whitmore section to the work point taken (MBE 6A.6.12.6.8 asks for the nearest adjacent fastener line; this is no shorter for a chord joint)"));
-            }
-            first_row.map(f64::abs)
-        }
+        Some(q) => r.length(q, &format!("{at}.lmid")).map(Some),
+        None => Some(None), // from the other groups, once the joint is read
     };
     let (d, h) = (diameter?, hole?);
     if h < d {
@@ -494,9 +481,9 @@ fn group(r: &mut R, g: &GroupFile, i: usize, node: usize, notes: &mut Vec<String
         gauge: gauge?,
         first_row: first_row?,
         offset: offset?,
-        edge: edge?,
+        edge: edge?.unwrap_or(f64::NAN),
         planes: planes?,
-        lmid: lmid?,
+        lmid: lmid?.unwrap_or(f64::NAN),
     })
 }
 
@@ -536,6 +523,42 @@ fn splice(r: &mut R, s: &SpliceFile, node: usize, groups: &[FastenerGroup], plat
         out.push(SplicePlates { count: count?, width: width?, thickness: thickness?, holes, fy: fy?, fu: fu? });
     }
     Some(Splice { members, plates: out, hole })
+}
+
+/// Edge distances from the outline and Lmid from the other groups where the
+/// model gives none (NaN until here), said in one note per joint in the
+/// model's section unit.
+fn derive_defaults(r: &R, groups: &mut [FastenerGroup], outline: &[P], notes: &mut Vec<String>) {
+    use crate::joint::gusset::derive;
+    let sec = r.p.units.section;
+    let show = |v: f64| format!("{} {}", crate::units::plain(v / sec.to_si), sec.name);
+    let mut said = Vec::new();
+    for i in 0..groups.len() {
+        let id = &r.p.members[groups[i].members[0]].id;
+        if groups[i].edge.is_nan() {
+            let e = derive::edge(outline, &groups[i]);
+            groups[i].edge = if e.is_finite() { e } else { 1.5 * groups[i].diameter };
+            if groups[i].members.len() == 1 {
+                said.push(format!("{id} edge {}", show(groups[i].edge)));
+            }
+        }
+        if groups[i].lmid.is_nan() {
+            let l = derive::lmid(groups, i);
+            groups[i].lmid = l.unwrap_or(groups[i].first_row.abs());
+            if groups[i].members.len() == 1 {
+                match l {
+                    Some(l) => said.push(format!("{id} Lmid {}", show(l))),
+                    None => said.push(format!("{id} Lmid {} (to the work point: no adjacent fastener line crossed)", show(groups[i].lmid))),
+                }
+            }
+        }
+    }
+    if !said.is_empty() {
+        notes.push(format!(
+            "taken from the geometry (edge distance along the member to the outline; Lmid to the nearest adjacent fastener line, MBE 6A.6.12.6.8): {}",
+            said.join(", ")
+        ));
+    }
 }
 
 /// Geometry the checks need: every Whitmore section inside the plate, every plane cutting it.

@@ -109,6 +109,10 @@ pub enum Demand {
     Tension(Vec<(usize, f64)>),
     /// max(−Σ cᵢ·Fᵢ, 0): the compression checks.
     Compression(Vec<(usize, f64)>),
+    /// max(|Σ aᵢ·Fᵢ|, |Σ bⱼ·Fⱼ|): a plane's shear from the free body on
+    /// either side (equal by statics when every member at the joint has a
+    /// group; the larger when not).
+    Larger(Vec<(usize, f64)>, Vec<(usize, f64)>),
     /// |Σ Fᵢ·uᵢ|: a chord running through the joint.
     Vector(Vec<(usize, [f64; 2])>),
     /// The largest tension (or compression when `compression`) among members.
@@ -120,6 +124,7 @@ impl Demand {
         let sum = |t: &[(usize, f64)]| t.iter().map(|&(m, c)| c * forces[m]).sum::<f64>();
         match self {
             Demand::Abs(t) => sum(t).abs(),
+            Demand::Larger(a, b) => sum(a).abs().max(sum(b).abs()),
             Demand::Tension(t) => sum(t).max(0.0),
             Demand::Compression(t) => (-sum(t)).max(0.0),
             Demand::Vector(t) => {
@@ -139,6 +144,7 @@ impl Demand {
     pub fn uses(&self) -> Vec<usize> {
         let mut v: Vec<usize> = match self {
             Demand::Abs(t) | Demand::Tension(t) | Demand::Compression(t) => t.iter().map(|x| x.0).collect(),
+            Demand::Larger(a, b) => a.iter().chain(b).map(|x| x.0).collect(),
             Demand::Vector(t) => t.iter().map(|x| x.0).collect(),
             Demand::Largest { members, .. } => members.clone(),
         };
@@ -315,16 +321,20 @@ fn plane_checks(j: &GussetJoint, out: &mut Vec<Check>) {
     let p = &j.plates;
     for pl in &j.planes {
         let (d, o, name) = plane_line(pl);
-        // Members cut off: their group's centroid on the far side from the work point.
-        let side = |q: [f64; 2]| (q[0] - o[0]) * d[1] - (q[1] - o[1]) * d[0];
-        let far = -side([0.0, 0.0]).signum();
-        let mut terms = Vec::new();
+        // The free bodies on either side: groups by their centroid's side
+        // (a group straddling the plane belongs to neither).
+        let normal = [d[1], -d[0]];
+        let coord = |q: [f64; 2]| ((q[0] - o[0]) * normal[0] + (q[1] - o[1]) * normal[1]) * -1.0;
+        let (mut pos, mut neg) = (Vec::new(), Vec::new());
         for g in &j.groups {
-            if side(g.centroid()).signum() == far {
-                for (k, &m) in g.members.iter().enumerate() {
-                    let u = if k == 0 { g.axis } else { [-g.axis[0], -g.axis[1]] };
-                    terms.push((m, u[0] * d[0] + u[1] * d[1]));
-                }
+            let c = coord(g.centroid());
+            if c.abs() < 1e-9 {
+                continue;
+            }
+            for (k, &m) in g.members.iter().enumerate() {
+                let u = if k == 0 { g.axis } else { [-g.axis[0], -g.axis[1]] };
+                let t = (m, u[0] * d[0] + u[1] * d[1]);
+                if c > 0.0 { pos.push(t) } else { neg.push(t) }
             }
         }
         let (length, holes) = plane_section(j, pl);
@@ -336,7 +346,7 @@ fn plane_checks(j: &GussetJoint, out: &mut Vec<Check>) {
             kind: Kind::ShearYield,
             member: None,
             part: part.clone(),
-            demand: Demand::Abs(terms.clone()),
+            demand: Demand::Larger(pos.clone(), neg.clone()),
             nominal: shear_plane::yield_rn(p.fy, length, p.thickness, p.count),
             inputs: vec![("L", length, Some(Length)), ("t", p.thickness, Some(Length)), ("Fy", p.fy, Some(Stress)), ("Ω", shear_plane::OMEGA, None)],
         });
@@ -345,7 +355,7 @@ fn plane_checks(j: &GussetJoint, out: &mut Vec<Check>) {
             kind: Kind::ShearFracture,
             member: None,
             part,
-            demand: Demand::Abs(terms),
+            demand: Demand::Larger(pos, neg),
             nominal: shear_plane::fracture_rn(p.fu, anv),
             inputs: vec![("L", length, Some(Length)), ("holes", f64::from(holes), None), ("Anv", anv, Some(Area)), ("Fu", p.fu, Some(Stress))],
         });

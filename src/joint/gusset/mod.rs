@@ -11,6 +11,7 @@ pub mod bearing;
 pub mod block_shear;
 pub mod buckling;
 pub mod checks;
+pub mod derive;
 pub mod factors;
 pub mod fasteners;
 pub mod net_section;

@@ -7,8 +7,8 @@
 //!
 //! Ag = L·t·plates over the plate's full length L on the plane; Anv
 //! deducts the holes the plane passes through. The demand is the force
-//! the members on the far side of the plane deliver along it (statics of
-//! the free body cut off by the plane).
+//! the members on one side of the plane deliver along it (statics of the
+//! free body cut off by the plane), the larger of the two sides.
 
 /// Shear-yield reduction factor Ω of the MBE (from memory).
 pub const OMEGA: f64 = 0.88;
