@@ -11,7 +11,10 @@ use crate::units::Dimension;
 /// What the check is.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
 pub enum Kind {
+    /// Rivets in shear.
     FastenerShear,
+    /// Bolts in shear.
+    BoltShear,
     Bearing,
     WhitmoreYield,
     WhitmoreBuckling,
@@ -27,7 +30,7 @@ pub enum Kind {
 impl Kind {
     pub fn name(self) -> &'static str {
         match self {
-            Kind::FastenerShear => "fastener shear",
+            Kind::FastenerShear | Kind::BoltShear => "fastener shear",
             Kind::Bearing => "bearing at holes",
             Kind::WhitmoreYield => "Whitmore yield",
             Kind::WhitmoreBuckling => "Whitmore buckling",
@@ -44,7 +47,7 @@ impl Kind {
     /// The factor of this check among the method's joint factors.
     pub fn factor(self, f: &Factors) -> f64 {
         match self {
-            Kind::FastenerShear => f.fastener,
+            Kind::FastenerShear | Kind::BoltShear => f.fastener,
             Kind::Bearing => f.bearing,
             Kind::WhitmoreYield | Kind::SpliceYield => f.gross_yield,
             Kind::WhitmoreBuckling | Kind::SpliceCompression => f.compression,
@@ -58,16 +61,16 @@ impl Kind {
     /// Clause under MBE Part A (LRFR) — subclause numbers from memory.
     pub fn clause_lrfr(self) -> &'static str {
         match self {
-            Kind::FastenerShear => "MBE 6A.6.12.5.1 (rivets, Table 6A.6.12.5.1-1); AASHTO LRFD 6.13.2.7 (bolts) — from memory",
-            Kind::Bearing => "MBE 6A.6.12.5.2; AASHTO LRFD 6.13.2.9 (φbb = 0.80) — from memory",
-            Kind::WhitmoreYield => "MBE 6A.6.12.6.2 Whitmore gross yielding (φy = 0.95) — from memory",
-            Kind::WhitmoreBuckling => "MBE 6A.6.12.6.8 (K = 0.5, r = t/√12); AASHTO LRFD 6.9.4.1.1 — from memory",
-            Kind::NetFracture => "MBE 6A.6.12.6.3; AASHTO LRFD 6.8.2.1, 6.13.5.2 (φu = 0.80) — from memory",
-            Kind::BlockShear => "MBE 6A.6.12.6.4; AASHTO LRFD 6.13.4 (φbs = 0.80) — from memory",
-            Kind::ShearYield => "MBE 6A.6.12.6.6 shear yielding, Ω = 0.88 (φvy = 1.00) — from memory",
-            Kind::ShearFracture => "MBE 6A.6.12.6.6 shear fracture (φvu = 0.80) — from memory",
+            Kind::FastenerShear => "MBE 6A.6.12.5.1, Table 6A.6.12.5.1-1 (from memory)",
+            Kind::BoltShear => "MBE 6A.6.12.5.1; LRFD 6.13.2.7 (from memory)",
+            Kind::Bearing => "MBE 6A.6.12.5; LRFD 6.13.2.9 (from memory)",
+            Kind::WhitmoreYield => "MBE 6A.6.12.6.2 (from memory)",
+            Kind::WhitmoreBuckling => "MBE 6A.6.12.6.8; LRFD 6.9.4.1.1 (from memory)",
+            Kind::NetFracture => "MBE 6A.6.12.6.3; LRFD 6.8.2.1 (from memory)",
+            Kind::BlockShear => "MBE 6A.6.12.6.4; LRFD 6.13.4 (from memory)",
+            Kind::ShearYield | Kind::ShearFracture => "MBE 6A.6.12.6.6 (from memory)",
             Kind::SpliceYield | Kind::SpliceFracture | Kind::SpliceCompression => {
-                "MBE 6A.6.12.6.9 chord splice; AASHTO LRFD 6.8.2.1 — from memory"
+                "MBE 6A.6.12.6.9; LRFD 6.8.2.1 (from memory)"
             }
         }
     }
@@ -75,20 +78,21 @@ impl Kind {
     /// Clause under MBE Part B (LFR, ASR).
     pub fn clause_part_b(self) -> &'static str {
         match self {
-            Kind::FastenerShear | Kind::Bearing => "MBE Part B / 2009 federal gusset-plate guidance: fasteners (MBE 6A.6.12.5 resistances, factors per method) — from memory",
-            Kind::WhitmoreYield | Kind::WhitmoreBuckling | Kind::NetFracture | Kind::BlockShear => "MBE Part B / 2009 federal gusset-plate guidance: Whitmore section and block shear (MBE 6A.6.12.6 resistances) — from memory",
-            Kind::ShearYield | Kind::ShearFracture => "MBE Part B / 2009 federal gusset-plate guidance: full-plane shear, Ω = 0.88 (MBE 6A.6.12.6.6) — from memory",
-            Kind::SpliceYield | Kind::SpliceFracture | Kind::SpliceCompression => "MBE Part B / 2009 federal gusset-plate guidance: chord splice (MBE 6A.6.12.6.9) — from memory",
+            Kind::FastenerShear | Kind::BoltShear | Kind::Bearing => "MBE Part B, 2009 federal guidance: fasteners (from memory)",
+            Kind::WhitmoreYield | Kind::WhitmoreBuckling | Kind::NetFracture | Kind::BlockShear => "MBE Part B, 2009 federal guidance: Whitmore, block shear (from memory)",
+            Kind::ShearYield | Kind::ShearFracture => "MBE Part B, 2009 federal guidance: plane shear (from memory)",
+            Kind::SpliceYield | Kind::SpliceFracture | Kind::SpliceCompression => "MBE Part B, 2009 federal guidance: chord splice (from memory)",
         }
     }
 
     /// The nominal equation, without the factor.
     pub fn equation(self) -> &'static str {
         match self {
-            Kind::FastenerShear => "n·Rn·(0.83 if longer than 38 in); rivet Rn = Fv·Ab·Ns, bolt Rn = 0.56 (0.45 threads in)·Ab·Fub·Ns",
-            Kind::Bearing => "plates·lines·[min(2.4·d·t·Fu, 1.2·Lc,edge·t·Fu) + (rows − 1)·min(2.4·d·t·Fu, 1.2·(s − dh)·t·Fu)]",
-            Kind::WhitmoreYield => "Fy·Lw·t·plates, Lw = (lines − 1)·g + 2·(rows − 1)·s·tan 30° (truncated at the edges)",
-            Kind::WhitmoreBuckling => "Pn = 0.658^(Po/Pe)·Po (0.877·Pe if Pe/Po < 0.44), Po = Fy·Lw·t·plates, K·Lmid/r with r = t/√12",
+            Kind::FastenerShear => "n·Fv·Ab·Ns (× 0.83 beyond 38 in)",
+            Kind::BoltShear => "n·0.56·Ab·Fub·Ns, 0.45 with threads in the shear plane (× 0.83 beyond 38 in)",
+            Kind::Bearing => "Σ min(2.4·d·t·Fu, 1.2·Lc·t·Fu) over holes and plates",
+            Kind::WhitmoreYield => "Fy·Lw·t·plates, Lw = (lines − 1)·g + 2·(rows − 1)·s·tan 30° within the plate",
+            Kind::WhitmoreBuckling => "0.658^(Po/Pe)·Po (0.877·Pe if Pe/Po < 0.44), Po = Fy·Lw·t·plates, K = 0.5, r = t/√12",
             Kind::NetFracture => "Fu·An·Rp·U, An = (Lw − lines·dh)·t·plates ≤ 0.85·Ag, U = 1.0",
             Kind::BlockShear => "Rp·min(0.58·Fu·Avn, 0.58·Fy·Avg) + Rp·Ubs·Fu·Atn, Ubs = 1.0",
             Kind::ShearYield => "0.58·Fy·L·t·plates·Ω, Ω = 0.88",
@@ -202,10 +206,12 @@ fn group_checks(j: &GussetJoint, g: &FastenerGroup, out: &mut Vec<Check>) {
     let t = p.thickness;
     let m = g.members[0];
     let length = f64::from(g.rows.saturating_sub(1)) * g.pitch;
-    let (rn_one, strength, what) = match &g.fastener {
-        super::types::Fastener::Rivet { fv, .. } => (fasteners::rivet_rn(g.diameter, *fv, g.planes), *fv, "Fv"),
+    let (rn_one, strength, what, kind) = match &g.fastener {
+        super::types::Fastener::Rivet { fv, .. } => {
+            (fasteners::rivet_rn(g.diameter, *fv, g.planes), *fv, "Fv", Kind::FastenerShear)
+        }
         super::types::Fastener::Bolt { fub, threads_excluded, .. } => {
-            (fasteners::bolt_rn(g.diameter, *fub, *threads_excluded, g.planes), *fub, "Fub")
+            (fasteners::bolt_rn(g.diameter, *fub, *threads_excluded, g.planes), *fub, "Fub", Kind::BoltShear)
         }
     };
     let n = g.count();
@@ -226,7 +232,7 @@ fn group_checks(j: &GussetJoint, g: &FastenerGroup, out: &mut Vec<Check>) {
         inputs,
     };
     out.push(check(
-        Kind::FastenerShear,
+        kind,
         whole.clone(),
         fasteners::group_rn(n, rn_one, length),
         vec![

@@ -52,7 +52,7 @@ impl JointCheck for GussetCheck {
         let sym = match (method.family, self.0.kind) {
             (Family::Asr, _) => "allowable fraction",
             (Family::DesignAllowable, _) => "1/Ω",
-            (_, Kind::FastenerShear) => "φ",
+            (_, Kind::FastenerShear | Kind::BoltShear) => "φ",
             (_, Kind::Bearing) => "φbb",
             (_, Kind::WhitmoreYield | Kind::SpliceYield) => "φy",
             (_, Kind::WhitmoreBuckling | Kind::SpliceCompression) => "φc",
