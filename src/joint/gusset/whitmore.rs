@@ -60,3 +60,15 @@ mod tests {
         assert!((width_in_plate(&wide, [0.0, 5.0], [0.0, 1.0], 13.392).0 - 13.392).abs() < 1e-12);
     }
 }
+
+/// The ends of the truncated Whitmore section (for drawings): the points
+/// on either side of centre `c`, across axis `u`, within plate `poly`.
+pub fn section_ends(poly: &[P], c: P, u: P, spread: f64) -> (P, P) {
+    let n = [-u[1], u[0]];
+    let left = (spread / 2.0).min(reach(poly, c, n));
+    let right = (spread / 2.0).min(reach(poly, c, [-n[0], -n[1]]));
+    (
+        [c[0] + n[0] * left, c[1] + n[1] * left],
+        [c[0] - n[0] * right, c[1] - n[1] * right],
+    )
+}
