@@ -170,17 +170,16 @@ pub(super) fn convert(
     let mut seen = vec![false; p.nodes.len()];
     for j in file {
         let Some(&node) = node_ids.get(j.node.as_str()) else {
-            let at = ctx.locate("node", &j.node, 0);
             ctx.error(
                 format!("gusset joint at \"{}\": node \"{}\" is not defined", j.node, j.node),
-                at,
+                None,
             );
             continue;
         };
         if std::mem::replace(&mut seen[node], true) {
             ctx.error(
                 format!("gusset joint at \"{}\" is given twice; give one per node", j.node),
-                ctx.locate("node", &j.node, 1),
+                None,
             );
             continue;
         }
@@ -199,9 +198,10 @@ struct R<'c, 'a, 'p, 'q> {
 }
 
 impl R<'_, '_, '_, '_> {
+    /// The message names the joint and field; no line is given (the
+    /// node's id also appears in supports and loads before the joint).
     fn err(&mut self, msg: String) {
-        let at = self.ctx.locate("node", self.node, 0);
-        self.ctx.error(format!("gusset joint at \"{}\": {msg}", self.node), at);
+        self.ctx.error(format!("gusset joint at \"{}\": {msg}", self.node), None);
     }
     fn what(&self, field: &str) -> String {
         format!("gusset joint at \"{}\": {field}", self.node)
