@@ -224,6 +224,9 @@ fn apply_one(m: &mut Model, change: &Change) -> Result<(), VariantError> {
 pub fn without_member(m: &Model, j: usize) -> Result<Model, VariantError> {
     let mut out = m.clone();
     out.members.remove(j);
+    for g in &mut out.gussets {
+        g.without_member(j);
+    }
     for case in &mut out.cases {
         case.elongations.retain(|e| e.member != j);
         for e in &mut case.elongations {

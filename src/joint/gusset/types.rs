@@ -19,6 +19,28 @@ pub struct GussetJoint {
     pub notes: Vec<String>,
 }
 
+impl GussetJoint {
+    /// The joint after member `j` is removed from the model (a member-loss
+    /// scan, a sweep): its fastener group and splice go, later indices shift.
+    pub fn without_member(&mut self, j: usize) {
+        let shift = |m: &mut usize| {
+            if *m > j {
+                *m -= 1;
+            }
+        };
+        self.groups.retain(|g| !g.members.contains(&j));
+        for g in &mut self.groups {
+            g.members.iter_mut().for_each(shift);
+        }
+        if self.splice.as_ref().is_some_and(|s| s.members.contains(&j)) {
+            self.splice = None;
+        }
+        if let Some(s) = &mut self.splice {
+            s.members.iter_mut().for_each(shift);
+        }
+    }
+}
+
 /// The gusset plates of a joint (identical plates, all carrying the joint).
 #[derive(Clone, Debug, PartialEq)]
 pub struct Plates {
