@@ -317,7 +317,8 @@ fn redundancy_counts_the_moving_load_in_the_service_force() {
 
 fn without_member_in(text: &str, id: &str) -> String {
     let key = format!(r#"(id: "{id}","#);
-    text.lines()
+    without_joints(text)
+        .lines()
         .filter(|l| !l.trim_start().starts_with(&key))
         .collect::<Vec<_>>()
         .join("\n")

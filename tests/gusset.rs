@@ -134,3 +134,42 @@ fn bad_joints_are_named_by_node_and_field() {
     let e = error_of(|t| t.replacen("first_row: 9.0, planes: 2", "first_row: 90.0, planes: 2", 1));
     assert!(e.contains("lies outside the plate outline"), "{e}");
 }
+
+#[test]
+fn whitmore_and_block_shear_of_the_l1_hanger_by_hand() {
+    // Hanger L1-U1 at L1: 2 lines at 3 in, 4 rows at 3 in from 9 in above
+    // the work point; two plates measured 5/16 in, Fy 33, Fu 60 ksi,
+    // punched (Rp 0.90); the outline reaches 2 in beyond the top row.
+    // Whitmore (geometry): Lw = 3 + 2 × 9 × tan 30° = 13.392 in, inside the
+    // plate; Ag = 13.392 × 0.3125 × 2 = 8.370 in²; φy·Fy·Ag = 0.95 × 33 ×
+    // 8.370 = 262.4 kip; × φc·φs = 1.0 × 0.90 (the method's defaults, φc = 1;
+    // gusset φs 0.90, from memory) = 236.2 kip.
+    // Block shear (AASHTO LRFD 6.13.4, by hand): Lv = 9 + 2 = 11 in;
+    // Avg = 2 × 11 × 0.625 = 13.75; Avn = 2 × (11 − 3.5 × 0.9375) × 0.625
+    // = 9.6484; Atn = (3 − 0.9375) × 0.625 = 1.2891 in²; rupture 0.58 × 60
+    // × 9.6484 + 60 × 1.2891 = 413.1 > yield 0.58 × 33 × 13.75 + 77.34 =
+    // 340.5; Rn = 0.90 × 340.5 = 306.5; × 0.80 × 0.90 = 220.7 kip.
+    let model = demo();
+    let set = panelpoint::joint::all_checks(&model);
+    let method = panelpoint::method::Method::from_name("lrfr", &Default::default()).unwrap();
+    let level = &method.design_levels[0];
+    let n = model.nodes.iter().position(|x| x.id == "L1").unwrap();
+    let m = member(&model, "L1-U1");
+    let zero = vec![0.0; model.members.len()];
+    let res = |kind: &str| {
+        let c = set
+            .checks
+            .iter()
+            .find(|c| c.node() == n && c.kind() == kind && c.member() == Some(m))
+            .unwrap();
+        c.evaluate(&zero, &method, level).resistance / KIP
+    };
+    let lw = 3.0 + 18.0 * (30f64).to_radians().tan();
+    let whitmore = 0.95 * 33.0 * lw * 0.3125 * 2.0 * 0.90;
+    assert!((res("Whitmore yield") - whitmore).abs() < 1e-6, "{}", res("Whitmore yield"));
+    let atn = (3.0 - 0.9375) * 0.625;
+    let block = 0.90 * (0.58 * 33.0 * 13.75 + 60.0 * atn) * 0.80 * 0.90;
+    assert!((res("block shear") - block).abs() < 1e-6, "{} vs {block}", res("block shear"));
+    assert!((block - 220.7).abs() < 0.1, "{block}");
+    assert!((whitmore - 236.2).abs() < 0.1, "{whitmore}");
+}

@@ -35,6 +35,18 @@ pub fn checks(model: &Model) -> JointSet {
         return set;
     }
     for j in &model.gussets {
+        // Member directions from the model as it is now (a sweep may move nodes).
+        let mut j = j.clone();
+        for g in &mut j.groups {
+            let mem = &model.members[g.members[0]];
+            let other = if mem.start == j.node { mem.end } else { mem.start };
+            let (a, b) = (&model.nodes[j.node], &model.nodes[other]);
+            let l = (b.x - a.x).hypot(b.y - a.y);
+            if l > 0.0 {
+                g.axis = [(b.x - a.x) / l, (b.y - a.y) / l];
+            }
+        }
+        let j = &j;
         for c in checks::of_joint(j) {
             set.checks.push(Box::new(joint_check::GussetCheck(c)));
         }
