@@ -159,6 +159,11 @@ pub struct SplicePlatesFile {
     pub fu: Option<Quantity>,
 }
 
+/// Bounds of a fastener pattern (far beyond any real joint; they keep a
+/// hostile file from asking for billions of fasteners).
+const MAX_LINES: u32 = 50;
+const MAX_ROWS: u32 = 200;
+
 /// Reads every joint, reporting each problem by joint and field.
 pub(super) fn convert(
     ctx: &mut Ctx,
@@ -434,6 +439,10 @@ fn group(r: &mut R, g: &GroupFile, i: usize, node: usize, notes: &mut Vec<String
     };
     let lines = r.count(g.lines.unwrap_or(1), &format!("{at}.lines"));
     let rows = r.count(g.rows, &format!("{at}.rows"));
+    if lines.unwrap_or(1) > MAX_LINES || rows.unwrap_or(1) > MAX_ROWS {
+        r.err(format!("{at}: at most {MAX_LINES} lines and {MAX_ROWS} rows of fasteners in a group"));
+        return None;
+    }
     let need = |r: &mut R, q: &Option<Quantity>, n: Option<u32>, field: &str| match (q, n) {
         (Some(q), _) => r.length(q, &format!("{at}.{field}")),
         (None, Some(n)) if n > 1 => {
