@@ -283,6 +283,7 @@ fn summary(
                     esc(&row.factors)
                 );
             }
+            super::html_joints::summary_facts(h, model, r);
             for p in &r.postings {
                 let v = super::rate_rows::posting_view(model, r, p);
                 let _ = write!(

@@ -43,6 +43,27 @@ pub(super) fn joints(h: &mut String, model: &Model, rating: Option<&Rating>) {
     h.push_str("</section>\n");
 }
 
+/// The summary's facts: the lowest joint factor per level, and whether a
+/// joint rather than a member controls the truss.
+pub(super) fn summary_facts(h: &mut String, model: &Model, r: &Rating) {
+    let Some(j) = &r.joints else { return };
+    for &(level, mi) in &r.lowest_by_level {
+        let Some(i) = j.lowest_at(level) else { continue };
+        let jr = &j.ratings[i];
+        let rf = jr.rf.unwrap_or(f64::NAN);
+        let controls = rf < r.ratings[mi].rf.unwrap_or(f64::INFINITY);
+        let _ = write!(
+            h,
+            "<dt>Lowest joint, {}</dt><dd>RF <strong>{}</strong> — {} for “{}”{}</dd>",
+            esc(level),
+            esc(&super::table::sig(rf, 3)),
+            esc(&super::rate_rows::rating_joint_words(model, r, i)),
+            esc(&jr.live_id),
+            if controls { "; <strong>below every member: the joint controls</strong>" } else { "" }
+        );
+    }
+}
+
 fn table<'a>(h: &mut String, views: impl Iterator<Item = &'a JointView>) {
     let mut tb = HTable::new(&[
         "check", "member", "part", "demand", "resistance", "unit", "RF", "live load", "clause",

@@ -107,19 +107,6 @@ pub fn of(method: &Method, level: &Level) -> Factors {
     }
 }
 
-/// The note a report gives for the method's joint factors.
-pub fn note(method: &Method) -> Option<String> {
-    match method.family {
-        Family::Lfr => Some("gusset plates under LFR: the LRFR resistance factors of MBE 6A.6.12 are applied to the nominal resistances (the 2009 federal guidance's load-factor capacities are not held here; the LRFR factors, none above 1.0, are the conservative choice)".into()),
-        Family::Asr => Some("gusset plates under ASR: allowables from the nominal resistances, 0.55·Fy (inventory) or 0.75·Fy (operating) for yielding and 0.50·Fu-type fractions for fasteners, bearing, fracture and block shear at both levels (from memory)".into()),
-        Family::DesignFactored | Family::Screening if method.name != "aisc360" => Some(format!(
-            "gusset plates under {}: the AISC 360-16 resistance factors are used (the lower of AASHTO's and AISC's)",
-            method.name
-        )),
-        _ => None,
-    }
-}
-
 #[cfg(test)]
 mod tests {
     use super::*;
