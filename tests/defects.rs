@@ -92,7 +92,11 @@ fn without_member(id: &str) -> String {
 /// a test that removes a member removes the joint descriptions with it).
 fn without_joints(t: &str) -> String {
     let start = t.find("    gusset_joints: [").expect("the demo's joints");
-    let end = start + t[start..].find("\n    ],\n").expect("the end of the joints") + "\n    ],\n".len();
+    let end = start
+        + t[start..]
+            .find("\n    ],\n")
+            .expect("the end of the joints")
+        + "\n    ],\n".len();
     format!("{}{}", &t[..start], &t[end..])
 }
 

@@ -7,7 +7,9 @@ use panelpoint::model::Model;
 fn demo() -> Model {
     let dir = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("models");
     let text = std::fs::read_to_string(dir.join("millrace-footbridge.ron")).unwrap();
-    panelpoint::input::load_str_in(&text, Some(&dir)).unwrap().model
+    panelpoint::input::load_str_in(&text, Some(&dir))
+        .unwrap()
+        .model
 }
 
 fn rating_of(model: &Model, method: Option<&str>) -> panelpoint::rate::Rating {
@@ -21,7 +23,15 @@ fn member(model: &Model, id: &str) -> usize {
 }
 
 /// RF of the check of `kind` for `member` at node `node` under `live`, `level`.
-fn rf(model: &Model, r: &panelpoint::rate::Rating, node: &str, kind: &str, m: Option<&str>, live: &str, level: &str) -> f64 {
+fn rf(
+    model: &Model,
+    r: &panelpoint::rate::Rating,
+    node: &str,
+    kind: &str,
+    m: Option<&str>,
+    live: &str,
+    level: &str,
+) -> f64 {
     let j = r.joints.as_ref().unwrap();
     let n = model.nodes.iter().position(|x| x.id == node).unwrap();
     let ci = (0..j.checks.len())
@@ -38,7 +48,7 @@ fn rf(model: &Model, r: &panelpoint::rate::Rating, node: &str, kind: &str, m: Op
         .unwrap()
 }
 
-const KIP: f64 = 4448.221_615_260_5;
+const KIP: f64 = 4_448.221_615_260_5;
 
 #[test]
 fn every_panel_point_is_rated() {
@@ -46,11 +56,19 @@ fn every_panel_point_is_rated() {
     let r = rating_of(&model, None);
     let j = r.joints.as_ref().unwrap();
     for n in 0..model.nodes.len() {
-        assert!(j.checks.iter().any(|c| c.node() == n), "node {}", model.nodes[n].id);
+        assert!(
+            j.checks.iter().any(|c| c.node() == n),
+            "node {}",
+            model.nodes[n].id
+        );
     }
     // Every member is fastened at both its ends.
     for m in 0..model.members.len() {
-        let ends = j.checks.iter().filter(|c| c.kind() == "fastener shear" && c.uses().contains(&m)).count();
+        let ends = j
+            .checks
+            .iter()
+            .filter(|c| c.kind() == "fastener shear" && c.uses().contains(&m))
+            .count();
         assert!(ends >= 2, "member {}", model.members[m].id);
     }
 }
@@ -69,7 +87,15 @@ fn hanger_rivets_by_the_rating_equation() {
     let ab = std::f64::consts::PI * 0.875f64.powi(2) / 4.0;
     let c = 0.80 * 0.95 * 0.90 * 8.0 * 18.0 * ab * 2.0;
     for (level, gl) in [("inventory", 1.75), ("operating", 1.35)] {
-        let got = rf(&model, &r, "L1", "fastener shear", Some("L1-U1"), "crowd", level);
+        let got = rf(
+            &model,
+            &r,
+            "L1",
+            "fastener shear",
+            Some("L1-U1"),
+            "crowd",
+            level,
+        );
         let hand = (c - 1.25 * 5.8) / (gl * 8.64);
         assert!((got - hand).abs() < 1e-6 * hand, "{level}: {got} vs {hand}");
     }
@@ -83,7 +109,15 @@ fn hanger_rivets_under_allowable_stress_rating() {
     let r = rating_of(&model, Some("asr"));
     let ab = std::f64::consts::PI * 0.875f64.powi(2) / 4.0;
     let c = 0.5 * 8.0 * 18.0 * ab * 2.0;
-    let got = rf(&model, &r, "L1", "fastener shear", Some("L1-U1"), "crowd", "inventory");
+    let got = rf(
+        &model,
+        &r,
+        "L1",
+        "fastener shear",
+        Some("L1-U1"),
+        "crowd",
+        "inventory",
+    );
     let hand = (c - 5.8) / 8.64;
     assert!((got - hand).abs() < 1e-6 * hand, "{got} vs {hand}");
 }
@@ -111,7 +145,11 @@ fn horizontal_plane_at_l2_carries_the_diagonal_component() {
     let e = c.evaluate(forces, &method, &method.design_levels[0]);
     let f = 8.7 * 656f64.sqrt() / 20.0;
     assert!((forces[member(&model, "U1-L2")] / KIP - f).abs() < 1e-6);
-    assert!((e.demand / KIP - f * 16.0 / 656f64.sqrt()).abs() < 1e-6, "{}", e.demand / KIP);
+    assert!(
+        (e.demand / KIP - f * 16.0 / 656f64.sqrt()).abs() < 1e-6,
+        "{}",
+        e.demand / KIP
+    );
 }
 
 fn error_of(edit: impl Fn(String) -> String) -> String {
@@ -119,18 +157,46 @@ fn error_of(edit: impl Fn(String) -> String) -> String {
     let text = edit(std::fs::read_to_string(dir.join("millrace-footbridge.ron")).unwrap());
     match panelpoint::input::load_str_in(&text, Some(&dir)) {
         Ok(_) => panic!("accepted"),
-        Err(d) => d.errors.iter().map(|e| e.message.clone()).collect::<Vec<_>>().join("\n"),
+        Err(d) => d
+            .errors
+            .iter()
+            .map(|e| e.message.clone())
+            .collect::<Vec<_>>()
+            .join("\n"),
     }
 }
 
 #[test]
 fn bad_joints_are_named_by_node_and_field() {
-    let e = error_of(|t| t.replacen("rows: 4, pitch: 3.0, gauge: 3.0, first_row: 9.0", "rows: 0, pitch: 3.0, gauge: 3.0, first_row: 9.0", 1));
-    assert!(e.contains("gusset joint at \"L1\": members[1].rows must be at least 1"), "{e}");
+    let e = error_of(|t| {
+        t.replacen(
+            "rows: 4, pitch: 3.0, gauge: 3.0, first_row: 9.0",
+            "rows: 0, pitch: 3.0, gauge: 3.0, first_row: 9.0",
+            1,
+        )
+    });
+    assert!(
+        e.contains("gusset joint at \"L1\": members[1].rows must be at least 1"),
+        "{e}"
+    );
     let e = error_of(|t| t.replacen("(member: \"L1-U1\"", "(member: \"L2-U2\"", 1));
-    assert!(e.contains("gusset joint at \"L1\": members[1].member: member \"L2-U2\" does not meet this node"), "{e}");
-    let e = error_of(|t| t.replacen("thickness: 0.375, measured_thickness: 0.3125", "thickness: -0.375, measured_thickness: 0.3125", 1));
-    assert!(e.contains("gusset joint at \"L1\": plates.thickness must be positive, not -0.375"), "{e}");
+    assert!(
+        e.contains(
+            "gusset joint at \"L1\": members[1].member: member \"L2-U2\" does not meet this node"
+        ),
+        "{e}"
+    );
+    let e = error_of(|t| {
+        t.replacen(
+            "thickness: 0.375, measured_thickness: 0.3125",
+            "thickness: -0.375, measured_thickness: 0.3125",
+            1,
+        )
+    });
+    assert!(
+        e.contains("gusset joint at \"L1\": plates.thickness must be positive, not -0.375"),
+        "{e}"
+    );
     let e = error_of(|t| t.replacen("first_row: 9.0, planes: 2", "first_row: 90.0, planes: 2", 1));
     assert!(e.contains("lies outside the plate outline"), "{e}");
 }
@@ -166,10 +232,18 @@ fn whitmore_and_block_shear_of_the_l1_hanger_by_hand() {
     };
     let lw = 3.0 + 18.0 * (30f64).to_radians().tan();
     let whitmore = 0.95 * 33.0 * lw * 0.3125 * 2.0 * 0.90;
-    assert!((res("Whitmore yield") - whitmore).abs() < 1e-6, "{}", res("Whitmore yield"));
+    assert!(
+        (res("Whitmore yield") - whitmore).abs() < 1e-6,
+        "{}",
+        res("Whitmore yield")
+    );
     let atn = (3.0 - 0.9375) * 0.625;
     let block = 0.90 * (0.58 * 33.0 * 13.75 + 60.0 * atn) * 0.80 * 0.90;
-    assert!((res("block shear") - block).abs() < 1e-6, "{} vs {block}", res("block shear"));
+    assert!(
+        (res("block shear") - block).abs() < 1e-6,
+        "{} vs {block}",
+        res("block shear")
+    );
     assert!((block - 220.7).abs() < 0.1, "{block}");
     assert!((whitmore - 236.2).abs() < 0.1, "{whitmore}");
 }

@@ -176,14 +176,20 @@ pub(super) fn convert(
     for j in file {
         let Some(&node) = node_ids.get(j.node.as_str()) else {
             ctx.error(
-                format!("gusset joint at \"{}\": node \"{}\" is not defined", j.node, j.node),
+                format!(
+                    "gusset joint at \"{}\": node \"{}\" is not defined",
+                    j.node, j.node
+                ),
                 None,
             );
             continue;
         };
         if std::mem::replace(&mut seen[node], true) {
             ctx.error(
-                format!("gusset joint at \"{}\" is given twice; give one per node", j.node),
+                format!(
+                    "gusset joint at \"{}\" is given twice; give one per node",
+                    j.node
+                ),
                 None,
             );
             continue;
@@ -206,7 +212,8 @@ impl R<'_, '_, '_, '_> {
     /// The message names the joint and field; no line is given (the
     /// node's id also appears in supports and loads before the joint).
     fn err(&mut self, msg: String) {
-        self.ctx.error(format!("gusset joint at \"{}\": {msg}", self.node), None);
+        self.ctx
+            .error(format!("gusset joint at \"{}\": {msg}", self.node), None);
     }
     fn what(&self, field: &str) -> String {
         format!("gusset joint at \"{}\": {field}", self.node)
@@ -217,7 +224,8 @@ impl R<'_, '_, '_, '_> {
         match q.to_si(Dimension::Length, f) {
             Ok(v) if v > 0.0 && v.is_finite() => Some(v),
             Ok(_) => {
-                self.ctx.error(format!("{w} must be positive, not {}", q.show()), None);
+                self.ctx
+                    .error(format!("{w} must be positive, not {}", q.show()), None);
                 None
             }
             Err(e) => {
@@ -252,7 +260,11 @@ impl R<'_, '_, '_, '_> {
 }
 
 fn joint(ctx: &mut Ctx, j: &GussetJointFile, node: usize, p: &Parts) -> Option<GussetJoint> {
-    let mut r = R { ctx, p, node: &j.node };
+    let mut r = R {
+        ctx,
+        p,
+        node: &j.node,
+    };
     let mut notes = Vec::new();
     let plates = plates(&mut r, &j.plates, &mut notes);
     let outline = outline(&mut r, &j.outline);
@@ -262,7 +274,10 @@ fn joint(ctx: &mut Ctx, j: &GussetJointFile, node: usize, p: &Parts) -> Option<G
         if let Some(g) = group(&mut r, g, i, node, &mut notes) {
             for &m in &g.members {
                 if used.contains(&m) {
-                    r.err(format!("members[{i}]: member \"{}\" has two fastener groups", p.members[m].id));
+                    r.err(format!(
+                        "members[{i}]: member \"{}\" has two fastener groups",
+                        p.members[m].id
+                    ));
                 }
                 used.push(m);
             }
@@ -272,7 +287,8 @@ fn joint(ctx: &mut Ctx, j: &GussetJointFile, node: usize, p: &Parts) -> Option<G
     if j.members.is_empty() {
         r.err("members: give the fastener group of at least one member".into());
     }
-    let attached = (0..p.members.len()).filter(|&m| p.members[m].start == node || p.members[m].end == node);
+    let attached =
+        (0..p.members.len()).filter(|&m| p.members[m].start == node || p.members[m].end == node);
     for m in attached {
         if !used.contains(&m) {
             notes.push(format!("member \"{}\" has no fastener group at this joint: its fasteners and Whitmore section are not checked", p.members[m].id));
@@ -284,16 +300,29 @@ fn joint(ctx: &mut Ctx, j: &GussetJointFile, node: usize, p: &Parts) -> Option<G
             PlaneFile::Horizontal(q) => (PlaneDir::Horizontal, q),
             PlaneFile::Vertical(q) => (PlaneDir::Vertical, q),
         };
-        let Some(at) = r.signed_length(q, &format!("shear_planes[{i}]")) else { continue };
+        let Some(at) = r.signed_length(q, &format!("shear_planes[{i}]")) else {
+            continue;
+        };
         planes.push(ShearPlane { dir, at });
     }
     if j.shear_planes.is_empty() {
         notes.push("no shear plane given: the full-plane shear checks (MBE 6A.6.12.6.6) are not made at this joint".into());
     }
-    let splice = j.splice.as_ref().and_then(|s| splice(&mut r, s, node, &groups, plates.as_ref()));
+    let splice = j
+        .splice
+        .as_ref()
+        .and_then(|s| splice(&mut r, s, node, &groups, plates.as_ref()));
     let (plates, outline) = (plates?, outline?);
     derive_defaults(&r, &mut groups, &outline, &mut notes);
-    let joint = GussetJoint { node, plates, outline, groups, planes, splice, notes };
+    let joint = GussetJoint {
+        node,
+        plates,
+        outline,
+        groups,
+        planes,
+        splice,
+        notes,
+    };
     geometry_checks(&mut r, &joint);
     Some(joint)
 }
@@ -310,7 +339,9 @@ fn plates(r: &mut R, f: &PlatesFile, notes: &mut Vec<String>) -> Option<Plates> 
     };
     let loss = f.loss_percent.unwrap_or(0.0);
     if !(0.0..100.0).contains(&loss) {
-        r.err(format!("plates.loss_percent must be from 0 to under 100, not {loss}"));
+        r.err(format!(
+            "plates.loss_percent must be from 0 to under 100, not {loss}"
+        ));
     }
     let fy = r.stress(&f.fy, "plates.fy");
     let fu = r.stress(&f.fu, "plates.fu");
@@ -336,7 +367,15 @@ fn plates(r: &mut R, f: &PlatesFile, notes: &mut Vec<String>) -> Option<Plates> 
             thickness / nominal?
         ));
     }
-    Some(Plates { count: count?, thickness, nominal_thickness: nominal?, fy: fy?, fu: fu?, e: e?, rp })
+    Some(Plates {
+        count: count?,
+        thickness,
+        nominal_thickness: nominal?,
+        fy: fy?,
+        fu: fu?,
+        e: e?,
+        rp,
+    })
 }
 
 fn outline(r: &mut R, pts: &[(f64, f64)]) -> Option<Vec<P>> {
@@ -355,11 +394,20 @@ fn outline(r: &mut R, pts: &[(f64, f64)]) -> Option<Vec<P>> {
 
 fn fastener(r: &mut R, f: &FastenerFile, at: &str, notes: &mut Vec<String>) -> Option<Fastener> {
     match f {
-        FastenerFile::Rivet { year, grade, shear_strength } => {
-            let g = match grade.as_deref().map(|s| s.to_ascii_uppercase().replace([' ', '_'], "-")) {
+        FastenerFile::Rivet {
+            year,
+            grade,
+            shear_strength,
+        } => {
+            let g = match grade
+                .as_deref()
+                .map(|s| s.to_ascii_uppercase().replace([' ', '_'], "-"))
+            {
                 None => None,
                 Some(s) if s == "A502-1" || s == "A502-GRADE-1" => Some(RivetGrade::A502Grade1),
-                Some(s) if s == "A502-2" || s == "A502-GRADE-2" || s == "A502-3" => Some(RivetGrade::A502Grade2),
+                Some(s) if s == "A502-2" || s == "A502-GRADE-2" || s == "A502-3" => {
+                    Some(RivetGrade::A502Grade2)
+                }
                 Some(s) => {
                     r.err(format!("{at}.fastener: rivet grade \"{s}\" is not known (use \"A502-1\" or \"A502-2\", or give shear_strength)"));
                     return None;
@@ -367,15 +415,25 @@ fn fastener(r: &mut R, f: &FastenerFile, at: &str, notes: &mut Vec<String>) -> O
             };
             if let Some(q) = shear_strength {
                 let fv = r.stress(q, &format!("{at}.fastener.shear_strength"))?;
-                return Some(Fastener::Rivet { fv, basis: "shear strength given".into() });
+                return Some(Fastener::Rivet {
+                    fv,
+                    basis: "shear strength given".into(),
+                });
             }
             let (fv, basis) = fast::rivet_strength(g, *year);
             if g.is_none() && year.is_none() {
                 notes.push(format!("{at}: rivets of unknown year and grade: Fv = {:.0} ksi of rivets of unknown origin (MBE Table 6A.6.12.5.1-1, from memory)", fv / KSI));
             }
-            Some(Fastener::Rivet { fv, basis: format!("{basis} (MBE Table 6A.6.12.5.1-1, from memory)") })
+            Some(Fastener::Rivet {
+                fv,
+                basis: format!("{basis} (MBE Table 6A.6.12.5.1-1, from memory)"),
+            })
         }
-        FastenerFile::Bolt { grade, threads, tensile_strength } => {
+        FastenerFile::Bolt {
+            grade,
+            threads,
+            tensile_strength,
+        } => {
             let fub = match tensile_strength {
                 Some(q) => r.stress(q, &format!("{at}.fastener.tensile_strength"))?,
                 None => match grade.to_ascii_uppercase().as_str() {
@@ -391,19 +449,27 @@ fn fastener(r: &mut R, f: &FastenerFile, at: &str, notes: &mut Vec<String>) -> O
             if threads.is_none() {
                 notes.push(format!("{at}: bolt threads not said: taken as included in the shear planes (conservative)"));
             }
-            Some(Fastener::Bolt { fub, threads_excluded: *threads == Some(ThreadsFile::Excluded), grade: grade.clone() })
+            Some(Fastener::Bolt {
+                fub,
+                threads_excluded: *threads == Some(ThreadsFile::Excluded),
+                grade: grade.clone(),
+            })
         }
     }
 }
 
 fn member_at(r: &mut R, name: &str, node: usize, field: &str) -> Option<usize> {
     let Some(m) = r.p.member_ids.get(name).filter(|_| r.p.members_ok) else {
-        r.err(format!("{field} refers to member \"{name}\", which is not defined"));
+        r.err(format!(
+            "{field} refers to member \"{name}\", which is not defined"
+        ));
         return None;
     };
     let mem = &r.p.members[m];
     if mem.start != node && mem.end != node {
-        r.err(format!("{field}: member \"{name}\" does not meet this node"));
+        r.err(format!(
+            "{field}: member \"{name}\" does not meet this node"
+        ));
         return None;
     }
     Some(m)
@@ -412,13 +478,23 @@ fn member_at(r: &mut R, name: &str, node: usize, field: &str) -> Option<usize> {
 /// Unit vector from `node` along member `m`.
 fn axis(p: &Parts, m: usize, node: usize) -> P {
     let mem = &p.members[m];
-    let other = if mem.start == node { mem.end } else { mem.start };
+    let other = if mem.start == node {
+        mem.end
+    } else {
+        mem.start
+    };
     let (a, b) = (&p.nodes[node], &p.nodes[other]);
     let l = (b.x - a.x).hypot(b.y - a.y);
     [(b.x - a.x) / l, (b.y - a.y) / l]
 }
 
-fn group(r: &mut R, g: &GroupFile, i: usize, node: usize, notes: &mut Vec<String>) -> Option<FastenerGroup> {
+fn group(
+    r: &mut R,
+    g: &GroupFile,
+    i: usize,
+    node: usize,
+    notes: &mut Vec<String>,
+) -> Option<FastenerGroup> {
     let at = format!("members[{i}]");
     let m = member_at(r, &g.member, node, &format!("{at}.member"));
     let mut members = vec![m?];
@@ -440,13 +516,18 @@ fn group(r: &mut R, g: &GroupFile, i: usize, node: usize, notes: &mut Vec<String
     let lines = r.count(g.lines.unwrap_or(1), &format!("{at}.lines"));
     let rows = r.count(g.rows, &format!("{at}.rows"));
     if lines.unwrap_or(1) > MAX_LINES || rows.unwrap_or(1) > MAX_ROWS {
-        r.err(format!("{at}: at most {MAX_LINES} lines and {MAX_ROWS} rows of fasteners in a group"));
+        r.err(format!(
+            "{at}: at most {MAX_LINES} lines and {MAX_ROWS} rows of fasteners in a group"
+        ));
         return None;
     }
     let need = |r: &mut R, q: &Option<Quantity>, n: Option<u32>, field: &str| match (q, n) {
         (Some(q), _) => r.length(q, &format!("{at}.{field}")),
         (None, Some(n)) if n > 1 => {
-            r.err(format!("{at}.{field} is needed with more than one {}", if field == "pitch" { "row" } else { "line" }));
+            r.err(format!(
+                "{at}.{field} is needed with more than one {}",
+                if field == "pitch" { "row" } else { "line" }
+            ));
             None
         }
         (None, _) => Some(0.0),
@@ -455,7 +536,9 @@ fn group(r: &mut R, g: &GroupFile, i: usize, node: usize, notes: &mut Vec<String
     let gauge = need(r, &g.gauge, lines, "gauge");
     let first_row = r.signed_length(&g.first_row, &format!("{at}.first_row"));
     if members.len() == 1 && first_row.is_some_and(|f| f <= 0.0) {
-        r.err(format!("{at}.first_row must be positive (work point to the row nearest it, along the member)"));
+        r.err(format!(
+            "{at}.first_row must be positive (work point to the row nearest it, along the member)"
+        ));
     }
     let offset = match &g.offset {
         Some(q) => r.signed_length(q, &format!("{at}.offset")),
@@ -467,7 +550,9 @@ fn group(r: &mut R, g: &GroupFile, i: usize, node: usize, notes: &mut Vec<String
     };
     let planes = r.count(g.planes.unwrap_or(1), &format!("{at}.planes"));
     if g.planes.is_none() {
-        notes.push(format!("{at}: shear planes per fastener not given: single shear taken (conservative)"));
+        notes.push(format!(
+            "{at}: shear planes per fastener not given: single shear taken (conservative)"
+        ));
     }
     let lmid = match &g.lmid {
         Some(q) => r.length(q, &format!("{at}.lmid")).map(Some),
@@ -496,7 +581,13 @@ fn group(r: &mut R, g: &GroupFile, i: usize, node: usize, notes: &mut Vec<String
     })
 }
 
-fn splice(r: &mut R, s: &SpliceFile, node: usize, groups: &[FastenerGroup], plates: Option<&Plates>) -> Option<Splice> {
+fn splice(
+    r: &mut R,
+    s: &SpliceFile,
+    node: usize,
+    groups: &[FastenerGroup],
+    plates: Option<&Plates>,
+) -> Option<Splice> {
     let mut members = Vec::new();
     for (i, m) in s.members.iter().enumerate() {
         members.push(member_at(r, m, node, &format!("splice.members[{i}]"))?);
@@ -529,9 +620,20 @@ fn splice(r: &mut R, s: &SpliceFile, node: usize, groups: &[FastenerGroup], plat
                 r.err(format!("{at}: the holes take the whole width"));
             }
         }
-        out.push(SplicePlates { count: count?, width: width?, thickness: thickness?, holes, fy: fy?, fu: fu? });
+        out.push(SplicePlates {
+            count: count?,
+            width: width?,
+            thickness: thickness?,
+            holes,
+            fy: fy?,
+            fu: fu?,
+        });
     }
-    Some(Splice { members, plates: out, hole })
+    Some(Splice {
+        members,
+        plates: out,
+        hole,
+    })
 }
 
 /// Edge distances from the outline and Lmid from the other groups where the
@@ -546,7 +648,11 @@ fn derive_defaults(r: &R, groups: &mut [FastenerGroup], outline: &[P], notes: &m
         let id = &r.p.members[groups[i].members[0]].id;
         if groups[i].edge.is_nan() {
             let e = derive::edge(outline, &groups[i]);
-            groups[i].edge = if e.is_finite() { e } else { 1.5 * groups[i].diameter };
+            groups[i].edge = if e.is_finite() {
+                e
+            } else {
+                1.5 * groups[i].diameter
+            };
             if groups[i].members.len() == 1 {
                 said.push(format!("{id} edge {}", show(groups[i].edge)));
             }
@@ -557,7 +663,10 @@ fn derive_defaults(r: &R, groups: &mut [FastenerGroup], outline: &[P], notes: &m
             if groups[i].members.len() == 1 {
                 match l {
                     Some(l) => said.push(format!("{id} Lmid {}", show(l))),
-                    None => said.push(format!("{id} Lmid {} (to the work point: no adjacent fastener line crossed)", show(groups[i].lmid))),
+                    None => said.push(format!(
+                        "{id} Lmid {} (to the work point: no adjacent fastener line crossed)",
+                        show(groups[i].lmid)
+                    )),
                 }
             }
         }
@@ -575,11 +684,15 @@ fn geometry_checks(r: &mut R, j: &GussetJoint) {
     use crate::joint::gusset::{checks, outline};
     for (i, g) in j.groups.iter().enumerate() {
         if g.members.len() == 1 && !outline::inside(&j.outline, g.whitmore_centre()) {
-            r.err(format!("members[{i}]: the row nearest the work point lies outside the plate outline"));
+            r.err(format!(
+                "members[{i}]: the row nearest the work point lies outside the plate outline"
+            ));
         }
         for q in g.positions() {
             if !outline::inside(&j.outline, q) {
-                r.err(format!("members[{i}]: a fastener lies outside the plate outline"));
+                r.err(format!(
+                    "members[{i}]: a fastener lies outside the plate outline"
+                ));
                 break;
             }
         }
@@ -587,13 +700,20 @@ fn geometry_checks(r: &mut R, j: &GussetJoint) {
     for (i, pl) in j.planes.iter().enumerate() {
         let (length, _) = checks::plane_section(j, pl);
         if length <= 0.0 {
-            r.err(format!("shear_planes[{i}] does not cross the plate outline"));
+            r.err(format!(
+                "shear_planes[{i}] does not cross the plate outline"
+            ));
         }
     }
     for c in checks::of_joint(j) {
         if !(c.nominal > 0.0 && c.nominal.is_finite()) {
-            let m = c.member.map_or(String::new(), |m| format!(" of member \"{}\"", r.p.members[m].id));
-            r.err(format!("{}{m} has no resistance (check the dimensions: holes wider than the section?)", c.kind.name()));
+            let m = c.member.map_or(String::new(), |m| {
+                format!(" of member \"{}\"", r.p.members[m].id)
+            });
+            r.err(format!(
+                "{}{m} has no resistance (check the dimensions: holes wider than the section?)",
+                c.kind.name()
+            ));
         }
     }
 }

@@ -48,7 +48,9 @@ pub(super) fn joints(h: &mut String, model: &Model, rating: Option<&Rating>) {
 pub(super) fn summary_facts(h: &mut String, model: &Model, r: &Rating) {
     let Some(j) = &r.joints else { return };
     for &(level, mi) in &r.lowest_by_level {
-        let Some(i) = j.lowest_at(level) else { continue };
+        let Some(i) = j.lowest_at(level) else {
+            continue;
+        };
         let jr = &j.ratings[i];
         let rf = jr.rf.unwrap_or(f64::NAN);
         let controls = rf < r.ratings[mi].rf.unwrap_or(f64::INFINITY);
@@ -59,18 +61,34 @@ pub(super) fn summary_facts(h: &mut String, model: &Model, r: &Rating) {
             esc(&super::table::sig(rf, 3)),
             esc(&super::rate_rows::rating_joint_words(model, r, i)),
             esc(&jr.live_id),
-            if controls { "; <strong>below every member: the joint controls</strong>" } else { "" }
+            if controls {
+                "; <strong>below every member: the joint controls</strong>"
+            } else {
+                ""
+            }
         );
     }
 }
 
 fn table<'a>(h: &mut String, views: impl Iterator<Item = &'a JointView>) {
     let mut tb = HTable::new(&[
-        "check", "member", "part", "demand", "resistance", "unit", "RF", "live load", "clause",
+        "check",
+        "member",
+        "part",
+        "demand",
+        "resistance",
+        "unit",
+        "RF",
+        "live load",
+        "clause",
         "inputs and equation",
     ]);
     for v in views {
-        let class = if v.rf.is_some_and(|x| x < 1.0) { "fail" } else { "" };
+        let class = if v.rf.is_some_and(|x| x < 1.0) {
+            "fail"
+        } else {
+            ""
+        };
         tb.row(
             class,
             vec![
@@ -115,7 +133,10 @@ fn drawing(model: &Model, j: &GussetJoint) -> String {
         f(x1 - x0),
         f(y1 - y0)
     );
-    let pts: Vec<String> = poly.iter().map(|q| format!("{},{}", f(q[0]), f(-q[1]))).collect();
+    let pts: Vec<String> = poly
+        .iter()
+        .map(|q| format!("{},{}", f(q[0]), f(-q[1])))
+        .collect();
     let _ = write!(
         s,
         r#"<polygon points="{}" fill="{}" stroke="{}" stroke-width="{}"/>"#,
@@ -126,7 +147,11 @@ fn drawing(model: &Model, j: &GussetJoint) -> String {
     );
     for g in &j.groups {
         // Member centre lines from the work point out past the plate.
-        let along = |u: [f64; 2]| poly.iter().map(|q| q[0] * u[0] + q[1] * u[1]).fold(0.0, f64::max);
+        let along = |u: [f64; 2]| {
+            poly.iter()
+                .map(|q| q[0] * u[0] + q[1] * u[1])
+                .fold(0.0, f64::max)
+        };
         let reach = along(g.axis) + 0.45 * pad;
         let back = if g.members.len() > 1 {
             -(along([-g.axis[0], -g.axis[1]]) + 0.45 * pad)
@@ -164,7 +189,14 @@ fn drawing(model: &Model, j: &GussetJoint) -> String {
             PlaneDir::Horizontal => ([x0 + pad / 2.0, at], [x1 - pad / 2.0, at]),
             PlaneDir::Vertical => ([at, y0 + pad / 2.0], [at, y1 - pad / 2.0]),
         };
-        line(&mut s, a, b, palette::COMPRESSION, 1.5 * stroke, Some("8 4"));
+        line(
+            &mut s,
+            a,
+            b,
+            palette::COMPRESSION,
+            1.5 * stroke,
+            Some("8 4"),
+        );
     }
     let c = size / 60.0;
     line(&mut s, [-c, 0.0], [c, 0.0], palette::INK, stroke, None);
@@ -174,7 +206,13 @@ fn drawing(model: &Model, j: &GussetJoint) -> String {
 }
 
 /// The Whitmore section (solid) and the 30° spread lines (dashed).
-fn whitmore_lines(s: &mut String, j: &GussetJoint, g: &crate::joint::gusset::types::FastenerGroup, k: f64, stroke: f64) {
+fn whitmore_lines(
+    s: &mut String,
+    j: &GussetJoint,
+    g: &crate::joint::gusset::types::FastenerGroup,
+    k: f64,
+    stroke: f64,
+) {
     let spread = whitmore::spread_width(g.lines, g.gauge, g.rows, g.pitch);
     let c = g.whitmore_centre();
     let (a, b) = whitmore::section_ends(&j.outline, c, g.axis, spread);
@@ -189,13 +227,30 @@ fn whitmore_lines(s: &mut String, j: &GussetJoint, g: &crate::joint::gusset::typ
         [c[0] + nrm[0] * spread / 2.0, c[1] + nrm[1] * spread / 2.0],
         [c[0] - nrm[0] * spread / 2.0, c[1] - nrm[1] * spread / 2.0],
     ];
-    line(s, sc(far[lines - 1]), sc(ends[0]), palette::TENSION, stroke, Some("3 2"));
-    line(s, sc(far[0]), sc(ends[1]), palette::TENSION, stroke, Some("3 2"));
+    line(
+        s,
+        sc(far[lines - 1]),
+        sc(ends[0]),
+        palette::TENSION,
+        stroke,
+        Some("3 2"),
+    );
+    line(
+        s,
+        sc(far[0]),
+        sc(ends[1]),
+        palette::TENSION,
+        stroke,
+        Some("3 2"),
+    );
 }
 
 fn line(s: &mut String, a: [f64; 2], b: [f64; 2], colour: &str, w: f64, dash: Option<&str>) {
     let dash = dash.map_or(String::new(), |d| {
-        let scale: Vec<String> = d.split(' ').map(|x| f(x.parse::<f64>().unwrap_or(1.0) * w * 2.0)).collect();
+        let scale: Vec<String> = d
+            .split(' ')
+            .map(|x| f(x.parse::<f64>().unwrap_or(1.0) * w * 2.0))
+            .collect();
         format!(r#" stroke-dasharray="{}""#, scale.join(" "))
     });
     let _ = write!(

@@ -62,7 +62,7 @@ mod tests {
             hole: 0.9375 * INCH,
         };
         let rn = group_rn(&p, 0.5 * INCH, 60.0 * KSI, 1);
-        let kip = rn / 4448.221_615_260_5;
+        let kip = rn / 4_448.221_615_260_5;
         assert!((kip - 326.25).abs() < 1e-6, "{kip}");
         // Two plates double it.
         assert!((group_rn(&p, 0.5 * INCH, 60.0 * KSI, 2) / rn - 2.0).abs() < 1e-12);

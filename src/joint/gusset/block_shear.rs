@@ -19,7 +19,16 @@ pub struct Block {
 /// `gauge` apart, `rows` rows `pitch` apart, `edge` from the outer row to
 /// the edge, hole diameter `hole`, plate thickness `t`.
 #[allow(clippy::too_many_arguments)]
-pub fn block(lines: u32, gauge: f64, rows: u32, pitch: f64, edge: f64, hole: f64, t: f64, plates: u32) -> Block {
+pub fn block(
+    lines: u32,
+    gauge: f64,
+    rows: u32,
+    pitch: f64,
+    edge: f64,
+    hole: f64,
+    t: f64,
+    plates: u32,
+) -> Block {
     let n = f64::from(plates);
     let lv = f64::from(rows.saturating_sub(1)) * pitch + edge;
     let lvn = lv - (f64::from(rows) - 0.5) * hole;

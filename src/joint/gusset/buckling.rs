@@ -47,7 +47,10 @@ mod tests {
         let p = pn(10.0, 33.0, 29000.0, klr);
         let pe = std::f64::consts::PI.powi(2) * 29000.0 * 10.0 / (klr * klr);
         assert!((pe - 1656.36).abs() < 0.01, "{pe}");
-        assert!((p - 0.658f64.powf(330.0 / 1656.36) * 330.0).abs() < 0.01, "{p}");
+        assert!(
+            (p - 0.658f64.powf(330.0 / 1656.36) * 330.0).abs() < 0.01,
+            "{p}"
+        );
         assert!((p - 303.6).abs() < 0.05, "{p}");
     }
 

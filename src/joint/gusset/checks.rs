@@ -5,7 +5,9 @@
 
 use super::factors::Factors;
 use super::types::{FastenerGroup, GussetJoint, PlaneDir};
-use super::{bearing, block_shear, buckling, fasteners, net_section, outline, shear_plane, splice, whitmore};
+use super::{
+    bearing, block_shear, buckling, fasteners, net_section, outline, shear_plane, splice, whitmore,
+};
 use crate::units::Dimension;
 
 /// What the check is.
@@ -78,10 +80,18 @@ impl Kind {
     /// Clause under MBE Part B (LFR, ASR).
     pub fn clause_part_b(self) -> &'static str {
         match self {
-            Kind::FastenerShear | Kind::BoltShear | Kind::Bearing => "MBE Part B, 2009 federal guidance: fasteners (from memory)",
-            Kind::WhitmoreYield | Kind::WhitmoreBuckling | Kind::NetFracture | Kind::BlockShear => "MBE Part B, 2009 federal guidance: Whitmore, block shear (from memory)",
-            Kind::ShearYield | Kind::ShearFracture => "MBE Part B, 2009 federal guidance: plane shear (from memory)",
-            Kind::SpliceYield | Kind::SpliceFracture | Kind::SpliceCompression => "MBE Part B, 2009 federal guidance: chord splice (from memory)",
+            Kind::FastenerShear | Kind::BoltShear | Kind::Bearing => {
+                "MBE Part B, 2009 federal guidance: fasteners (from memory)"
+            }
+            Kind::WhitmoreYield | Kind::WhitmoreBuckling | Kind::NetFracture | Kind::BlockShear => {
+                "MBE Part B, 2009 federal guidance: Whitmore, block shear (from memory)"
+            }
+            Kind::ShearYield | Kind::ShearFracture => {
+                "MBE Part B, 2009 federal guidance: plane shear (from memory)"
+            }
+            Kind::SpliceYield | Kind::SpliceFracture | Kind::SpliceCompression => {
+                "MBE Part B, 2009 federal guidance: chord splice (from memory)"
+            }
         }
     }
 
@@ -120,7 +130,10 @@ pub enum Demand {
     /// |Σ Fᵢ·uᵢ|: a chord running through the joint.
     Vector(Vec<(usize, [f64; 2])>),
     /// The largest tension (or compression when `compression`) among members.
-    Largest { members: Vec<usize>, compression: bool },
+    Largest {
+        members: Vec<usize>,
+        compression: bool,
+    },
 }
 
 impl Demand {
@@ -137,7 +150,10 @@ impl Demand {
                 });
                 x.hypot(y)
             }
-            Demand::Largest { members, compression } => members
+            Demand::Largest {
+                members,
+                compression,
+            } => members
                 .iter()
                 .map(|&m| if *compression { -forces[m] } else { forces[m] })
                 .fold(0.0, f64::max),
@@ -147,7 +163,9 @@ impl Demand {
     /// The members whose forces enter.
     pub fn uses(&self) -> Vec<usize> {
         let mut v: Vec<usize> = match self {
-            Demand::Abs(t) | Demand::Tension(t) | Demand::Compression(t) => t.iter().map(|x| x.0).collect(),
+            Demand::Abs(t) | Demand::Tension(t) | Demand::Compression(t) => {
+                t.iter().map(|x| x.0).collect()
+            }
             Demand::Larger(a, b) => a.iter().chain(b).map(|x| x.0).collect(),
             Demand::Vector(t) => t.iter().map(|x| x.0).collect(),
             Demand::Largest { members, .. } => members.clone(),
@@ -186,7 +204,11 @@ pub fn whitmore_of(j: &GussetJoint, g: &FastenerGroup) -> (f64, f64, f64) {
 }
 
 fn part(j: &GussetJoint, what: &str) -> String {
-    format!("{} gusset plate{} {what}", j.plates.count, if j.plates.count == 1 { "" } else { "s" })
+    format!(
+        "{} gusset plate{} {what}",
+        j.plates.count,
+        if j.plates.count == 1 { "" } else { "s" }
+    )
 }
 
 /// Every check of joint `j`.
@@ -207,17 +229,31 @@ fn group_checks(j: &GussetJoint, g: &FastenerGroup, out: &mut Vec<Check>) {
     let m = g.members[0];
     let length = f64::from(g.rows.saturating_sub(1)) * g.pitch;
     let (rn_one, strength, what, kind) = match &g.fastener {
-        super::types::Fastener::Rivet { fv, .. } => {
-            (fasteners::rivet_rn(g.diameter, *fv, g.planes), *fv, "Fv", Kind::FastenerShear)
-        }
-        super::types::Fastener::Bolt { fub, threads_excluded, .. } => {
-            (fasteners::bolt_rn(g.diameter, *fub, *threads_excluded, g.planes), *fub, "Fub", Kind::BoltShear)
-        }
+        super::types::Fastener::Rivet { fv, .. } => (
+            fasteners::rivet_rn(g.diameter, *fv, g.planes),
+            *fv,
+            "Fv",
+            Kind::FastenerShear,
+        ),
+        super::types::Fastener::Bolt {
+            fub,
+            threads_excluded,
+            ..
+        } => (
+            fasteners::bolt_rn(g.diameter, *fub, *threads_excluded, g.planes),
+            *fub,
+            "Fub",
+            Kind::BoltShear,
+        ),
     };
     let n = g.count();
     let (whole, continuous) = if g.members.len() > 1 {
         let u2 = g.axis;
-        let v: Vec<(usize, [f64; 2])> = g.members.iter().map(|&k| (k, if k == m { u2 } else { [-u2[0], -u2[1]] })).collect();
+        let v: Vec<(usize, [f64; 2])> = g
+            .members
+            .iter()
+            .map(|&k| (k, if k == m { u2 } else { [-u2[0], -u2[1]] }))
+            .collect();
         (Demand::Vector(v), true)
     } else {
         (Demand::Abs(vec![(m, 1.0)]), false)
@@ -274,27 +310,48 @@ fn group_checks(j: &GussetJoint, g: &FastenerGroup, out: &mut Vec<Check>) {
         Kind::WhitmoreYield,
         Demand::Tension(axial.clone()),
         p.fy * ag,
-        vec![("Lw", lw, Some(Length)), ("spread", spread, Some(Length)), ("t", t, Some(Length)), ("Fy", p.fy, Some(Stress))],
+        vec![
+            ("Lw", lw, Some(Length)),
+            ("spread", spread, Some(Length)),
+            ("t", t, Some(Length)),
+            ("Fy", p.fy, Some(Stress)),
+        ],
     ));
     out.push(check(
         Kind::WhitmoreBuckling,
         Demand::Compression(axial.clone()),
         buckling::pn(ag, p.fy, p.e, klr),
-        vec![("Lw", lw, Some(Length)), ("Lmid", g.lmid, Some(Length)), ("K·L/r", klr, None), ("Fy", p.fy, Some(Stress))],
+        vec![
+            ("Lw", lw, Some(Length)),
+            ("Lmid", g.lmid, Some(Length)),
+            ("K·L/r", klr, None),
+            ("Fy", p.fy, Some(Stress)),
+        ],
     ));
     let an = net_section::net_area(lw, g.lines, g.hole, t, p.count);
     out.push(check(
         Kind::NetFracture,
         Demand::Tension(axial.clone()),
         net_section::rn(p.fu, an, p.rp, 1.0),
-        vec![("An", an, Some(Area)), ("Fu", p.fu, Some(Stress)), ("Rp", p.rp, None)],
+        vec![
+            ("An", an, Some(Area)),
+            ("Fu", p.fu, Some(Stress)),
+            ("Rp", p.rp, None),
+        ],
     ));
-    let b = block_shear::block(g.lines, g.gauge, g.rows, g.pitch, g.edge, g.hole, t, p.count);
+    let b = block_shear::block(
+        g.lines, g.gauge, g.rows, g.pitch, g.edge, g.hole, t, p.count,
+    );
     out.push(check(
         Kind::BlockShear,
         Demand::Tension(axial),
         block_shear::rn(&b, p.fy, p.fu, p.rp),
-        vec![("Avg", b.avg, Some(Area)), ("Avn", b.avn, Some(Area)), ("Atn", b.atn, Some(Area)), ("Rp", p.rp, None)],
+        vec![
+            ("Avg", b.avg, Some(Area)),
+            ("Avn", b.avn, Some(Area)),
+            ("Atn", b.atn, Some(Area)),
+            ("Rp", p.rp, None),
+        ],
     ));
 }
 
@@ -330,7 +387,7 @@ fn plane_checks(j: &GussetJoint, out: &mut Vec<Check>) {
         // The free bodies on either side: groups by their centroid's side
         // (a group straddling the plane belongs to neither).
         let normal = [d[1], -d[0]];
-        let coord = |q: [f64; 2]| ((q[0] - o[0]) * normal[0] + (q[1] - o[1]) * normal[1]) * -1.0;
+        let coord = |q: [f64; 2]| -((q[0] - o[0]) * normal[0] + (q[1] - o[1]) * normal[1]);
         let (mut pos, mut neg) = (Vec::new(), Vec::new());
         for g in &j.groups {
             let c = coord(g.centroid());
@@ -338,9 +395,17 @@ fn plane_checks(j: &GussetJoint, out: &mut Vec<Check>) {
                 continue;
             }
             for (k, &m) in g.members.iter().enumerate() {
-                let u = if k == 0 { g.axis } else { [-g.axis[0], -g.axis[1]] };
+                let u = if k == 0 {
+                    g.axis
+                } else {
+                    [-g.axis[0], -g.axis[1]]
+                };
                 let t = (m, u[0] * d[0] + u[1] * d[1]);
-                if c > 0.0 { pos.push(t) } else { neg.push(t) }
+                if c > 0.0 {
+                    pos.push(t)
+                } else {
+                    neg.push(t)
+                }
             }
         }
         let (length, holes) = plane_section(j, pl);
@@ -354,7 +419,12 @@ fn plane_checks(j: &GussetJoint, out: &mut Vec<Check>) {
             part: part.clone(),
             demand: Demand::Larger(pos.clone(), neg.clone()),
             nominal: shear_plane::yield_rn(p.fy, length, p.thickness, p.count),
-            inputs: vec![("L", length, Some(Length)), ("t", p.thickness, Some(Length)), ("Fy", p.fy, Some(Stress)), ("Ω", shear_plane::OMEGA, None)],
+            inputs: vec![
+                ("L", length, Some(Length)),
+                ("t", p.thickness, Some(Length)),
+                ("Fy", p.fy, Some(Stress)),
+                ("Ω", shear_plane::OMEGA, None),
+            ],
         });
         out.push(Check {
             node: j.node,
@@ -363,7 +433,12 @@ fn plane_checks(j: &GussetJoint, out: &mut Vec<Check>) {
             part,
             demand: Demand::Larger(pos, neg),
             nominal: shear_plane::fracture_rn(p.fu, anv),
-            inputs: vec![("L", length, Some(Length)), ("holes", f64::from(holes), None), ("Anv", anv, Some(Area)), ("Fu", p.fu, Some(Stress))],
+            inputs: vec![
+                ("L", length, Some(Length)),
+                ("holes", f64::from(holes), None),
+                ("Anv", anv, Some(Area)),
+                ("Fu", p.fu, Some(Stress)),
+            ],
         });
     }
 }
@@ -372,9 +447,16 @@ fn splice_checks(j: &GussetJoint, out: &mut Vec<Check>) {
     use Dimension::{Area, Stress};
     let Some(s) = &j.splice else { return };
     let (fy_ag, fu_an) = splice::strengths(&s.plates, s.hole);
-    let ag: f64 = s.plates.iter().map(|p| p.width * p.thickness * f64::from(p.count)).sum();
+    let ag: f64 = s
+        .plates
+        .iter()
+        .map(|p| p.width * p.thickness * f64::from(p.count))
+        .sum();
     let plates: u32 = s.plates.iter().map(|p| p.count).sum();
-    let part = format!("{plates} splice plate{}", if plates == 1 { "" } else { "s" });
+    let part = format!(
+        "{plates} splice plate{}",
+        if plates == 1 { "" } else { "s" }
+    );
     let member = s.members.first().copied();
     for (kind, nominal, compression) in [
         (Kind::SpliceYield, fy_ag, false),
@@ -386,9 +468,18 @@ fn splice_checks(j: &GussetJoint, out: &mut Vec<Check>) {
             kind,
             member,
             part: part.clone(),
-            demand: Demand::Largest { members: s.members.clone(), compression },
+            demand: Demand::Largest {
+                members: s.members.clone(),
+                compression,
+            },
             nominal,
-            inputs: vec![("Ag", ag, Some(Area)), ("Fy·Ag", fy_ag, Some(Dimension::Force)), ("Fu·An", fu_an, Some(Dimension::Force)), ("Rp", j.plates.rp, None), ("Fy", s.plates.first().map_or(0.0, |p| p.fy), Some(Stress))],
+            inputs: vec![
+                ("Ag", ag, Some(Area)),
+                ("Fy·Ag", fy_ag, Some(Dimension::Force)),
+                ("Fu·An", fu_an, Some(Dimension::Force)),
+                ("Rp", j.plates.rp, None),
+                ("Fy", s.plates.first().map_or(0.0, |p| p.fy), Some(Stress)),
+            ],
         });
     }
 }

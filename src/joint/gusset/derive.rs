@@ -64,7 +64,10 @@ mod tests {
         FastenerGroup {
             members: vec![0],
             axis,
-            fastener: Fastener::Rivet { fv: 1.0, basis: String::new() },
+            fastener: Fastener::Rivet {
+                fv: 1.0,
+                basis: String::new(),
+            },
             diameter: 0.875,
             hole: 0.9375,
             lines,

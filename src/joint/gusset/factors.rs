@@ -118,7 +118,10 @@ mod tests {
         let lrfr = Method::from_name("lrfr", &s).unwrap();
         let f = of(&lrfr, &lrfr.design_levels[0]);
         // MBE 6A.6.12 / AASHTO LRFD 6.5.4.2 (from memory).
-        assert_eq!((f.fastener, f.shear_yield, f.compression), (0.80, 1.00, 0.90));
+        assert_eq!(
+            (f.fastener, f.shear_yield, f.compression),
+            (0.80, 1.00, 0.90)
+        );
         let asr = Method::from_name("asr", &s).unwrap();
         let inv = of(&asr, &asr.design_levels[0]);
         let op = of(&asr, &asr.design_levels[1]);

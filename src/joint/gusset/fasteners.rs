@@ -109,7 +109,10 @@ mod tests {
         // Rn = 18 × 0.601 32 × 2 = 21.648 kip (hand calculation).
         let (fv, _) = rivet_strength(None, Some(1905));
         let rn = rivet_rn(0.875 * INCH, fv, 2);
-        close(rn / (1000.0 * 4.448_221_615_260_5), 18.0 * 0.601_320_7 * 2.0);
+        close(
+            rn / (1000.0 * 4.448_221_615_260_5),
+            18.0 * 0.601_320_7 * 2.0,
+        );
     }
 
     #[test]
@@ -118,7 +121,10 @@ mod tests {
         assert_eq!(rivet_strength(None, None).0, 18.0 * KSI);
         assert_eq!(rivet_strength(None, Some(1935)).0, 18.0 * KSI);
         assert_eq!(rivet_strength(None, Some(1936)).0, 21.0 * KSI);
-        assert_eq!(rivet_strength(Some(RivetGrade::A502Grade1), Some(1900)).0, 27.0 * KSI);
+        assert_eq!(
+            rivet_strength(Some(RivetGrade::A502Grade1), Some(1900)).0,
+            27.0 * KSI
+        );
     }
 
     #[test]
@@ -126,9 +132,15 @@ mod tests {
         // 7/8 in A325, single shear (AASHTO LRFD Eq. 6.13.2.7-1/-2, from memory):
         // Ab = 0.601 32 in²; out: 0.56 × 0.601 32 × 120 = 40.409 kip;
         // in: 0.45 × 0.601 32 × 120 = 32.471 kip (hand calculation).
-        let kip = 4448.221_615_260_5;
-        close(bolt_rn(0.875 * INCH, FUB_A325, true, 1) / kip, 0.56 * 0.601_320_7 * 120.0);
-        close(bolt_rn(0.875 * INCH, FUB_A325, false, 1) / kip, 0.45 * 0.601_320_7 * 120.0);
+        let kip = 4_448.221_615_260_5;
+        close(
+            bolt_rn(0.875 * INCH, FUB_A325, true, 1) / kip,
+            0.56 * 0.601_320_7 * 120.0,
+        );
+        close(
+            bolt_rn(0.875 * INCH, FUB_A325, false, 1) / kip,
+            0.45 * 0.601_320_7 * 120.0,
+        );
     }
 
     #[test]

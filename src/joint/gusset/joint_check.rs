@@ -48,7 +48,10 @@ impl JointCheck for GussetCheck {
         }
     }
     fn equation(&self, method: &Method) -> String {
-        let f = factors::of(method, method.design_levels.first().unwrap_or(&lrfr_level()));
+        let f = factors::of(
+            method,
+            method.design_levels.first().unwrap_or(&lrfr_level()),
+        );
         let sym = match (method.family, self.0.kind) {
             (Family::Asr, _) => "allowable fraction",
             (Family::DesignAllowable, _) => "1/Ω",
@@ -61,8 +64,16 @@ impl JointCheck for GussetCheck {
             (_, Kind::ShearYield) => "φvy",
             (_, Kind::ShearFracture) => "φvu",
         };
-        let cs = if method.family == Family::Lrfr { "φc·φs·" } else { "" };
-        format!("{cs}{sym}·Rn ({sym} = {:.2}); Rn = {}", self.0.kind.factor(&f), self.0.kind.equation())
+        let cs = if method.family == Family::Lrfr {
+            "φc·φs·"
+        } else {
+            ""
+        };
+        format!(
+            "{cs}{sym}·Rn ({sym} = {:.2}); Rn = {}",
+            self.0.kind.factor(&f),
+            self.0.kind.equation()
+        )
     }
     fn inputs(&self) -> Vec<(&'static str, f64, Option<Dimension>)> {
         self.0.inputs.clone()

@@ -39,7 +39,11 @@ pub fn checks(model: &Model) -> JointSet {
         let mut j = j.clone();
         for g in &mut j.groups {
             let mem = &model.members[g.members[0]];
-            let other = if mem.start == j.node { mem.end } else { mem.start };
+            let other = if mem.start == j.node {
+                mem.end
+            } else {
+                mem.start
+            };
             let (a, b) = (&model.nodes[j.node], &model.nodes[other]);
             let l = (b.x - a.x).hypot(b.y - a.y);
             if l > 0.0 {
@@ -51,7 +55,8 @@ pub fn checks(model: &Model) -> JointSet {
             set.checks.push(Box::new(joint_check::GussetCheck(c)));
         }
         let id = &model.nodes[j.node].id;
-        set.notes.extend(j.notes.iter().map(|n| format!("gusset joint {id}: {n}")));
+        set.notes
+            .extend(j.notes.iter().map(|n| format!("gusset joint {id}: {n}")));
     }
     set.notes.push(format!(
         "gusset plates: member forces shared equally by a concentric fastener group; under LRFR φc·φs with φs ≤ {:.2} for gusset plates (MBE 6A.6.12.1, from memory); LFR takes the LRFR φ (conservative), ASR 0.55/0.75·Fy and 0.50 fractions; rivet strengths of MBE Table 6A.6.12.5.1-1 from memory (override with shear_strength)",

@@ -31,7 +31,12 @@ fn crossings(poly: &[P], o: P, d: P) -> Vec<f64> {
 
 /// Whether `p` lies inside the polygon (even-odd rule).
 pub fn inside(poly: &[P], p: P) -> bool {
-    crossings(poly, p, [1.0, 0.0]).iter().filter(|&&s| s > 0.0).count() % 2 == 1
+    crossings(poly, p, [1.0, 0.0])
+        .iter()
+        .filter(|&&s| s > 0.0)
+        .count()
+        % 2
+        == 1
 }
 
 /// Distance from `o` (inside) along the unit vector `d` to the plate edge.
@@ -63,7 +68,14 @@ pub fn area2(poly: &[P]) -> f64 {
 /// The fastener centres of a rectangular pattern on the axis `u` (unit
 /// vector from the work point along the member): rows at `first`,
 /// `first + pitch`, …; `lines` gauge lines centred on the axis, `gauge` apart.
-pub fn fastener_positions(u: P, first: f64, rows: u32, pitch: f64, lines: u32, gauge: f64) -> Vec<P> {
+pub fn fastener_positions(
+    u: P,
+    first: f64,
+    rows: u32,
+    pitch: f64,
+    lines: u32,
+    gauge: f64,
+) -> Vec<P> {
     let n = [-u[1], u[0]];
     let mut out = Vec::with_capacity((rows * lines) as usize);
     for r in 0..rows {
@@ -103,7 +115,13 @@ mod tests {
     fn a_notched_plate_cuts_in_two_intervals() {
         // A U-shaped plate: the line y = 2 crosses the notch between x = -1 and 1.
         let u = vec![
-            [-3.0, 0.0], [3.0, 0.0], [3.0, 3.0], [1.0, 3.0], [1.0, 1.0], [-1.0, 1.0], [-1.0, 3.0],
+            [-3.0, 0.0],
+            [3.0, 0.0],
+            [3.0, 3.0],
+            [1.0, 3.0],
+            [1.0, 1.0],
+            [-1.0, 1.0],
+            [-1.0, 3.0],
             [-3.0, 3.0],
         ];
         assert!((cut_length(&u, [0.0, 2.0], [1.0, 0.0]) - 4.0).abs() < 1e-12);

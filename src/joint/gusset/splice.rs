@@ -44,8 +44,22 @@ mod tests {
         //   An: plates (10 − 1.875) × 0.5 × 2 = 8.125 ≤ 8.5; strip (12 − 1.875) × 0.5
         //   = 5.0625 ≤ 5.1 → Fu·An = 60 × 13.1875 = 791.25 kip
         let p = [
-            SplicePlates { count: 2, width: 10.0, thickness: 0.5, holes: 2, fy: 33.0, fu: 60.0 },
-            SplicePlates { count: 1, width: 12.0, thickness: 0.5, holes: 2, fy: 33.0, fu: 60.0 },
+            SplicePlates {
+                count: 2,
+                width: 10.0,
+                thickness: 0.5,
+                holes: 2,
+                fy: 33.0,
+                fu: 60.0,
+            },
+            SplicePlates {
+                count: 1,
+                width: 12.0,
+                thickness: 0.5,
+                holes: 2,
+                fy: 33.0,
+                fu: 60.0,
+            },
         ];
         let (y, f) = strengths(&p, 0.9375);
         assert!((y - 528.0).abs() < 1e-9);

@@ -13,7 +13,8 @@ use super::outline::{reach, P};
 /// The 30° spread width, m.
 pub fn spread_width(lines: u32, gauge: f64, rows: u32, pitch: f64) -> f64 {
     let tan30 = (30f64).to_radians().tan();
-    f64::from(lines.saturating_sub(1)) * gauge + 2.0 * f64::from(rows.saturating_sub(1)) * pitch * tan30
+    f64::from(lines.saturating_sub(1)) * gauge
+        + 2.0 * f64::from(rows.saturating_sub(1)) * pitch * tan30
 }
 
 /// The spread width truncated at the plate edges: `left` and `right` are
@@ -30,6 +31,18 @@ pub fn width_in_plate(poly: &[P], c: P, u: P, spread: f64) -> (f64, f64) {
     let left = reach(poly, c, n);
     let right = reach(poly, c, [-n[0], -n[1]]);
     (truncated(spread, left, right), spread)
+}
+
+/// The ends of the truncated Whitmore section (for drawings): the points
+/// on either side of centre `c`, across axis `u`, within plate `poly`.
+pub fn section_ends(poly: &[P], c: P, u: P, spread: f64) -> (P, P) {
+    let n = [-u[1], u[0]];
+    let left = (spread / 2.0).min(reach(poly, c, n));
+    let right = (spread / 2.0).min(reach(poly, c, [-n[0], -n[1]]));
+    (
+        [c[0] + n[0] * left, c[1] + n[1] * left],
+        [c[0] - n[0] * right, c[1] - n[1] * right],
+    )
 }
 
 #[cfg(test)]
@@ -59,16 +72,4 @@ mod tests {
         let wide = vec![[-30.0, 0.0], [30.0, 0.0], [30.0, 20.0], [-30.0, 20.0]];
         assert!((width_in_plate(&wide, [0.0, 5.0], [0.0, 1.0], 13.392).0 - 13.392).abs() < 1e-12);
     }
-}
-
-/// The ends of the truncated Whitmore section (for drawings): the points
-/// on either side of centre `c`, across axis `u`, within plate `poly`.
-pub fn section_ends(poly: &[P], c: P, u: P, spread: f64) -> (P, P) {
-    let n = [-u[1], u[0]];
-    let left = (spread / 2.0).min(reach(poly, c, n));
-    let right = (spread / 2.0).min(reach(poly, c, [-n[0], -n[1]]));
-    (
-        [c[0] + n[0] * left, c[1] + n[1] * left],
-        [c[0] - n[0] * right, c[1] - n[1] * right],
-    )
 }
