@@ -336,6 +336,7 @@ mod tests {
             stability: Default::default(),
             slack: Vec::new(),
             pins: Vec::new(),
+            gussets: Vec::new(),
         }
     }
 

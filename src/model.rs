@@ -268,6 +268,8 @@ pub struct Model {
     pub slack: Vec<(usize, f64)>,
     /// Pins of a pin-connected truss and their stacks of bars (`pins`).
     pub pins: Vec<crate::joint::pin::Pin>,
+    /// Riveted or bolted gusset-plate joints (`joint::gusset`; empty when not given).
+    pub gussets: Vec<crate::joint::gusset::GussetJoint>,
 }
 
 /// A named linear combination of load cases: Σ factor × case (live cases

@@ -968,6 +968,7 @@ pub fn convert_deferred(
         };
         super::pins::convert(&mut ctx, &file.pins, &pc)
     };
+    let gussets = super::joints::convert(&mut ctx, &file.gusset_joints, &node_ids, &parts);
 
     // Combinations.
     let _ = intern(&mut ctx, "combination", &file.combinations, |c| &c.id);
@@ -1079,6 +1080,7 @@ pub fn convert_deferred(
         stability,
         slack,
         pins,
+        gussets,
     };
     lap.mark("isolated nodes");
     Ok((

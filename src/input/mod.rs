@@ -7,6 +7,7 @@ pub mod convert;
 pub mod diagnostics;
 mod fatigue;
 pub mod file;
+pub mod joints;
 mod library;
 mod loads;
 pub mod parts;

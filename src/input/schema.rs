@@ -62,6 +62,10 @@ pub struct ModelFile {
     /// `docs/fatigue.md` and `input/fatigue.rs`.
     #[serde(default)]
     pub fatigue: Option<FatigueFile>,
+    /// Riveted or bolted gusset-plate joints at panel points; see
+    /// `docs/joints.md` and `input/joints.rs`.
+    #[serde(default)]
+    pub gusset_joints: Vec<super::joints::GussetJointFile>,
 }
 
 /// `fatigue: (vehicle: "truck", impact: 0.15, adtt: 500.0, age: 80.0, growth: 0.0, ...)`.

@@ -24,6 +24,7 @@
 //!
 //! Everything in SI; the report layer converts.
 
+pub mod gusset;
 pub(crate) mod nonlinear;
 pub mod pin;
 pub mod solve_rf;
@@ -93,7 +94,7 @@ pub struct JointSet {
 /// Every joint type's checks of `model`, in a fixed order. A new joint type
 /// adds one line here.
 pub fn all_checks(model: &Model) -> JointSet {
-    let builders: [fn(&Model) -> JointSet; 1] = [pin::checks];
+    let builders: [fn(&Model) -> JointSet; 2] = [pin::checks, gusset::checks];
     let mut all = JointSet::default();
     for build in builders {
         let set = build(model);

@@ -165,6 +165,7 @@ pub fn report_with_fatigue(
         ("moving", "Moving loads"),
         ("ratings", "Rating factors"),
         ("checks", "Capacity of each member"),
+        ("joints", "Joints"),
         ("drawings", "Drawings"),
         ("model", "Model"),
         ("results", "Results per load case and combination"),
@@ -175,6 +176,7 @@ pub fn report_with_fatigue(
     ] {
         if (id == "moving" && model.live.moving.is_empty())
             || (id == "fatigue" && fatigue.is_none())
+            || (id == "joints" && model.gussets.is_empty())
         {
             continue;
         }
@@ -187,6 +189,7 @@ pub fn report_with_fatigue(
     super::html_loads::moving_loads(&mut h, model, rating.as_ref().ok().copied(), &s);
     ratings(&mut h, model, &rating, &s);
     checks(&mut h, model, &rating, &s);
+    super::html_joints::joints(&mut h, model, rating.as_ref().ok().copied());
     drawings(&mut h, model, &effects, rating.as_ref().ok().copied());
     model_tables(&mut h, model, &s);
     results(&mut h, model, analysis, &effects, &s);
@@ -201,7 +204,15 @@ pub fn report_with_fatigue(
     h.push_str("<ul>\n<li>These are screening results for review by a qualified engineer; they are not a load rating or an approval by themselves.</li>\n");
     h.push_str("<li>The analysis assumes an ideal pin-jointed plane truss: axial members, loads at panel points, small displacements, linear elastic material.</li>\n");
     h.push_str("<li>Section properties, material strengths, condition and effective lengths are as entered in the model file; verify them against the structure as found.</li>\n");
-    h.push_str("<li>Connections, gusset plates, pins, bearings, fracture toughness, out-of-plane stability of the whole truss and deck, and local buckling of built-up parts are not checked here; fatigue only where the model has a fatigue block (see its section).</li>\n");
+    if !model.gussets.is_empty() {
+        h.push_str("<li>Gusset plates and fastener groups are rated only where the model describes them (see Joints), with the member force shared equally by a concentric group; rivet strengths and several clause numbers are from memory.</li>\n");
+    }
+    let connections = if model.gussets.is_empty() {
+        "Connections, gusset plates"
+    } else {
+        "Connections and gusset plates the model does not describe"
+    };
+    let _ = writeln!(h, "<li>{connections}, pins, bearings, fracture toughness, out-of-plane stability of the whole truss and deck, and local buckling of built-up parts are not checked here; fatigue only where the model has a fatigue block (see its section).</li>");
     h.push_str("<li>Local codes, the owner's rating rules and licensed practice govern.</li>\n</ul>\n</section>\n");
     let _ = writeln!(
         h,
@@ -272,6 +283,7 @@ fn summary(
                     esc(&row.factors)
                 );
             }
+            super::html_joints::summary_facts(h, model, r);
             for p in &r.postings {
                 let v = super::rate_rows::posting_view(model, r, p);
                 let _ = write!(

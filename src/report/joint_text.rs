@@ -86,6 +86,7 @@ pub fn table(w: &mut dyn Write, model: &Model, rating: &Rating, term: &Term) -> 
     }
     t.optional(&["clause", "live load", "unit"]);
     write!(w, "{}", t.render_for(term))?;
+    writeln!(w)?;
     writeln!(w, "Joint check inputs and equations:")?;
     for &i in &order {
         let v = &views[i];

@@ -255,6 +255,9 @@ pub fn without_member(m: &Model, j: usize) -> Result<Model, VariantError> {
             *k -= 1;
         }
     }
+    for g in &mut out.gussets {
+        g.without_member(j);
+    }
     for case in &mut out.cases {
         case.elongations.retain(|e| e.member != j);
         for e in &mut case.elongations {
