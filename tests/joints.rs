@@ -5,6 +5,8 @@
 //! cases and moving loads, at every level; a check of two members under a
 //! live case is worked by hand.
 
+mod common;
+
 use panelpoint::joint::{rate_joint_set, Eval, JointCheck, JointSet};
 use panelpoint::method::{Level, Method};
 use panelpoint::model::Model;
@@ -213,4 +215,70 @@ fn two_member_check_under_a_live_case_by_hand() {
         (got - by_hand).abs() <= 1e-9 * by_hand,
         "{got} vs {by_hand}"
     );
+}
+
+/// A joint weaker than every member controls the truss: the demo with the
+/// L1 hanger held by two rivets (invented weakening). The rate JSON names the
+/// joint as the controlling element at every level, with the factor its own
+/// check row carries, below the lowest member's; a legal load's posting is
+/// set by it where it is lower (MBE 6A.8.3 takes the bridge's lowest factor).
+#[test]
+fn a_weak_joint_controls_the_rating_and_the_posting() {
+    let dir = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("models");
+    let text = std::fs::read_to_string(dir.join("millrace-footbridge.ron")).unwrap();
+    let old =
+        r#"(member: "L1-U1", fastener: Rivet(year: 1908), diameter: 0.875, lines: 2, rows: 4,"#;
+    assert!(text.contains(old), "demo changed: update this test");
+    let weak = text.replace(
+        old,
+        r#"(member: "L1-U1", fastener: Rivet(year: 1908), diameter: 0.875, lines: 2, rows: 1,"#,
+    );
+    // And a legal load to post: the type 3 truck of the library.
+    let moving = r#"(id: "truck", vehicle: "maintenance-truck", step: "1 ft", impact: 0.15),"#;
+    assert!(weak.contains(moving), "demo changed: update this test");
+    let weak = weak.replace(
+        moving,
+        &format!(r#"{moving} (id: "legal", vehicle: "type3", step: "1 ft", legal: true),"#),
+    );
+    let path = common::temp_model("weak-joint.ron", &weak);
+    let (code, out, err) = common::run(&["rate", path.to_str().unwrap(), "--format", "json"]);
+    assert_eq!(code, 0, "{err}");
+    let v: serde_json::Value = serde_json::from_str(&out).unwrap();
+    let ctrl = v["controlling_element_by_level"].as_array().unwrap();
+    assert!(!ctrl.is_empty());
+    let members = v["controlling_by_level"].as_array().unwrap();
+    for (c, m) in ctrl.iter().zip(members) {
+        assert_eq!(c["element"], "joint", "{c}");
+        assert_eq!(c["node"], "L1", "{c}");
+        assert!(
+            c["rf"].as_f64().unwrap() < m["rf"].as_f64().unwrap(),
+            "{c} {m}"
+        );
+    }
+    // The same factor as the joint's own fastener-shear row at the first level.
+    let l1 = v["joints"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|j| j["node"] == "L1")
+        .unwrap();
+    let row = l1["checks"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .filter(|c| c["member"] == "L1-U1")
+        .filter_map(|c| c["rf"].as_f64())
+        .fold(f64::INFINITY, f64::min);
+    assert!((row - ctrl[0]["rf"].as_f64().unwrap()).abs() < 1e-12);
+    // Two rivets of 7/8 in at 18 ksi in double shear against a hanger: well
+    // below 1 (10 rivets rate 1.4 or more in the demo).
+    assert!(row < 0.5, "{row}");
+    let postings = v["postings"].as_array().unwrap();
+    assert_eq!(postings.len(), 1);
+    for p in postings {
+        assert!(p["member"].as_str().unwrap().starts_with("joint L1"), "{p}");
+    }
+    // The text names the joint as controlling.
+    let (_, text_out, _) = common::run(&["rate", path.to_str().unwrap()]);
+    assert!(text_out.contains("the joint controls"), "{text_out}");
 }

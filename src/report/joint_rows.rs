@@ -136,3 +136,53 @@ pub fn inputs_line(v: &JointView) -> String {
         .collect::<Vec<_>>()
         .join(", ")
 }
+
+/// The element with the lowest rating factor at one level, member or joint.
+pub struct Controlling {
+    pub level: &'static str,
+    pub joint: bool,
+    /// The member's id, or the joint check described.
+    pub element: String,
+    pub node: Option<String>,
+    pub live: String,
+    pub rf: Option<f64>,
+}
+
+/// Per level, the lower of the lowest member factor and the lowest joint
+/// factor: the controlling element of the truss (a joint where it is lower).
+pub fn controlling_by_level(model: &Model, rating: &Rating) -> Vec<Controlling> {
+    rating
+        .lowest_by_level
+        .iter()
+        .map(|&(level, mi)| {
+            let m = &rating.ratings[mi];
+            let joint = rating.joints.as_ref().and_then(|j| {
+                let i = j.lowest_at(level)?;
+                let r = &j.ratings[i];
+                (r.rf? < m.rf.unwrap_or(f64::INFINITY)).then_some((j, i))
+            });
+            match joint {
+                Some((j, i)) => Controlling {
+                    level,
+                    joint: true,
+                    element: super::rate_rows::rating_joint_words(model, rating, i),
+                    node: Some(
+                        model.nodes[j.checks[j.ratings[i].check].node()]
+                            .id
+                            .to_string(),
+                    ),
+                    live: j.ratings[i].live_id.clone(),
+                    rf: j.ratings[i].rf,
+                },
+                None => Controlling {
+                    level,
+                    joint: false,
+                    element: model.members[m.member].id.to_string(),
+                    node: None,
+                    live: m.live_id.clone(),
+                    rf: m.rf,
+                },
+            }
+        })
+        .collect()
+}

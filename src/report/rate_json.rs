@@ -171,6 +171,25 @@ pub fn rate(
             opt(r.rf)
         )?;
     }
+    w.write_all(b"],\"controlling_element_by_level\":[")?;
+    for (k, c) in super::joint_rows::controlling_by_level(model, rating)
+        .iter()
+        .enumerate()
+    {
+        if k > 0 {
+            w.write_all(b",")?;
+        }
+        write!(
+            w,
+            "{{\"level\":{},\"element\":{},\"id\":{},\"node\":{},\"live_case\":{},\"rf\":{}}}",
+            string(c.level),
+            string(if c.joint { "joint" } else { "member" }),
+            string(&c.element),
+            c.node.as_deref().map_or("null".into(), string),
+            string(&c.live),
+            opt(c.rf)
+        )?;
+    }
     w.write_all(b"],\"postings\":[")?;
     for (k, p) in rating.postings.iter().enumerate() {
         if k > 0 {
