@@ -282,3 +282,58 @@ fn a_weak_joint_controls_the_rating_and_the_posting() {
     let (_, text_out, _) = common::run(&["rate", path.to_str().unwrap()]);
     assert!(text_out.contains("the joint controls"), "{text_out}");
 }
+
+/// Two independent computations of the same joint rating factors: the pin
+/// demo with only its bottom-chord eyebars marked tension-only (they stay in
+/// tension under every load, so no member ever goes slack) is rated on the
+/// event-traced nonlinear path (`joint/nonlinear.rs`), the same model
+/// without the marks by the linear path (each vehicle position block-solved,
+/// RF by bisection, `joint/solve_rf.rs`). With no event on the path the two
+/// must agree for every check, the pins' moment-and-shear interaction of
+/// several members included.
+#[test]
+fn tension_only_path_without_events_equals_the_linear_path() {
+    let dir = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("models");
+    let text = std::fs::read_to_string(dir.join("alder-mill-pins.ron")).unwrap();
+    let chords: Vec<&str> = ["L0-L1", "L1-L2", "L2-L3", "L3-L4", "L4-L5", "L5-L6"].to_vec();
+    let mut marked = text.clone();
+    for id in &chords {
+        let head = format!("(id: \"{id}\",");
+        let at = marked.find(&head).expect("demo changed: update this test");
+        let end = at + marked[at..].find(')').unwrap();
+        marked.insert_str(end, ", tension_only: true");
+    }
+    let rfs = |t: &str| {
+        let path = common::temp_model("alder.ron", t);
+        let (code, out, err) = common::run(&["rate", path.to_str().unwrap(), "--format", "json"]);
+        assert_eq!(code, 0, "{err}");
+        let v: serde_json::Value = serde_json::from_str(&out).unwrap();
+        let mut out = Vec::new();
+        for j in v["joints"].as_array().unwrap() {
+            for c in j["checks"].as_array().unwrap() {
+                for r in c["ratings"].as_array().unwrap() {
+                    out.push((
+                        format!("{} {} {} {}", j["node"], c["kind"], c["part"], r["level"]),
+                        r["rf"].as_f64(),
+                    ));
+                }
+            }
+        }
+        out
+    };
+    let (a, b) = (rfs(&text), rfs(&marked));
+    assert_eq!(a.len(), b.len());
+    assert!(a.iter().any(|(k, _)| k.contains("pin moment and shear")));
+    let mut compared = 0;
+    for ((ka, ra), (kb, rb)) in a.iter().zip(&b) {
+        assert_eq!(ka, kb);
+        if let (Some(x), Some(y)) = (ra, rb) {
+            assert!(
+                (x - y).abs() <= 1e-7 * x.abs(),
+                "{ka}: linear {x}, traced {y}"
+            );
+            compared += 1;
+        }
+    }
+    assert!(compared > 50, "{compared}");
+}

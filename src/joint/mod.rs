@@ -173,6 +173,8 @@ pub enum JointError {
         count: usize,
         limit: usize,
     },
+    #[error("joint checks: {0}")]
+    Analysis(String),
     #[error("joint at node \"{node}\", {kind}, {effect}: the demand or resistance is not a finite number")]
     NonFinite {
         node: String,
@@ -206,8 +208,9 @@ pub fn rate_joint_set(
 ) -> Result<Joints, JointError> {
     let method = &rating.method;
     let rows = rows_of(model, rating, &set.checks)?;
+    let mut notes = set.notes;
     let ratings = if method.rates {
-        rate_live(model, analysis, method, &set.checks, envelopes)?
+        rate_live(model, analysis, method, &set.checks, envelopes, &mut notes)?
     } else {
         Vec::new()
     };
@@ -215,7 +218,7 @@ pub fn rate_joint_set(
         checks: set.checks,
         rows,
         ratings,
-        notes: set.notes,
+        notes,
     })
 }
 
@@ -273,8 +276,19 @@ fn rate_live(
     method: &Method,
     checks: &[Box<dyn JointCheck>],
     envelopes: &[crate::loads::MovingEnvelope],
+    notes: &mut Vec<String>,
 ) -> Result<Vec<JointRating>, JointError> {
     let dead = states::Dead::of(model, &analysis.cases);
+    let positions = states::Positions::of(model, analysis, envelopes)?;
+    let several = checks.iter().any(|c| c.uses().len() >= 2);
+    for (env, p) in envelopes.iter().zip(&positions.per_moving) {
+        if several && p.is_none() {
+            notes.push(format!(
+                "moving load \"{}\": its uniform (lane, trailing or crowd) part has no single position, so joint checks of several members combine the members' envelope extremes (every corner of their box): an upper bound of any one position, conservative",
+                env.moving_load
+            ));
+        }
+    }
     let mut out = Vec::new();
     for live in states::live_loads(model, envelopes) {
         let levels = if live.legal {
@@ -283,8 +297,14 @@ fn rate_live(
             &method.design_levels
         };
         for (ci, check) in checks.iter().enumerate() {
-            let corners =
-                states::corners(model, &analysis.cases, envelopes, &live, check.as_ref())?;
+            let corners = states::corners(
+                model,
+                &analysis.cases,
+                envelopes,
+                &positions,
+                &live,
+                check.as_ref(),
+            )?;
             for level in levels {
                 let row = solve_rf::rate_check(check.as_ref(), method, level, &dead, &corners);
                 finite(model, check.as_ref(), &row.factored, &live.id)?;

@@ -7,7 +7,8 @@
 //! (norms and sums of non-negative convex terms of forces linear in λ), so
 //! from u(0) < 1 the set where u ≤ 1 is one interval [0, λ*]: the first
 //! point of the doubling grid 1, 2, 4, … with u ≥ 1 brackets λ*, found by
-//! bisection. Where the factored dead load alone reaches the limit
+//! regula falsi with the Illinois modification (exact at once for a linear
+//! check). Where the factored dead load alone reaches the limit
 //! (u(0) ≥ 1) the factor is the linear extrapolation (1 − u₀)/(u₁ − u₀) ≤ 0,
 //! which is the rating equation's negative value for a linear check, or 0
 //! where the live load lowers the demand.
@@ -41,25 +42,52 @@ pub fn live_multiplier(mut u: impl FnMut(f64) -> f64) -> Option<f64> {
         return Some(if u1 > u0 { (1.0 - u0) / (u1 - u0) } else { 0.0 });
     }
     let (mut lo, mut hi) = (0.0, 1.0);
-    while u(hi) < 1.0 {
+    let (mut flo, mut fhi) = (u0 - 1.0, u(hi) - 1.0);
+    while fhi < 0.0 {
         if hi >= LAMBDA_MAX {
             return None;
         }
-        lo = hi;
+        (lo, flo) = (hi, fhi);
         hi *= 2.0;
+        fhi = u(hi) - 1.0;
     }
+    Some(illinois(&mut u, (lo, flo), (hi, fhi)))
+}
+
+/// The root of u − 1 in [a, b] (f(a) < 0 ≤ f(b)) by regula falsi with the
+/// Illinois modification: exact in one step for a linear u, a few steps for
+/// a smooth convex one, never leaving the bracket.
+fn illinois(
+    u: &mut impl FnMut(f64) -> f64,
+    (mut a, mut fa): (f64, f64),
+    (mut b, mut fb): (f64, f64),
+) -> f64 {
+    let mut side = 0i8;
     for _ in 0..200 {
-        let mid = 0.5 * (lo + hi);
-        if mid <= lo || mid >= hi {
-            break;
+        let c = b - fb * (b - a) / (fb - fa);
+        let c = if c > a && c < b { c } else { 0.5 * (a + b) };
+        let fc = u(c) - 1.0;
+        if fc == 0.0 || (b - a) <= 1e-13 * b.abs().max(1.0) {
+            return c;
         }
-        if u(mid) < 1.0 {
-            lo = mid;
+        if fc > 0.0 {
+            (b, fb) = (c, fc);
+            if side == 1 {
+                fa *= 0.5;
+            }
+            side = 1;
         } else {
-            hi = mid;
+            (a, fa) = (c, fc);
+            if side == -1 {
+                fb *= 0.5;
+            }
+            side = -1;
+        }
+        if fc.abs() <= 1e-14 {
+            return c;
         }
     }
-    Some(0.5 * (lo + hi))
+    0.5 * (a + b)
 }
 
 /// The lowest λ* over the states and over the maximum and minimum dead-load
@@ -73,13 +101,17 @@ pub fn rate_check(
     dead: &Dead,
     corners: &[Corner],
 ) -> RfRow {
+    // A dead part that is zero takes no factor choice.
+    let no_dc = dead.dc.iter().all(|&f| f == 0.0);
+    let no_dw = dead.dw.iter().all(|&f| f == 0.0);
     let mut gammas = vec![(level.dc.max, level.dw.max)];
     for g in [
         (level.dc.min, level.dw.max),
         (level.dc.max, level.dw.min),
         (level.dc.min, level.dw.min),
     ] {
-        if !gammas.contains(&g) {
+        let pointless = (no_dc && g.0 != level.dc.max) || (no_dw && g.1 != level.dw.max);
+        if !pointless && !gammas.contains(&g) {
             gammas.push(g);
         }
     }

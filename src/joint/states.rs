@@ -2,15 +2,21 @@
 //! DC and DW, and for each live load the member forces it may bring to the
 //! joint at once.
 //!
-//! A live case is one consistent state. A moving load is known by each
-//! member's envelope (its greatest tension and compression over every
-//! vehicle position), not by the whole truss at each position; a check
-//! using members j₁ … jₙ is given every corner of the box
-//! [C_j₁, T_j₁] × … × [C_jₙ, T_jₙ]. The forces at any one position lie in
-//! that box, and a demand convex in the forces takes its greatest value
-//! over the box at a corner, so the corners bound every position from
-//! above: conservative, and exact for a check using one member (its two
-//! corners are the member's own envelope sides, as its member rating).
+//! A live case is one consistent state. A moving load checked by a joint
+//! check of one member takes that member's envelope sides (its greatest
+//! tension and compression, lane parts included), exactly as the member's
+//! own rating. A check of several members loaded by a vehicle of axles
+//! only takes every position of the vehicle as a state of the whole truss
+//! (`loads::envelope_nonlinear::placements`: every step plus every position
+//! that puts an axle on a deck node, each train and direction; between
+//! those the forces are linear in the position, so a demand convex in the
+//! forces is greatest at one of them). A load model with a lane, trailing or
+//! crowd load has no single position (the uniform load is placed over the
+//! parts of each member's own influence line that add): such a check takes
+//! every corner of the box [C_j₁, T_j₁] × … × [C_jₙ, T_jₙ] of its members'
+//! envelopes, which holds the forces of any one position, and a convex
+//! demand is greatest over the box at a corner: an upper bound, said in the
+//! notes.
 
 use super::{JointCheck, JointError};
 use crate::analysis::CaseResult;
@@ -97,11 +103,65 @@ pub struct Corner {
     pub at: Option<String>,
 }
 
+/// Every position of each moving load solved as a state of the whole truss
+/// (None for a load model with a uniform part, which has no one position).
+pub struct Positions {
+    pub per_moving: Vec<Option<Vec<Corner>>>,
+}
+
+impl Positions {
+    pub fn of(
+        model: &Model,
+        analysis: &crate::analysis::Analysis,
+        envelopes: &[MovingEnvelope],
+    ) -> Result<Positions, JointError> {
+        let length = model.units.length;
+        let mut per_moving = Vec::with_capacity(envelopes.len());
+        for env in envelopes {
+            let Some(k) = model
+                .live
+                .moving
+                .iter()
+                .position(|m| m.id == env.moving_load)
+            else {
+                per_moving.push(None);
+                continue;
+            };
+            let Ok((placed, _)) = crate::loads::envelope_nonlinear::placements(model, k) else {
+                per_moving.push(None);
+                continue;
+            };
+            let cases: Vec<_> = placed.iter().map(|p| p.case.clone()).collect();
+            let solved = analysis
+                .prepared
+                .solve_cases(model, &cases)
+                .map_err(|e| JointError::Analysis(e.to_string()))?;
+            per_moving.push(Some(
+                solved
+                    .into_iter()
+                    .zip(&placed)
+                    .map(|(r, p)| Corner {
+                        live: r.forces,
+                        at: Some(format!(
+                            "front axle at {:.2} {} ({})",
+                            p.at.position / length.to_si,
+                            length.name,
+                            p.at.direction.name()
+                        )),
+                    })
+                    .collect(),
+            ));
+        }
+        Ok(Positions { per_moving })
+    }
+}
+
 /// The states of `live` for `check`.
 pub fn corners(
     model: &Model,
     cases: &[CaseResult],
     envelopes: &[MovingEnvelope],
+    positions: &Positions,
     live: &LiveLoad,
     check: &dyn JointCheck,
 ) -> Result<Vec<Corner>, JointError> {
@@ -113,8 +173,10 @@ pub fn corners(
                 at: None,
             }])
         }
-        Source::Moving(k) => &envelopes[k],
+        Source::Moving(k) => k,
     };
+    let k = env;
+    let env = &envelopes[k];
     let mut used: Vec<usize> = check.uses();
     used.sort_unstable();
     used.dedup();
@@ -123,6 +185,11 @@ pub fn corners(
         let e = &env.per_member[m];
         e.tension.force != 0.0 || e.compression.force != 0.0
     });
+    if used.len() >= 2 {
+        if let Some(Some(all)) = positions.per_moving.get(k) {
+            return Ok(all.clone());
+        }
+    }
     if used.len() > MAX_MEMBERS {
         return Err(JointError::TooManyMembers {
             node: model.nodes[check.node()].id.to_string(),
