@@ -12,6 +12,7 @@ pub mod fatigue_svg;
 pub mod fatigue_text;
 pub mod html;
 mod html_loads;
+mod html_stability;
 mod html_table;
 pub mod influence_csv;
 pub mod influence_json;

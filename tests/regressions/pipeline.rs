@@ -170,7 +170,10 @@ fn rate_and_report(model: &Model, a: &Analysis, warnings: &[Diagnostic]) -> Stri
         warnings,
         None,
     );
-    assert!(html.starts_with("<!DOCTYPE html>"), "the HTML report has no doctype");
+    assert!(
+        html.starts_with("<!DOCTYPE html>"),
+        "the HTML report has no doctype"
+    );
     let r = match r {
         Ok(r) => r,
         Err(e) => return format!("; rate: {}", shape(&e.to_string())),
@@ -252,7 +255,9 @@ fn sweep_rows(model: &Model, text: &str) -> String {
     let mut out = Vec::new();
     let mut writer = report::whatif::SweepWriter::new(report::Format::Json, true, model);
     let mut failed = 0;
-    writer.header(&mut out, model, sw.len(), "").expect("sweep header");
+    writer
+        .header(&mut out, model, sw.len(), "")
+        .expect("sweep header");
     sweep::run(model, &sw, &indices, &opts, |row| {
         failed += usize::from(row.outcome.is_err());
         writer.row(&mut out, &row)
