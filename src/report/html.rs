@@ -84,7 +84,12 @@ fn ubar(u: f64, big: bool) -> String {
         if big { " big" } else { "" },
         if u > 1.0 { " fails" } else { "" },
         frac * 100.0,
-        esc(&sig(u, 3)),
+        // Only a zero capacity makes |force|/C not finite (issue 22 item 16).
+        if u.is_finite() {
+            esc(&sig(u, 3))
+        } else {
+            "zero capacity".into()
+        },
         if u > 1.0 { " FAILS" } else { "" }
     )
 }
