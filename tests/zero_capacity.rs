@@ -39,10 +39,8 @@ fn zero_capacity_is_distinguishable_in_every_format() {
     report::rate_json::rate(&mut out, &m, &a, &r, &[]).unwrap();
     let v: serde_json::Value = serde_json::from_slice(&out).unwrap();
     let rows = v["checks"].as_array().unwrap();
-    let flagged: Vec<&serde_json::Value> = rows
-        .iter()
-        .filter(|c| c["zero_capacity"] == true)
-        .collect();
+    let flagged: Vec<&serde_json::Value> =
+        rows.iter().filter(|c| c["zero_capacity"] == true).collect();
     assert_eq!(flagged.len(), 1);
     assert!(flagged[0]["utilization"].is_null());
     assert_eq!(flagged[0]["member"], member.as_str());

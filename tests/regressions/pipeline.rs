@@ -15,6 +15,8 @@ use panelpoint::capacity::{self, Curve};
 use panelpoint::input::Diagnostic;
 use panelpoint::model::Model;
 use panelpoint::report;
+use panelpoint::stability::run::StabilityReport;
+use panelpoint::stability::StabilityError;
 
 /// Marker lines splitting an input into model, vehicles and sweep text.
 pub const VEHICLES_MARK: &str = "\n//@vehicles\n";
@@ -146,8 +148,9 @@ pub fn fuzz_one(bytes: &[u8]) -> String {
         a.cases.len().min(3)
     );
     if model.members.len() + model.nodes.len() <= STAGE_LIMIT {
-        sig.push_str(&rate_and_report(model, &a, warnings));
-        sig.push_str(&stability(model, &a, warnings));
+        let stab = panelpoint::stability::run::run(model, &a);
+        sig.push_str(&rate_and_report(model, &a, warnings, &stab));
+        sig.push_str(&stability(model, &stab, warnings));
         sig.push_str(&fatigue(model, warnings));
         if let Some(sw) = sweep {
             sig.push_str(&sweep_rows(model, sw));
@@ -157,22 +160,54 @@ pub fn fuzz_one(bytes: &[u8]) -> String {
 }
 
 /// `rate` (its three writers) and the HTML report; the outcome's shape.
-fn rate_and_report(model: &Model, a: &Analysis, warnings: &[Diagnostic]) -> String {
+fn rate_and_report(
+    model: &Model,
+    a: &Analysis,
+    warnings: &[Diagnostic],
+    stab: &Result<StabilityReport, StabilityError>,
+) -> String {
     let method = match panelpoint::rate::choose_method(model, None) {
         Ok(m) => m,
         Err(e) => return format!("; method: {}", shape(&e)),
     };
+    // As `report --k-from buckling` does for a model with a `stability`
+    // section: in-plane K from the buckling modes, then the streamed page
+    // with the stability section.
+    let stab = (model.stability != panelpoint::stability::Settings::default()).then_some(stab);
+    let adjusted = match &stab {
+        Some(Ok(s)) => {
+            let ks = panelpoint::stability::rate_k_in::chosen(model.members.len(), &s.in_plane);
+            for k in &ks {
+                assert!(k.k.is_finite() && k.k > 0.0, "K from buckling {k:?}");
+            }
+            Some(panelpoint::stability::rate_k_in::apply(model, &ks).0)
+        }
+        _ => None,
+    };
+    let model = adjusted.as_ref().unwrap_or(model);
     let r = panelpoint::rate::rate(model, a, method);
-    let html = report::html::report_with_fatigue(
+    let given_k: Vec<(f64, f64)> = model.members.iter().map(|x| (x.k_in, x.k_out)).collect();
+    let extras = report::html::Extras {
+        fatigue: None,
+        stability: stab.as_ref().map(|s| report::html::StabilityPart {
+            report: s.as_ref().map_err(|e| e.to_string()),
+            k_from_buckling: true,
+            given_k,
+        }),
+    };
+    let mut html = Vec::new();
+    report::html::write_report(
+        &mut html,
         model,
         a,
         r.as_ref().map_err(|e| e.to_string()),
         warnings,
-        None,
-    );
+        &extras,
+    )
+    .expect("html report");
     assert!(
-        html.starts_with("<!DOCTYPE html>"),
-        "the HTML report has no doctype"
+        html.starts_with(b"<!DOCTYPE html>") && std::str::from_utf8(&html).is_ok(),
+        "the HTML report has no doctype or is not UTF-8"
     );
     let r = match r {
         Ok(r) => r,
@@ -193,18 +228,22 @@ fn rate_and_report(model: &Model, a: &Analysis, warnings: &[Diagnostic]) -> Stri
 }
 
 /// `stability` with its three writers.
-fn stability(model: &Model, a: &Analysis, warnings: &[Diagnostic]) -> String {
-    let r = match panelpoint::stability::run::run(model, a) {
+fn stability(
+    model: &Model,
+    r: &Result<StabilityReport, StabilityError>,
+    warnings: &[Diagnostic],
+) -> String {
+    let r = match r {
         Ok(r) => r,
         Err(e) => return format!("; stability: {}", shape(&e.to_string())),
     };
     let mut out = Vec::new();
-    report::stability_text::stability(&mut out, model, &r, warnings).expect("stability text");
+    report::stability_text::stability(&mut out, model, r, warnings).expect("stability text");
     out.clear();
-    report::stability_json::stability(&mut out, model, &r, warnings).expect("stability json");
+    report::stability_json::stability(&mut out, model, r, warnings).expect("stability json");
     parses("stability", &out);
     out.clear();
-    report::stability_svg::mode_svg(&mut out, model, &r, None).expect("stability svg");
+    report::stability_svg::mode_svg(&mut out, model, r, None).expect("stability svg");
     format!(
         "; stability {} {}",
         r.u_frame.is_some(),
