@@ -96,7 +96,9 @@ fn zero_capacity_without_force_is_flagged_not_failed() {
     let k = 0;
     r.checks[k].force = 0.0;
     r.checks[k].capacity = 0.0;
-    r.checks[k].utilization = 0.0 / 0.0;
+    // |force| / capacity = 0 / 0, as rate computes it.
+    r.checks[k].utilization = r.checks[k].force.abs() / r.checks[k].capacity;
+    assert!(r.checks[k].utilization.is_nan());
     let mut out = Vec::new();
     report::rate_json::rate(&mut out, &m, &a, &r, &[]).unwrap();
     let v: serde_json::Value = serde_json::from_slice(&out).unwrap();

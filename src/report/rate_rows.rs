@@ -68,7 +68,7 @@ pub fn check_row<'a>(model: &'a Model, r: &'a Rating, c: &Check) -> CheckRow<'a>
         },
         capacity: c.capacity / s.force,
         utilization: c.utilization,
-        zero_capacity: !(c.capacity > 0.0),
+        zero_capacity: c.capacity <= 0.0 || c.capacity.is_nan(),
         margin: c.margin,
         regime: c.regime.as_str(),
         rating_factor: c.rating_factor,
