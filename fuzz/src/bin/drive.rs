@@ -112,10 +112,13 @@ impl Rng {
     }
 }
 
+/// Byte ranges (start, end) of tokens.
+type Spans = Vec<(usize, usize)>;
+
 /// Byte ranges of the number tokens and of the quoted strings (quotes
 /// included) of `v`; comments are not skipped (a number in a comment is
 /// harmless to edit).
-fn tokens(v: &[u8]) -> (Vec<(usize, usize)>, Vec<(usize, usize)>) {
+fn tokens(v: &[u8]) -> (Spans, Spans) {
     let (mut nums, mut strs) = (Vec::new(), Vec::new());
     let mut i = 0;
     while i < v.len() {
@@ -159,7 +162,15 @@ fn new_number(rng: &mut Rng, old: &str, v: &[u8], nums: &[(usize, usize)]) -> St
         3 => format!("{:?}", x * 1e6),
         4 => format!("{:?}", x * 1e-6),
         5 => "0.0".into(),
-        6 => ["1e-9", "1e9", "1e300", "-1e300", "5e-324", "1.7976931348623157e308"][rng.below(6)].into(),
+        6 => [
+            "1e-9",
+            "1e9",
+            "1e300",
+            "-1e300",
+            "5e-324",
+            "1.7976931348623157e308",
+        ][rng.below(6)]
+        .into(),
         7 => format!("{}", rng.below(20)),
         8 => format!("{:?}", x + 1.0),
         9 => format!("{:?}", x * (1.0 + 1e-9)),
@@ -217,14 +228,22 @@ fn mutate_structured(rng: &mut Rng, v: &mut Vec<u8>) {
         _ => {
             // Duplicate or remove a whole line (a row of a list).
             let starts: Vec<usize> = std::iter::once(0)
-                .chain(v.iter().enumerate().filter(|(_, &b)| b == b'\n').map(|(i, _)| i + 1))
+                .chain(
+                    v.iter()
+                        .enumerate()
+                        .filter(|(_, &b)| b == b'\n')
+                        .map(|(i, _)| i + 1),
+                )
                 .filter(|&i| i < v.len())
                 .collect();
             if starts.is_empty() {
                 return;
             }
             let s = starts[rng.below(starts.len())];
-            let e = v[s..].iter().position(|&b| b == b'\n').map_or(v.len(), |p| s + p + 1);
+            let e = v[s..]
+                .iter()
+                .position(|&b| b == b'\n')
+                .map_or(v.len(), |p| s + p + 1);
             if rng.below(2) == 0 {
                 let line = v[s..e].to_vec();
                 v.splice(s..s, line);
@@ -368,10 +387,17 @@ fn main() {
                 // the later stages it reached.
                 let stage = sig.split(':').next().unwrap_or("");
                 let class = if stage == "solved" {
-                    let later: Vec<&str> = ["rated", "rate:", "stability ", "stability:", "fatigue", "sweep "]
-                        .into_iter()
-                        .filter(|k| sig.contains(k))
-                        .collect();
+                    let later: Vec<&str> = [
+                        "rated",
+                        "rate:",
+                        "stability ",
+                        "stability:",
+                        "fatigue",
+                        "sweep ",
+                    ]
+                    .into_iter()
+                    .filter(|k| sig.contains(k))
+                    .collect();
                     format!("solved+{}", later.join("+"))
                 } else {
                     stage.to_string()
