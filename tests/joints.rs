@@ -337,3 +337,30 @@ fn tension_only_path_without_events_equals_the_linear_path() {
     }
     assert!(compared > 50, "{compared}");
 }
+
+/// The owner's report shows every pin of the pin demo with its drawing and
+/// its checks (one "pin moment and shear" row per pin), the joints section
+/// listed in the contents, and its streamed page parses as XML-safe text.
+#[test]
+fn report_shows_every_pin_with_its_checks() {
+    let dir = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("models");
+    let text = std::fs::read_to_string(dir.join("alder-mill-pins.ron")).unwrap();
+    let pins = text.matches("(node: \"L").count();
+    let path = common::temp_model("alder.ron", &text);
+    let out = path.with_extension("html");
+    let (code, _, err) = common::run(&[
+        "report",
+        path.to_str().unwrap(),
+        "-o",
+        out.to_str().unwrap(),
+    ]);
+    assert_eq!(code, 0, "{err}");
+    let html = std::fs::read_to_string(&out).unwrap();
+    assert!(html.contains("href=\"#joints\""));
+    let drawn = html.matches("<h3>Pin at ").count();
+    assert!(
+        drawn >= 7 && drawn <= pins,
+        "{drawn} pins drawn, {pins} node entries"
+    );
+    assert_eq!(html.matches("<td>pin moment and shear</td>").count(), drawn);
+}

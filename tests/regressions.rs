@@ -14,12 +14,23 @@ fn every_saved_case_runs_clean() {
         .filter(|p| p.extension().is_some_and(|e| e == "ron" || e == "bin"))
         .collect();
     entries.sort();
+    let mut sigs = std::collections::HashMap::new();
     for p in entries {
         let bytes = std::fs::read(&p).unwrap();
         let outcome = std::panic::catch_unwind(|| pipeline::fuzz_one(&bytes));
         assert!(outcome.is_ok(), "{} panicked", p.display());
+        let name = p.file_name().unwrap().to_string_lossy().into_owned();
+        sigs.insert(name, outcome.unwrap());
         n += 1;
     }
+    // The multi-file seeds reach the later stages: a vehicles file and a
+    // sweep; stability with the report's stability section; fatigue.
+    let s = &sigs["seed_millrace_vehicles_sweep.ron"];
+    assert!(s.contains("rated true") && s.contains("; sweep "), "{s}");
+    let s = &sigs["seed_tanners_brook_pony.ron"];
+    assert!(s.contains("stability true true"), "{s}");
+    let s = &sigs["seed_four_panel_fatigue_vehicles.ron"];
+    assert!(s.contains("; fatigue"), "{s}");
     // The seed cases below are always present; a missing folder must fail.
     assert!(n >= 3, "only {n} regression cases found");
 }

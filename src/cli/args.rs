@@ -76,6 +76,10 @@ pub enum Command {
         /// Show every row in the text tables (default: the 40 highest).
         #[arg(long)]
         all: bool,
+        /// Where in-plane effective-length factors come from: the model's
+        /// k_in (default) or the in-plane elastic buckling of the truss.
+        #[arg(long, value_enum, default_value_t = KFrom::Model)]
+        k_from: KFrom,
     },
     /// Whole-truss stability and vibration: in-plane elastic buckling of every
     /// case and combination (critical factor, effective lengths from the mode),
@@ -278,7 +282,20 @@ pub enum Command {
         /// Rating method (as for `rate`).
         #[arg(long)]
         method: Option<String>,
+        /// Where in-plane effective-length factors come from (as for `rate`).
+        #[arg(long, value_enum, default_value_t = KFrom::Model)]
+        k_from: KFrom,
     },
+}
+
+/// Where `rate` takes the in-plane effective-length factors K from.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
+pub enum KFrom {
+    /// The model's k_in (and unbraced_in) of every member.
+    Model,
+    /// The in-plane elastic buckling of the truss, for the members that take
+    /// part in a mode (the largest K over the load effects); others keep k_in.
+    Buckling,
 }
 
 #[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]

@@ -215,6 +215,7 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             format: f,
             out,
             all,
+            k_from,
         } => {
             let c = load(&model)?;
             let m = &c.model;
@@ -223,22 +224,15 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
                 path: model.clone(),
                 source,
             })?;
-            // Chord k_out from the U-frames when the model asks (stability/rate_k.rs).
-            let from_u_frames =
-                crate::stability::rate_k::with_u_frame_k(m, &a).map_err(|source| {
-                    Error::Stability {
-                        path: model.clone(),
-                        source,
-                    }
-                })?;
-            let m = from_u_frames.as_ref().map_or(m, |(adjusted, _)| adjusted);
+            // Chord k_out from the U-frames when the model asks, in-plane K
+            // from buckling with --k-from buckling (cli/k_from.rs).
+            let (adjusted, notes) = super::k_from::rated_model(&model, m, &a, k_from, None)?;
+            let m = adjusted.as_ref().unwrap_or(m);
             let mut r = rate::rate(m, &a, chosen).map_err(|e| Error::Rate {
                 path: model.clone(),
                 source: e,
             })?;
-            if let Some((_, notes)) = &from_u_frames {
-                r.notes.extend(notes.iter().cloned());
-            }
+            r.notes.extend(notes);
             let warn = &c.warnings;
             if format(f) == Format::Csv {
                 warnings_to_stderr(&model, warn, &a.warnings);
@@ -511,18 +505,24 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
             write(&out, |w| w.write_all(svg.as_bytes()))?;
             Ok(0)
         }
-        Command::Report { model, out, method } => {
+        Command::Report {
+            model,
+            out,
+            method,
+            k_from,
+        } => {
             let c = load(&model)?;
             let m = &c.model;
-            // The page holds table rows and a drawing per effect: about
-            // 1.5 kB per effect × (members + nodes) (measured: 323 kB for
-            // models/millrace-footbridge.ron, 7 effects × 33, rounded up);
-            // twice that is built in memory at most. Refused before
-            // building it when above the machine's memory (issue 22, item
-            // 9: 10^6 cases used to abort).
+            // The page is streamed (report::html::write_report); what stays
+            // in memory is the analysis, the rating and the effects drawn:
+            // about 0.4 kB per effect × (members + nodes) (measured: 24 MB
+            // peak for 3,000 cases on the four-panel truss, 21 members and
+            // nodes, a 115 MB page), taken as 0.5 kB. Refused before the
+            // analysis when above the machine's memory (issue 22, item 9:
+            // 10^6 cases used to abort).
             let effects = (m.cases.len() + m.combinations.len() + 2 * m.live.moving.len()).max(1);
             analysis::results::check_memory(
-                2.0 * 1500.0 * effects as f64 * (m.members.len() + m.nodes.len()) as f64,
+                500.0 * effects as f64 * (m.members.len() + m.nodes.len()) as f64,
                 || {
                     format!(
                         "the HTML report of {effects} load effects × {} members",
@@ -540,23 +540,50 @@ pub fn run(cli: Cli) -> Result<u8, Error> {
                 path: model.clone(),
                 source,
             })?;
+            // The stability section (issue 19) when the model has a
+            // `stability` section or K is taken from buckling.
+            let wants = m.stability != crate::stability::Settings::default()
+                || k_from == super::args::KFrom::Buckling;
+            let stab = wants.then(|| crate::stability::run::run(m, &a));
+            let in_plane = stab
+                .as_ref()
+                .and_then(|s| s.as_ref().ok())
+                .map(|s| s.in_plane.as_slice());
+            let (adjusted, notes) = match (&stab, k_from) {
+                (Some(Err(e)), super::args::KFrom::Buckling) => {
+                    return Err(Error::Stability {
+                        path: model.clone(),
+                        source: e.clone(),
+                    })
+                }
+                _ => super::k_from::rated_model(&model, m, &a, k_from, in_plane)?,
+            };
+            let given_k: Vec<(f64, f64)> = m.members.iter().map(|x| (x.k_in, x.k_out)).collect();
+            let m = adjusted.as_ref().unwrap_or(m);
             // A model without fy/fu still gets a report, without the checks.
-            let r = rate::rate(m, &a, chosen);
+            let r = rate::rate(m, &a, chosen).map(|mut r| {
+                r.notes.extend(notes);
+                r
+            });
             // A model with a fatigue block gets a fatigue section.
             let fatigue = m
                 .fatigue
                 .as_ref()
                 .map(|_| crate::fatigue::evaluate_model(m));
-            let html = report::html::report_with_fatigue(
-                m,
-                &a,
-                r.as_ref().map_err(|e| e.to_string()),
-                &c.warnings,
-                fatigue
+            let extras = report::html::Extras {
+                fatigue: fatigue
                     .as_ref()
                     .map(|f| f.as_ref().map_err(|e| e.to_string())),
-            );
-            write(&out, |w| w.write_all(html.as_bytes()))?;
+                stability: stab.as_ref().map(|s| report::html::StabilityPart {
+                    report: s.as_ref().map_err(|e| e.to_string()),
+                    k_from_buckling: k_from == super::args::KFrom::Buckling,
+                    given_k,
+                }),
+            };
+            let rating = r.as_ref().map_err(|e| e.to_string());
+            write(&out, |w| {
+                report::html::write_report(w, m, &a, rating, &c.warnings, &extras)
+            })?;
             Ok(0)
         }
     }

@@ -6,6 +6,7 @@ mod args;
 mod commands;
 mod fatigue;
 mod guard;
+mod k_from;
 mod loads;
 mod whatif;
 

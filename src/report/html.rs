@@ -7,7 +7,7 @@
 //! checks with clause, formula and inputs, rating factors, sections,
 //! cautions.
 
-use super::html_table::{esc, n, on, t, HTable};
+use super::html_table::{esc, foot_html, n, on, row_html, t, Flush, HTable};
 use super::rate_rows::{by_utilization, check_row};
 use super::svg::{self, Drawing, Effect, Show};
 use super::table::sig;
@@ -84,7 +84,12 @@ fn ubar(u: f64, big: bool) -> String {
         if big { " big" } else { "" },
         if u > 1.0 { " fails" } else { "" },
         frac * 100.0,
-        esc(&sig(u, 3)),
+        // Only a zero capacity makes |force|/C not finite (issue 22 item 16).
+        if u.is_finite() {
+            esc(&sig(u, 3))
+        } else {
+            "zero capacity".into()
+        },
         if u > 1.0 { " FAILS" } else { "" }
     )
 }
@@ -123,6 +128,47 @@ pub fn report_with_fatigue(
     warnings: &[Diagnostic],
     fatigue: Option<Result<&crate::fatigue::Fatigue, String>>,
 ) -> String {
+    let extras = Extras {
+        fatigue,
+        stability: None,
+    };
+    let mut out = Vec::with_capacity(1 << 18);
+    // Writing into a Vec cannot fail, and every piece written is a &str.
+    let _ = write_report(&mut out, model, analysis, rating, warnings, &extras);
+    String::from_utf8(out).unwrap_or_default()
+}
+
+/// The report's optional sections.
+#[derive(Default)]
+pub struct Extras<'a> {
+    /// The fatigue evaluation, or why it could not be made.
+    pub fatigue: Option<Result<&'a crate::fatigue::Fatigue, String>>,
+    /// Whole-truss stability and vibration (issue 19).
+    pub stability: Option<StabilityPart<'a>>,
+}
+
+/// What the stability section shows.
+pub struct StabilityPart<'a> {
+    /// The analysis, or why it could not be made.
+    pub report: Result<&'a crate::stability::run::StabilityReport, String>,
+    /// Whether the rating took in-plane K from the buckling modes.
+    pub k_from_buckling: bool,
+    /// The model file's own (k_in, k_out) of each member, before any K
+    /// taken from these analyses.
+    pub given_k: Vec<(f64, f64)>,
+}
+
+/// The report written section by section into `w` (issue 22, item 9: the
+/// page is never held whole in memory; at most one section is).
+pub fn write_report(
+    w: &mut dyn std::io::Write,
+    model: &Model,
+    analysis: &Analysis,
+    rating: Result<&Rating, String>,
+    warnings: &[Diagnostic],
+    extras: &Extras,
+) -> std::io::Result<()> {
+    let fatigue = &extras.fatigue;
     let s = Scale::of(model);
     let effects = svg::effects_rated(model, analysis, rating.as_ref().ok().copied());
     let title = if model.title.is_empty() {
@@ -130,7 +176,12 @@ pub fn report_with_fatigue(
     } else {
         model.title.clone()
     };
-    let mut h = String::with_capacity(1 << 18);
+    let mut h = String::with_capacity(1 << 16);
+    let mut flush = |h: &mut String| -> std::io::Result<()> {
+        w.write_all(h.as_bytes())?;
+        h.clear();
+        Ok(())
+    };
     h.push_str("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n");
     h.push_str("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\"/>\n");
     let _ = writeln!(h, "<title>{} — panelpoint report</title>", esc(&title));
@@ -171,33 +222,56 @@ pub fn report_with_fatigue(
         ("results", "Results per load case and combination"),
         ("sections", "Sections"),
         ("fatigue", "Fatigue"),
+        ("stability", "Stability and vibration"),
         ("appendix", "Appendix: every check"),
         ("cautions", "Cautions"),
     ] {
         if (id == "moving" && model.live.moving.is_empty())
             || (id == "fatigue" && fatigue.is_none())
-            || (id == "joints" && model.gussets.is_empty())
+            || (id == "joints" && model.gussets.is_empty() && model.pins.is_empty())
+            || (id == "stability" && extras.stability.is_none())
         {
             continue;
         }
         let _ = write!(h, r##"<li><a href="#{id}">{name}</a></li>"##);
     }
     h.push_str("</ol></nav>\n");
+    flush(&mut h)?;
 
     summary(&mut h, model, analysis, &rating, warnings, &s);
     summary_drawing(&mut h, model, rating.as_ref().ok().copied());
+    flush(&mut h)?;
     super::html_loads::moving_loads(&mut h, model, rating.as_ref().ok().copied(), &s);
+    flush(&mut h)?;
     ratings(&mut h, model, &rating, &s);
+    flush(&mut h)?;
     checks(&mut h, model, &rating, &s);
-    super::html_joints::joints(&mut h, model, rating.as_ref().ok().copied());
-    drawings(&mut h, model, &effects, rating.as_ref().ok().copied());
+    flush(&mut h)?;
+    super::html_joints::joints(&mut h, model, rating.as_ref().ok().copied(), &mut flush)?;
+    flush(&mut h)?;
+    drawings(
+        &mut h,
+        model,
+        &effects,
+        rating.as_ref().ok().copied(),
+        &mut flush,
+    )?;
     model_tables(&mut h, model, &s);
-    results(&mut h, model, analysis, &effects, &s);
+    flush(&mut h)?;
+    results(&mut h, model, analysis, &effects, &s, &mut flush)?;
+    flush(&mut h)?;
     sections(&mut h, model, &s);
-    if let Some(f) = &fatigue {
+    flush(&mut h)?;
+    if let Some(f) = fatigue {
         fatigue_section(&mut h, model, f);
+        flush(&mut h)?;
     }
-    appendix(&mut h, model, &rating, &s);
+    if let Some(st) = &extras.stability {
+        super::html_stability::stability(&mut h, model, st);
+        flush(&mut h)?;
+    }
+    appendix(&mut h, model, &rating, &s, &mut flush)?;
+    flush(&mut h)?;
 
     h.push_str(r#"<section class="major" id="cautions"><h2>Cautions</h2>"#);
     let _ = writeln!(h, "<p><strong>{}</strong></p>", esc(CAUTION));
@@ -220,7 +294,7 @@ pub fn report_with_fatigue(
         env!("CARGO_PKG_VERSION"),
         esc(CAUTION)
     );
-    h
+    flush(&mut h)
 }
 
 fn summary(
@@ -391,7 +465,7 @@ fn summary(
     // The section is closed by `summary_drawing`.
 }
 
-fn figure(h: &mut String, svg_text: &str, caption: &str) {
+pub(super) fn figure(h: &mut String, svg_text: &str, caption: &str) {
     let _ = writeln!(
         h,
         "<figure>\n{}\n<figcaption>{}</figcaption>\n</figure>",
@@ -415,7 +489,13 @@ fn summary_drawing(h: &mut String, model: &Model, rating: Option<&Rating>) {
     h.push_str("</section>\n");
 }
 
-fn drawings(h: &mut String, model: &Model, effects: &[Effect], rating: Option<&Rating>) {
+fn drawings(
+    h: &mut String,
+    model: &Model,
+    effects: &[Effect],
+    rating: Option<&Rating>,
+    flush: &mut Flush,
+) -> std::io::Result<()> {
     h.push_str(r#"<section class="major" id="drawings"><h2>Drawings</h2>"#);
     let mut d = Drawing::new(model, Show::Model);
     d.effect = effects.first();
@@ -426,6 +506,7 @@ fn drawings(h: &mut String, model: &Model, effects: &[Effect], rating: Option<&R
     );
     h.push_str("<h3>Member forces</h3>\n<details><summary>Member forces of each load case and combination (open to read or print)</summary>\n");
     for e in effects {
+        flush(h)?;
         let mut d = Drawing::new(model, Show::Forces);
         d.effect = Some(e);
         figure(
@@ -451,6 +532,7 @@ fn drawings(h: &mut String, model: &Model, effects: &[Effect], rating: Option<&R
     }
     h.push_str("<h3>Deflected shape</h3>\n<details><summary>Deflected shape of each load case and combination (open to read or print)</summary>\n");
     for e in effects {
+        flush(h)?;
         let mut d = Drawing::new(model, Show::Deflection);
         d.effect = Some(e);
         figure(
@@ -468,6 +550,7 @@ fn drawings(h: &mut String, model: &Model, effects: &[Effect], rating: Option<&R
         );
     }
     h.push_str("</details>\n</section>\n");
+    flush(h)
 }
 
 fn model_tables(h: &mut String, model: &Model, s: &Scale) {
@@ -694,11 +777,19 @@ fn model_tables(h: &mut String, model: &Model, s: &Scale) {
     h.push_str("</section>\n");
 }
 
-fn results(h: &mut String, model: &Model, analysis: &Analysis, effects: &[Effect], s: &Scale) {
+fn results(
+    h: &mut String,
+    model: &Model,
+    analysis: &Analysis,
+    effects: &[Effect],
+    s: &Scale,
+    flush: &mut Flush,
+) -> std::io::Result<()> {
     h.push_str(
         r#"<section class="major" id="results"><h2>Results per load case and combination</h2>"#,
     );
     for (k, e) in effects.iter().enumerate() {
+        flush(h)?;
         let _ = writeln!(
             h,
             "<details><summary><strong>{} “{}”</strong> (open to read or print)</summary>",
@@ -825,6 +916,7 @@ fn results(h: &mut String, model: &Model, analysis: &Analysis, effects: &[Effect
         h.push_str("</details>\n");
     }
     h.push_str("</section>\n");
+    Ok(())
 }
 
 fn checks(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: &Scale) {
@@ -918,9 +1010,15 @@ fn checks(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: &S
 }
 
 /// The appendix: every check, collapsed on screen.
-fn appendix(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: &Scale) {
+fn appendix(
+    h: &mut String,
+    model: &Model,
+    rating: &Result<&Rating, String>,
+    s: &Scale,
+    flush: &mut Flush,
+) -> std::io::Result<()> {
     let Ok(r) = rating else {
-        return;
+        return Ok(());
     };
     h.push_str(r#"<section class="major" id="appendix"><h2>Appendix: every check</h2>"#);
     let _ = writeln!(
@@ -933,7 +1031,7 @@ fn appendix(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: 
     let su = format!("stress {}", s.stress_name);
     let cu = format!("capacity {}", s.force_name);
     let fcu = format!("Fcr or Ft {}", s.stress_name);
-    let mut tb = HTable::new(&[
+    let tb = HTable::new(&[
         "member",
         "case",
         &fu,
@@ -948,7 +1046,11 @@ fn appendix(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: 
         "clause",
         "formula",
     ]);
+    tb.head_html(h);
     for (k, &i) in by_utilization(r).iter().enumerate() {
+        if k % 1024 == 1023 {
+            flush(h)?;
+        }
         let c = check_row(model, r, &r.checks[i]);
         let class = match (k == 0, c.utilization > 1.0) {
             (true, true) => "controlling fails",
@@ -956,9 +1058,10 @@ fn appendix(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: 
             (false, true) => "fails",
             (false, false) => "",
         };
-        tb.row(
+        row_html(
+            h,
             class,
-            vec![
+            &[
                 t(c.member),
                 t(c.case),
                 n(c.force, 4),
@@ -982,9 +1085,10 @@ fn appendix(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: 
             ],
         );
     }
-    tb.html(h);
+    foot_html(h);
     h.push_str(r#"<p class="note">utilization = |force| / C; margin = critical stress / |stress|; the first counted row controls; rows marked service or factored are not the method's own comparison and are not counted.</p>"#);
     h.push_str("</details></section>\n");
+    Ok(())
 }
 
 fn ratings(h: &mut String, model: &Model, rating: &Result<&Rating, String>, s: &Scale) {

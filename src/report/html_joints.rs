@@ -13,9 +13,14 @@ use crate::rate::Rating;
 use std::fmt::Write;
 
 /// The joints section (nothing when the model describes no joints).
-pub(super) fn joints(h: &mut String, model: &Model, rating: Option<&Rating>) {
+pub(super) fn joints(
+    h: &mut String,
+    model: &Model,
+    rating: Option<&Rating>,
+    flush: &mut dyn FnMut(&mut String) -> std::io::Result<()>,
+) -> std::io::Result<()> {
     let Some(r) = rating.filter(|r| r.joints.is_some()) else {
-        return;
+        return Ok(());
     };
     let views = joint_views(model, r);
     h.push_str(r#"<section class="major" id="joints"><h2>Joints</h2>"#);
@@ -39,8 +44,35 @@ pub(super) fn joints(h: &mut String, model: &Model, rating: Option<&Rating>) {
             }
             h.push_str("</ul>\n");
         }
+        flush(h)?;
     }
+    pins(h, model, r, &views, flush)?;
     h.push_str("</section>\n");
+    Ok(())
+}
+
+/// Each pin: its drawing under the first load case (stack order, bar
+/// forces, moment and shear along the pin) and its checks.
+fn pins(
+    h: &mut String,
+    model: &Model,
+    r: &Rating,
+    views: &[JointView],
+    flush: &mut dyn FnMut(&mut String) -> std::io::Result<()>,
+) -> std::io::Result<()> {
+    let state = r.effects.iter().find(|e| e.case.is_some());
+    for pin in &model.pins {
+        let id = model.nodes[pin.node].id.as_str();
+        let _ = writeln!(h, "<h3>Pin at {}</h3>", esc(id));
+        if let Some(e) = state {
+            h.push_str("<div class=\"figure joint-drawing\">");
+            h.push_str(&super::pin_svg::pin_svg(model, pin, &e.forces, &e.id));
+            h.push_str("</div>\n");
+        }
+        table(h, views.iter().filter(|v| v.node == id));
+        flush(h)?;
+    }
+    Ok(())
 }
 
 /// The summary's facts: the lowest joint factor per level, and whether a

@@ -14,6 +14,7 @@ pub mod html;
 mod html_joints;
 mod html_lacing;
 mod html_loads;
+mod html_stability;
 mod html_table;
 pub mod influence_csv;
 pub mod influence_json;

@@ -15,7 +15,7 @@ pub fn rate(w: &mut dyn Write, model: &Model, rating: &Rating) -> io::Result<()>
     let s = Scale::of(model);
     writeln!(
         w,
-        "member,case,force_{f},stress_{st},axis,slenderness,euler_stress_{st},critical_stress_{st},capacity_{f},utilization,margin,regime,rating_factor,method,service,clause",
+        "member,case,force_{f},stress_{st},axis,slenderness,euler_stress_{st},critical_stress_{st},capacity_{f},utilization,margin,regime,rating_factor,method,service,clause,zero_capacity",
         f = s.force_name,
         st = s.stress_name
     )?;
@@ -24,7 +24,7 @@ pub fn rate(w: &mut dyn Write, model: &Model, rating: &Rating) -> io::Result<()>
         let r = check_row(model, rating, &rating.checks[i]);
         writeln!(
             w,
-            "{},{},{},{},{},{},{},{},{},{},{},{},{},{},{},{}",
+            "{},{},{},{},{},{},{},{},{},{},{},{},{},{},{},{},{}",
             field(r.member),
             field(r.case),
             num(r.force),
@@ -40,7 +40,8 @@ pub fn rate(w: &mut dyn Write, model: &Model, rating: &Rating) -> io::Result<()>
             r.rating_factor.map_or(String::new(), num),
             field(method),
             r.service,
-            field(r.clause)
+            field(r.clause),
+            r.zero_capacity
         )?;
     }
     if !rating.ratings.is_empty() {

@@ -71,7 +71,7 @@ pub fn rate(
         let r = check_row(model, rating, c);
         write!(
             w,
-            "{{\"member\":{},\"case\":{},\"force\":{},\"stress\":{},\"axis\":{},\"slenderness\":{},\"slenderness_in\":{},\"slenderness_out\":{},\"euler_stress\":{},\"critical_stress\":{},\"capacity\":{},\"utilization\":{},\"margin\":{},\"regime\":{},\"rating_factor\":{},\"service\":{},\"clause\":{},\"formula\":{},\"mode\":{}}}",
+            "{{\"member\":{},\"case\":{},\"force\":{},\"stress\":{},\"axis\":{},\"slenderness\":{},\"slenderness_in\":{},\"slenderness_out\":{},\"euler_stress\":{},\"critical_stress\":{},\"capacity\":{},\"utilization\":{},\"zero_capacity\":{},\"margin\":{},\"regime\":{},\"rating_factor\":{},\"service\":{},\"clause\":{},\"formula\":{},\"mode\":{}}}",
             string(r.member),
             string(r.case),
             num(r.force),
@@ -84,6 +84,7 @@ pub fn rate(
             num(r.critical_stress),
             num(r.capacity),
             num(r.utilization),
+            r.zero_capacity,
             opt(r.margin),
             string(r.regime),
             opt(r.rating_factor),
@@ -99,10 +100,11 @@ pub fn rate(
             let r = check_row(model, rating, &rating.checks[i]);
             write!(
                 w,
-                "{{\"member\":{},\"case\":{},\"utilization\":{}}}",
+                "{{\"member\":{},\"case\":{},\"utilization\":{},\"zero_capacity\":{}}}",
                 string(r.member),
                 string(r.case),
-                num(r.utilization)
+                num(r.utilization),
+                r.zero_capacity
             )?;
         }
         None => w.write_all(b"null")?,

@@ -24,7 +24,12 @@ pub struct CheckRow<'a> {
     pub euler_stress: f64,
     pub critical_stress: f64,
     pub capacity: f64,
+    /// |force| / capacity; not finite when the capacity is zero.
     pub utilization: f64,
+    /// The capacity is zero (or not positive): the utilization is shown as
+    /// null / empty with this flag, never like "not applicable" (issue 22,
+    /// item 16); with a force the check fails.
+    pub zero_capacity: bool,
     pub margin: Option<f64>,
     pub regime: &'static str,
     pub rating_factor: Option<f64>,
@@ -66,6 +71,7 @@ pub fn check_row<'a>(model: &'a Model, r: &'a Rating, c: &Check) -> CheckRow<'a>
         },
         capacity: c.capacity / s.force,
         utilization: c.utilization,
+        zero_capacity: c.capacity <= 0.0 || c.capacity.is_nan(),
         margin: c.margin,
         regime: c.regime.as_str(),
         rating_factor: c.rating_factor,
@@ -89,6 +95,22 @@ pub fn check_row<'a>(model: &'a Model, r: &'a Rating, c: &Check) -> CheckRow<'a>
         },
     }
 }
+
+impl CheckRow<'_> {
+    /// The utilization for a text table: `d` significant digits, or
+    /// "zero C" when the capacity is zero.
+    pub fn utilization_text(&self, d: usize) -> String {
+        if self.zero_capacity {
+            ZERO_CAPACITY.into()
+        } else {
+            super::table::sig(self.utilization, d)
+        }
+    }
+}
+
+/// What a text table shows for the utilization of a check whose capacity
+/// is zero.
+pub const ZERO_CAPACITY: &str = "zero C";
 
 /// Rating indices sorted by rating factor, lowest first (rows without a
 /// factor last), levels in the method's order within one factor.

@@ -54,7 +54,9 @@ pub fn rate_term(
     writeln!(w, "Rating method: {} — {}", method.name, method.equation)?;
     if let Some(i) = rating.controlling {
         let r = check_row(model, rating, &rating.checks[i]);
-        let verdict = if r.utilization > 1.0 {
+        let verdict = if r.zero_capacity {
+            term.paint("FAILS: zero capacity", Mark::Fail)
+        } else if r.utilization > 1.0 {
             term.paint("FAILS", Mark::Fail)
         } else {
             term.paint("passes", Mark::Strong)
@@ -64,7 +66,7 @@ pub fn rate_term(
             "\nControlling: member {} under \"{}\", utilization {} ({verdict}); {} {} against capacity {} {} ({}, {})",
             r.member,
             r.case,
-            sig(r.utilization, 3),
+            r.utilization_text(3),
             sig(r.force, 4),
             s.force_name,
             sig(r.capacity, 4),
@@ -173,7 +175,7 @@ pub fn rate_term(
                 sig(r.critical_stress, 4),
                 r.regime.into(),
                 sig(r.capacity, 4),
-                sig(r.utilization, 3),
+                r.utilization_text(3),
                 opt(r.margin, 3),
                 opt(r.rating_factor, 3),
             ],

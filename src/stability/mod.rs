@@ -7,6 +7,7 @@ pub mod chord;
 pub mod frame;
 pub mod in_plane;
 pub mod rate_k;
+pub mod rate_k_in;
 pub mod run;
 pub mod u_frame;
 pub mod vibration;

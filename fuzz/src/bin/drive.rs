@@ -3,6 +3,15 @@
 //! keeps an input when the pipeline's outcome signature (which check fired,
 //! or how far the model got) is new, a coarse stand-in for coverage.
 //!
+//! Two kinds of mutation, chosen at random per input: byte-level edits
+//! (flips, dictionary splices, chunk copies) and a structure-aware mode
+//! that keeps the text a well-formed model and edits it in place: a number
+//! replaced by another (sign, scale, extreme, a number from elsewhere in
+//! the input), a quoted id or quantity swapped for another quoted string of
+//! the input or a unit-bearing value, a whole line duplicated or removed.
+//! Inputs may carry a vehicles and a sweep file after marker lines (see
+//! `tests/regressions/pipeline.rs`), so both are mutated with the model.
+//!
 //! Usage: `drive <corpus-dir> <artifact-dir> <seconds> [seed]`. Every input
 //! that panics is written to the artifact dir as `crash-<hash>.ron`.
 
@@ -103,8 +112,157 @@ impl Rng {
     }
 }
 
+/// Byte ranges (start, end) of tokens.
+type Spans = Vec<(usize, usize)>;
+
+/// Byte ranges of the number tokens and of the quoted strings (quotes
+/// included) of `v`; comments are not skipped (a number in a comment is
+/// harmless to edit).
+fn tokens(v: &[u8]) -> (Spans, Spans) {
+    let (mut nums, mut strs) = (Vec::new(), Vec::new());
+    let mut i = 0;
+    while i < v.len() {
+        let b = v[i];
+        if b == b'"' {
+            let s = i;
+            i += 1;
+            while i < v.len() && v[i] != b'"' && v[i] != b'\n' {
+                i += if v[i] == b'\\' { 2 } else { 1 };
+            }
+            if i < v.len() && v[i] == b'"' {
+                strs.push((s, i + 1));
+            }
+            i += 1;
+        } else if b.is_ascii_digit() && (i == 0 || !v[i - 1].is_ascii_alphanumeric()) {
+            let mut s = i;
+            if s > 0 && v[s - 1] == b'-' {
+                s -= 1;
+            }
+            while i < v.len() && (v[i].is_ascii_digit() || b".eE".contains(&v[i])) {
+                if (v[i] == b'e' || v[i] == b'E') && i + 1 < v.len() && v[i + 1] == b'-' {
+                    i += 1;
+                }
+                i += 1;
+            }
+            nums.push((s, i));
+        } else {
+            i += 1;
+        }
+    }
+    (nums, strs)
+}
+
+/// Another number for the one in `old`.
+fn new_number(rng: &mut Rng, old: &str, v: &[u8], nums: &[(usize, usize)]) -> String {
+    let x: f64 = old.parse().unwrap_or(1.0);
+    match rng.below(12) {
+        0 => format!("{}", -x),
+        1 => format!("{:?}", x * 10.0),
+        2 => format!("{:?}", x / 10.0),
+        3 => format!("{:?}", x * 1e6),
+        4 => format!("{:?}", x * 1e-6),
+        5 => "0.0".into(),
+        6 => [
+            "1e-9",
+            "1e9",
+            "1e300",
+            "-1e300",
+            "5e-324",
+            "1.7976931348623157e308",
+        ][rng.below(6)]
+        .into(),
+        7 => format!("{}", rng.below(20)),
+        8 => format!("{:?}", x + 1.0),
+        9 => format!("{:?}", x * (1.0 + 1e-9)),
+        _ => {
+            let (s, e) = nums[rng.below(nums.len())];
+            String::from_utf8_lossy(&v[s..e]).into_owned()
+        }
+    }
+}
+
+/// Quoted strings that are not in most inputs: quantities with units,
+/// library models, odd ids.
+const QUOTED: &[&str] = &[
+    "\"3 ft\"",
+    "\"0 ft\"",
+    "\"-2 ft\"",
+    "\"1e9 kip\"",
+    "\"0 kip\"",
+    "\"0.5 kip/ft\"",
+    "\"30 ksi\"",
+    "\"0 ksi\"",
+    "\"2 m\"",
+    "\"10 kN\"",
+    "\"HL-93\"",
+    "\"E80\"",
+    "\"LM71\"",
+    "\"vehicles.ron\"",
+    "\"../vehicles.ron\"",
+    "\"/dev/zero\"",
+    "\"\"",
+    "\"L0\"",
+    "\"U1\"",
+];
+
+/// One in-place edit that keeps the text's structure.
+fn mutate_structured(rng: &mut Rng, v: &mut Vec<u8>) {
+    let (nums, strs) = tokens(v);
+    match rng.below(8) {
+        0..=3 if !nums.is_empty() => {
+            let (s, e) = nums[rng.below(nums.len())];
+            let old = String::from_utf8_lossy(&v[s..e]).into_owned();
+            let new = new_number(rng, &old, v, &nums);
+            v.splice(s..e, new.into_bytes());
+        }
+        4 | 5 if !strs.is_empty() => {
+            let (s, e) = strs[rng.below(strs.len())];
+            let new = if rng.below(3) == 0 {
+                QUOTED[rng.below(QUOTED.len())].as_bytes().to_vec()
+            } else {
+                let (a, b) = strs[rng.below(strs.len())];
+                v[a..b].to_vec()
+            };
+            v.splice(s..e, new);
+        }
+        _ => {
+            // Duplicate or remove a whole line (a row of a list).
+            let starts: Vec<usize> = std::iter::once(0)
+                .chain(
+                    v.iter()
+                        .enumerate()
+                        .filter(|(_, &b)| b == b'\n')
+                        .map(|(i, _)| i + 1),
+                )
+                .filter(|&i| i < v.len())
+                .collect();
+            if starts.is_empty() {
+                return;
+            }
+            let s = starts[rng.below(starts.len())];
+            let e = v[s..]
+                .iter()
+                .position(|&b| b == b'\n')
+                .map_or(v.len(), |p| s + p + 1);
+            if rng.below(2) == 0 {
+                let line = v[s..e].to_vec();
+                v.splice(s..s, line);
+            } else {
+                v.drain(s..e);
+            }
+        }
+    }
+}
+
 fn mutate(rng: &mut Rng, input: &[u8], corpus: &[Vec<u8>]) -> Vec<u8> {
     let mut v = input.to_vec();
+    if rng.below(3) != 0 {
+        for _ in 0..1 + rng.below(3) {
+            mutate_structured(rng, &mut v);
+        }
+        v.truncate(1 << 16);
+        return v;
+    }
     for _ in 0..1 + rng.below(4) {
         let at = rng.below(v.len() + 1);
         match rng.below(9) {
@@ -198,8 +356,14 @@ fn main() {
     panic::set_hook(Box::new(|_| {}));
     let mut seen: HashSet<String> = HashSet::new();
     let mut counts: HashMap<String, u64> = HashMap::new();
-    for c in &corpus {
+    // Corpus entries that reached a full solve: three bases in four are
+    // taken from these, so the later stages are exercised.
+    let mut deep: Vec<usize> = Vec::new();
+    for (i, c) in corpus.iter().enumerate() {
         if let Ok(sig) = panic::catch_unwind(|| panelpoint_fuzz::fuzz_one(c)) {
+            if sig.starts_with("solved") {
+                deep.push(i);
+            }
             seen.insert(sig);
         }
     }
@@ -209,14 +373,39 @@ fn main() {
     let (mut execs, mut crashes, mut last_report) = (0u64, 0u64, Instant::now());
     let mut crash_sigs: HashSet<String> = HashSet::new();
     while start.elapsed() < limit {
-        let base = corpus[rng.below(corpus.len())].clone();
+        let pick = if !deep.is_empty() && rng.below(4) != 0 {
+            deep[rng.below(deep.len())]
+        } else {
+            rng.below(corpus.len())
+        };
+        let base = corpus[pick].clone();
         let input = mutate(&mut rng, &base, &corpus);
         execs += 1;
         match panic::catch_unwind(|| panelpoint_fuzz::fuzz_one(&input)) {
             Ok(sig) => {
-                *counts
-                    .entry(sig.split(':').next().unwrap_or("").to_string())
-                    .or_default() += 1;
+                // Outcome classes: how far the input got, and which of
+                // the later stages it reached.
+                let stage = sig.split(':').next().unwrap_or("");
+                let class = if stage == "solved" {
+                    let later: Vec<&str> = [
+                        "rated",
+                        "rate:",
+                        "stability ",
+                        "stability:",
+                        "fatigue",
+                        "sweep ",
+                    ]
+                    .into_iter()
+                    .filter(|k| sig.contains(k))
+                    .collect();
+                    format!("solved+{}", later.join("+"))
+                } else {
+                    stage.to_string()
+                };
+                *counts.entry(class).or_default() += 1;
+                if sig.starts_with("solved") && !seen.contains(&sig) {
+                    deep.push(corpus.len());
+                }
                 if seen.insert(sig) {
                     let name = corpus_dir.join(format!("{:016x}.ron", hash(&input)));
                     std::fs::write(name, &input).unwrap();
@@ -247,9 +436,10 @@ fn main() {
         }
     }
     println!(
-        "done: {:.0} s, {execs} execs, corpus {}, {crashes} crashing inputs ({} distinct messages), outcomes {counts:?}",
+        "done: {:.0} s, {execs} execs, corpus {} ({} solved), {crashes} crashing inputs ({} distinct messages), outcomes {counts:?}",
         start.elapsed().as_secs_f64(),
         corpus.len(),
+        deep.len(),
         crash_sigs.len()
     );
 }
