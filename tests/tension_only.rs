@@ -447,3 +447,70 @@ fn combination_is_solved_whole() {
     assert_close!(c.forces[ia] / KIP, la, 1e-9);
     assert!(c.forces[ia] / KIP < 1.75 * 5.0 * 6.0 / 9.0);
 }
+
+/// Issue 16's "Done when" on one demo: models/quarry-lane-pin.ron has both
+/// tension-only counters and pins. From the rate JSON: every pin has a "pin
+/// moment and shear" check with a finite rating factor; no tension-only
+/// member has a compression row (tension or slack only); some counter is
+/// slack in some effect. Hand check of one single-member bearing row, the
+/// L1-U1 hanger's plates on the pin at L1 (t = 0.75 in, D = 5 in, Fy the
+/// lower of pin 33 and bar 30 ksi): AASHTO LRFD 6.7.6.2.2 (from memory),
+/// Pr = φb·1.5·t·D·Fy with φb = 1.00, times the model's condition factor
+/// φc = 0.95 (φs = 1.00): 0.95·1.5·0.75·5·30 = 160.31 kip. The rating
+/// equation RF = (C − γDC·DC)/(γL·LL) with DC = share·|F_dead| of the
+/// member's dead-load row and the live part LL taken as (demand − γDC·DC)/γL
+/// from the row's own factored demand; the reported factor may be lower (a
+/// truss that gives way first caps every factor, docs/joints.md) but never
+/// higher than this linear value (project rule: never above the code).
+#[test]
+fn demo_rates_pins_and_counters_together() {
+    let model = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("models/quarry-lane-pin.ron");
+    let (code, out, err) = run(&["rate", model.to_str().unwrap(), "--format", "json"]);
+    assert_eq!(code, 0, "{err}");
+    let v: serde_json::Value = serde_json::from_str(&out).unwrap();
+    let joints = v["joints"].as_array().unwrap();
+    assert_eq!(joints.len(), 8, "pins at L0…L7");
+    for j in joints {
+        let ms = j["checks"].as_array().unwrap().iter().find(|c| c["kind"] == "pin moment and shear");
+        let rf = ms.and_then(|c| c["rf"].as_f64()).unwrap_or(f64::NAN);
+        assert!(rf.is_finite() && rf > 0.0, "pin at {}: {rf}", j["node"]);
+    }
+    let to = ["L0-L1", "L1-L2", "L2-L3", "L3-L4", "L4-L5", "L5-L6", "L6-L7", "U1-L2", "U2-L3", "U5-L4", "U6-L5"];
+    let counters = ["L2-U3", "U3-L4", "L3-U4", "U4-L5"];
+    let checks = v["checks"].as_array().unwrap();
+    for c in checks {
+        let id = c["member"].as_str().unwrap_or("");
+        if to.contains(&id) || counters.contains(&id) {
+            let regime = c["regime"].as_str().unwrap();
+            assert!(regime == "tension" || regime == "slack", "{id}: {regime}");
+        }
+    }
+    assert!(checks
+        .iter()
+        .any(|c| counters.contains(&c["member"].as_str().unwrap_or("")) && c["regime"] == "slack"));
+    // The hand check of the hanger's bearing at L1.
+    let l1 = joints.iter().find(|j| j["node"] == "L1").unwrap();
+    let b = l1["checks"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|c| c["kind"] == "pin bearing" && c["member"] == "L1-U1")
+        .unwrap();
+    let resistance = 0.95 * 1.00 * 1.5 * 0.75 * 5.0 * 30.0;
+    assert_close!(b["resistance"].as_f64().unwrap(), resistance, 1e-9);
+    let dead = checks
+        .iter()
+        .find(|c| c["member"] == "L1-U1" && c["case"] == "dead")
+        .unwrap()["force"]
+        .as_f64()
+        .unwrap();
+    let share = b["inputs"]["share"]["value"].as_f64().unwrap();
+    let r = &b["ratings"][0];
+    let (g_dc, g_l) = (r["gamma_dc"].as_f64().unwrap(), r["gamma_live"].as_f64().unwrap());
+    let dc = g_dc * share * dead.abs();
+    let live = (b["demand"].as_f64().unwrap() - dc) / g_l;
+    assert!(live > 0.0, "live part {live}");
+    let linear = (resistance - dc) / (g_l * live);
+    let rf = r["rf"].as_f64().unwrap();
+    assert!(rf > 0.0 && rf <= linear * (1.0 + 1e-9), "{rf} vs {linear}");
+}
