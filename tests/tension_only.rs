@@ -471,11 +471,18 @@ fn demo_rates_pins_and_counters_together() {
     let joints = v["joints"].as_array().unwrap();
     assert_eq!(joints.len(), 8, "pins at L0…L7");
     for j in joints {
-        let ms = j["checks"].as_array().unwrap().iter().find(|c| c["kind"] == "pin moment and shear");
+        let ms = j["checks"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .find(|c| c["kind"] == "pin moment and shear");
         let rf = ms.and_then(|c| c["rf"].as_f64()).unwrap_or(f64::NAN);
         assert!(rf.is_finite() && rf > 0.0, "pin at {}: {rf}", j["node"]);
     }
-    let to = ["L0-L1", "L1-L2", "L2-L3", "L3-L4", "L4-L5", "L5-L6", "L6-L7", "U1-L2", "U2-L3", "U5-L4", "U6-L5"];
+    let to = [
+        "L0-L1", "L1-L2", "L2-L3", "L3-L4", "L4-L5", "L5-L6", "L6-L7", "U1-L2", "U2-L3", "U5-L4",
+        "U6-L5",
+    ];
     let counters = ["L2-U3", "U3-L4", "L3-U4", "U4-L5"];
     let checks = v["checks"].as_array().unwrap();
     for c in checks {
@@ -506,7 +513,10 @@ fn demo_rates_pins_and_counters_together() {
         .unwrap();
     let share = b["inputs"]["share"]["value"].as_f64().unwrap();
     let r = &b["ratings"][0];
-    let (g_dc, g_l) = (r["gamma_dc"].as_f64().unwrap(), r["gamma_live"].as_f64().unwrap());
+    let (g_dc, g_l) = (
+        r["gamma_dc"].as_f64().unwrap(),
+        r["gamma_live"].as_f64().unwrap(),
+    );
     let dc = g_dc * share * dead.abs();
     let live = (b["demand"].as_f64().unwrap() - dc) / g_l;
     assert!(live > 0.0, "live part {live}");
