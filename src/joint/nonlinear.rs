@@ -14,11 +14,9 @@
 
 use super::solve_rf::LAMBDA_MAX;
 use super::{rows_of, Eval, JointCheck, JointRating, JointSet, Joints};
-use crate::analysis::active_set::Solver;
-use crate::loads::envelope_nonlinear::merge;
 use crate::method::{Level, Method};
-use crate::model::{LoadCase, Model};
-use crate::rate::nonlinear::{factored_dead, path, Live, Path};
+use crate::model::Model;
+use crate::rate::nonlinear::{Live, Path, Traced};
 use crate::rate::{RateError, Rating};
 
 /// The first λ on `path` where `u` reaches 1.
@@ -60,32 +58,23 @@ fn first_crossing(path: &Path, u: impl Fn(&[f64]) -> f64) -> Option<f64> {
     path.mechanism
 }
 
-/// Best (lowest λ) so far for one check: λ, γDC, γDW, placement, path index.
-type Best = Option<(f64, f64, f64, usize, usize)>;
-
-/// Every joint check of a tension-only model, evaluated and rated.
+/// Every joint check of a tension-only model, evaluated and rated on the
+/// paths the members were rated on (`followed`: live load, level, paths).
 pub(crate) fn rate_joints(
     model: &Model,
-    solver: &Solver,
     rating: &Rating,
     lives: &[Live],
+    followed: &[(usize, Level, Vec<Traced>)],
     set: JointSet,
 ) -> Result<Joints, RateError> {
     let method = &rating.method;
     let rows = rows_of(model, rating, &set.checks)?;
-    let mut ratings = Vec::new();
-    if method.rates {
-        for live in lives {
-            let levels = if live.legal {
-                &method.legal_levels
-            } else {
-                &method.design_levels
-            };
-            for level in levels {
-                ratings.extend(rate_live(model, solver, method, level, live, &set.checks)?);
-            }
-        }
-    }
+    let ratings = followed
+        .iter()
+        .flat_map(|(li, level, traced)| {
+            rate_live(model, method, level, &lives[*li], traced, &set.checks)
+        })
+        .collect();
     Ok(Joints {
         checks: set.checks,
         rows,
@@ -97,52 +86,40 @@ pub(crate) fn rate_joints(
 /// The rows of one live load at one level.
 fn rate_live(
     model: &Model,
-    solver: &Solver,
     method: &Method,
     level: &Level,
     live: &Live,
+    traced: &[Traced],
     checks: &[Box<dyn JointCheck>],
-) -> Result<Vec<JointRating>, RateError> {
-    let mut best: Vec<Best> = vec![None; checks.len()];
-    let mut paths: Vec<Path> = Vec::new();
-    for (pi, (p, _)) in live.placements.iter().enumerate() {
-        let scaled = merge(
-            &LoadCase {
-                id: live.id.clone(),
-                ..Default::default()
-            },
-            p,
-            level.gamma_live,
-        );
-        for max in [true, false] {
-            let (dead, gdc, gdw) = factored_dead(model, level, max);
-            let path = path(solver, &dead, &scaled)?;
-            for (ci, check) in checks.iter().enumerate() {
-                let u = |f: &[f64]| check.evaluate(f, method, level).utilization();
-                if let Some(l) = first_crossing(&path, u) {
-                    if best[ci].is_none_or(|b| l < b.0) {
-                        best[ci] = Some((l, gdc, gdw, pi, paths.len()));
-                    }
+) -> Vec<JointRating> {
+    // Best (lowest λ) so far per check: λ and the index into `traced`.
+    let mut best: Vec<Option<(f64, usize)>> = vec![None; checks.len()];
+    for (ti, t) in traced.iter().enumerate() {
+        for (ci, check) in checks.iter().enumerate() {
+            let u = |f: &[f64]| check.evaluate(f, method, level).utilization();
+            if let Some(l) = first_crossing(&t.path, u) {
+                if best[ci].is_none_or(|b| l < b.0) {
+                    best[ci] = Some((l, ti));
                 }
             }
-            paths.push(path);
         }
     }
     let length = model.units.length;
-    Ok(checks
+    checks
         .iter()
         .enumerate()
         .map(|(ci, check)| {
             let b = best[ci];
-            let factored = b.and_then(|b| paths[b.4].forces_at(1.0)).map_or(
+            let t = b.map(|b| &traced[b.1]);
+            let factored = t.and_then(|t| t.path.forces_at(1.0)).map_or(
                 Eval {
                     demand: 0.0,
                     resistance: 0.0,
                 },
                 |f| check.evaluate(&f, method, level),
             );
-            let at = b
-                .and_then(|b| live.placements.get(b.3))
+            let at = t
+                .and_then(|t| live.placements.get(t.placement))
                 .and_then(|(_, at)| *at)
                 .map(|p| {
                     format!(
@@ -160,10 +137,10 @@ fn rate_live(
                 rf: b.map(|b| b.0).filter(|v| v.is_finite()),
                 at,
                 factored,
-                gamma_dc: b.map_or(level.dc.max, |b| b.1),
-                gamma_dw: b.map_or(level.dw.max, |b| b.2),
+                gamma_dc: t.map_or(level.dc.max, |t| t.gamma_dc),
+                gamma_dw: t.map_or(level.dw.max, |t| t.gamma_dw),
                 gamma_live: level.gamma_live,
             }
         })
-        .collect())
+        .collect()
 }

@@ -18,7 +18,7 @@
 //! - the rating factor is the live-load multiplier λ at which the member
 //!   reaches its resistance when the factored dead load is applied first and
 //!   λ·γL·(L + IM) then added, the active set followed along the way (see
-//!   [`trace`]). Both the maximum and the minimum permanent-load factors are
+//!   [`reach`]). Both the maximum and the minimum permanent-load factors are
 //!   traced and the lower factor is kept. A model without tension-only
 //!   members never comes here.
 
@@ -206,13 +206,7 @@ pub fn path(solver: &Solver, dead: &LoadCase, live: &LoadCase) -> Result<Path, A
 /// by [`LAMBDA_MAX`] get None. Where the truss itself gives way, every
 /// member not yet reached gets that λ, marked `mechanism` (no rating above
 /// it is faithful).
-pub fn trace(
-    solver: &Solver,
-    dead: &LoadCase,
-    live: &LoadCase,
-    limits: &[Limit],
-) -> Result<Vec<Option<Reached>>, AnalysisError> {
-    let path = path(solver, dead, live)?;
+pub fn reach(path: &Path, limits: &[Limit]) -> Vec<Option<Reached>> {
     let mut out: Vec<Option<Reached>> = vec![None; limits.len()];
     for (si, seg) in path.segments.iter().enumerate() {
         let eps = 1e-9 * seg.start.abs().max(1.0);
@@ -252,7 +246,7 @@ pub fn trace(
             });
         }
     }
-    Ok(out)
+    out
 }
 
 /// A live load to rate or envelope: every placement as a load state of its
@@ -496,6 +490,46 @@ pub(crate) fn factored_dead(model: &Model, level: &Level, max: bool) -> (LoadCas
     )
 }
 
+/// One placement's response path at one level: the factored dead load with
+/// the permanent factors at their maxima or minima, then λ·γL·(L + IM).
+pub(crate) struct Traced {
+    pub(crate) placement: usize,
+    pub(crate) gamma_dc: f64,
+    pub(crate) gamma_dw: f64,
+    pub(crate) path: Path,
+}
+
+/// Every placement of `live` followed at `level`, both permanent factors:
+/// the paths the members and the joints are rated on (followed once).
+pub(crate) fn paths(
+    model: &Model,
+    solver: &Solver,
+    level: &Level,
+    live: &Live,
+) -> Result<Vec<Traced>, AnalysisError> {
+    let mut out = Vec::with_capacity(2 * live.placements.len());
+    for (pi, (p, _)) in live.placements.iter().enumerate() {
+        let scaled = merge(
+            &LoadCase {
+                id: live.id.clone(),
+                ..Default::default()
+            },
+            p,
+            level.gamma_live,
+        );
+        for max in [true, false] {
+            let (dead, gamma_dc, gamma_dw) = factored_dead(model, level, max);
+            out.push(Traced {
+                placement: pi,
+                gamma_dc,
+                gamma_dw,
+                path: path(solver, &dead, &scaled)?,
+            });
+        }
+    }
+    Ok(out)
+}
+
 /// The rating rows of one live load at one level: for each member the
 /// lowest traced factor over the placements and both permanent factors.
 #[allow(clippy::too_many_arguments)]
@@ -506,6 +540,7 @@ fn rate_live(
     level: &Level,
     members: &[MemberCapacity],
     live: &Live,
+    traced: &[Traced],
     dead_forces: &[f64],
     dead_slack: &[bool],
 ) -> Result<Vec<MemberRating>, AnalysisError> {
@@ -530,25 +565,11 @@ fn rate_live(
         .collect();
     // Per member: (λ, sense, γDC, γDW, placement index).
     let mut best: Vec<Option<(Reached, f64, f64, usize)>> = vec![None; nm];
-    for (pi, (p, _)) in live.placements.iter().enumerate() {
-        let scaled = merge(
-            &LoadCase {
-                id: live.id.clone(),
-                ..Default::default()
-            },
-            p,
-            level.gamma_live,
-        );
-        for max in [true, false] {
-            let (dead, gdc, gdw) = factored_dead(model, level, max);
-            for (m, r) in trace(solver, &dead, &scaled, &limits)?
-                .into_iter()
-                .enumerate()
-            {
-                let Some(r) = r else { continue };
-                if best[m].is_none_or(|b| r.lambda < b.0.lambda) {
-                    best[m] = Some((r, gdc, gdw, pi));
-                }
+    for t in traced {
+        for (m, r) in reach(&t.path, &limits).into_iter().enumerate() {
+            let Some(r) = r else { continue };
+            if best[m].is_none_or(|b| r.lambda < b.0.lambda) {
+                best[m] = Some((r, t.gamma_dc, t.gamma_dw, t.placement));
             }
         }
     }
@@ -633,14 +654,18 @@ pub(super) fn rate(
         &mut relieved,
     )?;
     let mut ratings = Vec::new();
+    // Each live load's paths at each level, followed once for the members
+    // and the joints: (live load, level, paths).
+    let mut followed: Vec<(usize, Level, Vec<Traced>)> = Vec::new();
     if method.rates {
-        for live in &lives {
+        for (li, live) in lives.iter().enumerate() {
             let levels = if live.legal {
                 &method.legal_levels
             } else {
                 &method.design_levels
             };
             for level in levels {
+                let traced = paths(model, &solver, level, live)?;
                 ratings.extend(rate_live(
                     model,
                     &solver,
@@ -648,9 +673,11 @@ pub(super) fn rate(
                     level,
                     &members,
                     live,
+                    &traced,
                     &dead.result.forces,
                     &dead.slack,
                 )?);
+                followed.push((li, *level, traced));
             }
         }
     }
@@ -658,7 +685,7 @@ pub(super) fn rate(
     let set = crate::joint::all_checks(model);
     if !set.checks.is_empty() {
         rating.joints = Some(crate::joint::nonlinear::rate_joints(
-            model, &solver, &rating, &lives, set,
+            model, &rating, &lives, &followed, set,
         )?);
         crate::joint::post_with_joints(&mut rating);
     }
