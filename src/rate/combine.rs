@@ -130,20 +130,12 @@ pub fn load_effects_of(model: &Model, results: &[CaseResult]) -> Vec<LoadEffect>
     load_effects_relieved(model, results, None).0
 }
 
-/// As [`load_effects_of`], with the method's minimum dead-load factors
-/// where a dead case relieves a combination's live part; also the ids of
-/// the combinations where that happened.
-pub fn load_effects_relieved(
-    model: &Model,
-    results: &[CaseResult],
-    relief: Option<Relief>,
-) -> (Vec<LoadEffect>, Vec<String>) {
-    let mut relieved = Vec::new();
-    let analysis_cases = results;
-    let mut out: Vec<LoadEffect> = model
+/// Every load case as solved, one effect each (unfactored).
+pub(crate) fn case_effects(model: &Model, results: &[CaseResult]) -> Vec<LoadEffect> {
+    model
         .cases
         .iter()
-        .zip(analysis_cases)
+        .zip(results)
         .enumerate()
         .map(|(i, (c, r))| LoadEffect {
             id: c.id.clone(),
@@ -153,7 +145,19 @@ pub fn load_effects_relieved(
             combination: None,
             forces: r.forces.clone(),
         })
-        .collect();
+        .collect()
+}
+
+/// As [`load_effects_of`], with the method's minimum dead-load factors
+/// where a dead case relieves a combination's live part; also the ids of
+/// the combinations where that happened.
+pub fn load_effects_relieved(
+    model: &Model,
+    results: &[CaseResult],
+    relief: Option<Relief>,
+) -> (Vec<LoadEffect>, Vec<String>) {
+    let mut relieved = Vec::new();
+    let mut out = case_effects(model, results);
     // Combinations that name a moving load are built by `moving_effects`.
     for (ci, combo) in model
         .combinations
@@ -162,14 +166,7 @@ pub fn load_effects_relieved(
         .filter(|(_, c)| c.moving.is_empty())
     {
         let mut forces = vec![0.0; model.members.len()];
-        let n = sum_cases(
-            model,
-            analysis_cases,
-            &combo.factors,
-            None,
-            relief,
-            &mut forces,
-        );
+        let n = sum_cases(model, results, &combo.factors, None, relief, &mut forces);
         if n > 0 {
             relieved.push(combo.id.clone());
         }

@@ -379,20 +379,7 @@ fn effects(
     relief: Option<super::Relief>,
     relieved: &mut Vec<String>,
 ) -> Result<Vec<LoadEffect>, RateError> {
-    let mut out: Vec<LoadEffect> = model
-        .cases
-        .iter()
-        .zip(results)
-        .enumerate()
-        .map(|(i, (c, r))| LoadEffect {
-            id: c.id.clone(),
-            case: Some(i),
-            moving: None,
-            factored: false,
-            combination: None,
-            forces: r.forces.clone(),
-        })
-        .collect();
+    let mut out = super::combine::case_effects(model, results);
     for (ci, combo) in model.combinations.iter().enumerate() {
         // The factors as written and, where the method has minimum
         // permanent-load factors below them, the dead cases at those minima
