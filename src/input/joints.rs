@@ -224,8 +224,13 @@ impl R<'_, '_, '_, '_> {
         match q.to_si(Dimension::Length, f) {
             Ok(v) if v > 0.0 && v.is_finite() => Some(v),
             Ok(_) => {
-                self.ctx
-                    .error(format!("{w} must be positive, not {}", q.show()), None);
+                self.ctx.error(
+                    format!(
+                        "{w} must be positive, not {}",
+                        q.show_in(self.p.units.section.name)
+                    ),
+                    None,
+                );
                 None
             }
             Err(e) => {

@@ -125,7 +125,10 @@ fn length(ctx: &mut Ctx, q: &Quantity, u: &DisplayUnits, what: &str, zero_ok: bo
     match q.to_si(Dimension::Length, u.section.to_si) {
         Ok(v) if v > 0.0 || (zero_ok && v == 0.0) => Some(v),
         Ok(_) => {
-            ctx.error(format!("{what} must be positive, not {}", q.show()), None);
+            ctx.error(
+                format!("{what} must be positive, not {}", q.show_in(u.section.name)),
+                None,
+            );
             None
         }
         Err(e) => {

@@ -101,6 +101,14 @@ impl Quantity {
     }
 
     /// The value as written, for messages.
+    /// As [`Quantity::show`], a bare number with the unit it is read in.
+    pub fn show_in(&self, unit: &str) -> String {
+        match self {
+            Quantity::Number(v) => format!("{v} {unit}"),
+            Quantity::Text(t) => format!("\"{t}\""),
+        }
+    }
+
     pub fn show(&self) -> String {
         match self {
             Quantity::Number(v) => format!("{v}"),
