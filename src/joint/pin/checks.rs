@@ -64,6 +64,9 @@ impl JointCheck for PinStrength {
         self.0.resolved.members.clone()
     }
     fn clause(&self, method: &Method) -> &'static str {
+        if method.family == crate::method::Family::DesignFactored {
+            return "AASHTO LRFD Eq. 6.7.6.2.1-1 with φf = φv = 0.90 for a design code (at or below EN 1993-1-8 Table 3.10 pin bending; from memory)";
+        }
         match strength::basis(method) {
             Basis::Lrfd => "AASHTO LRFD 6.7.6.2.1, Eq. 6.7.6.2.1-1; φf = φv = 1.00 (6.5.4.2) (from memory)",
             Basis::LoadFactor => "AASHTO LRFD 6.7.6.2.1, Eq. 6.7.6.2.1-1 against load-factor loads (this program's choice for lfr; from memory)",
@@ -156,6 +159,9 @@ impl JointCheck for Bearing {
     }
     fn clause(&self, method: &Method) -> &'static str {
         let plate = self.data.pin.stack[self.bar].is_plate();
+        if method.family == crate::method::Family::DesignFactored {
+            return "AASHTO LRFD 6.7.6.2.2 / 6.8.7.1 times 0.90 for a design code (AISC 360-16 §J7: φ·1.8·Fy·Apb = 1.35·Fy·t·D; from memory)";
+        }
         match (strength::basis(method), plate) {
             (Basis::Lrfd, false) => "AASHTO LRFD 6.7.6.2.2, Eq. 6.7.6.2.2-1; φb = 1.00 (6.5.4.2) (from memory)",
             (Basis::Lrfd, true) => "AASHTO LRFD 6.8.7.1 pin plates, Pr = φb·Apb·Fy (from memory)",

@@ -99,9 +99,22 @@ pub fn basis(method: &Method) -> Basis {
     }
 }
 
-/// φc·φs where the method applies them (LRFR, MBE Eq. 6A.4.2.1-2/-3), else 1.
+/// Factor on the AASHTO pin equations under a design code's factored check
+/// (`aisc360`, `en1993-*`, `csa-s16`): 0.90 keeps them at or below AISC
+/// 360-16 §J7 pin bearing (φ·1.8·Fy·Apb = 0.75·1.8 = 1.35·Fy·t·D, against
+/// 0.90·1.5 = 1.35) and EN 1993-1-8 Table 3.10 pin bending
+/// (1.5·Wel·fy/γM0 ≈ 0.147·D³·fy, against 0.90·0.95/6 ≈ 0.143·D³·fy); from
+/// memory. The AASHTO values alone (φ = 1.00) would exceed both.
+pub const DESIGN_CODE_PHI: f64 = 0.90;
+
+/// φc·φs where the method applies them (LRFR, MBE Eq. 6A.4.2.1-2/-3);
+/// [`DESIGN_CODE_PHI`] for a design code's factored check; else 1.
 pub fn condition_system(method: &Method, level: &Level) -> f64 {
-    method.condition_system(level)
+    if method.family == Family::DesignFactored {
+        DESIGN_CODE_PHI
+    } else {
+        method.condition_system(level)
+    }
 }
 
 /// LRFD Eq. 6.7.6.2.1-1 left side: 6·M/(φf·D³·Fy) + (2.2·V/(φv·D²·Fy))³.
@@ -150,6 +163,34 @@ mod tests {
         // term and multiplies the shear term by 2³ = 8.
         let half = interaction(600.0, 300.0, 6.0, 36.0, 0.5, 0.5);
         assert!((half - (2.0 * 3600.0 / 7776.0 + 8.0 * (660.0f64 / 1296.0).powi(3))).abs() < 1e-12);
+    }
+
+    /// Under a design code the pin equations stay at or below the codes'
+    /// own: EN 1993-1-8 Table 3.10 pin bending MRd = 1.5·Wel·fy/γM0
+    /// (γM0 = 1.0), Wel = π·D³/32; AISC 360-16 §J7 bearing φ·1.8·Fy·Apb with
+    /// φ = 0.75 (both from memory).
+    #[test]
+    fn design_code_pins_not_above_the_codes() {
+        let (d, fy): (f64, f64) = (5.0, 36.0);
+        // Pure bending at the interaction limit 0.95 with φf = DESIGN_CODE_PHI.
+        let m = DESIGN_CODE_PHI * 0.95 * d.powi(3) * fy / 6.0;
+        let m_en = 1.5 * section_modulus(d) * fy;
+        assert!(m <= m_en, "{m} > EN {m_en}");
+        assert!(
+            (interaction(m, 0.0, d, fy, DESIGN_CODE_PHI, DESIGN_CODE_PHI) - 0.95).abs() < 1e-12
+        );
+        // Bearing: 0.90 × 1.5·Fy·t·D against AISC 0.75 × 1.8·Fy·t·D.
+        let t = 1.0;
+        let ours = bearing(
+            &Factors::default(),
+            Basis::Lrfd,
+            false,
+            t,
+            d,
+            fy,
+            DESIGN_CODE_PHI,
+        );
+        assert!(ours <= 0.75 * 1.8 * fy * t * d + 1e-9, "{ours}");
     }
 
     #[test]
